@@ -1,0 +1,56 @@
+import { z } from 'zod';
+
+/** Every role a person can hold; a person may hold several. */
+export const ROLES = ['designer', 'catalogue_manager', 'sales', 'admin'] as const;
+
+/** One role. */
+export const RoleSchema = z.enum(ROLES);
+/** One role. */
+export type Role = z.infer<typeof RoleSchema>;
+
+/** Human labels for the roles, used by the client and the CLI. */
+export const ROLE_LABELS: Record<Role, string> = {
+  designer: 'Designer',
+  catalogue_manager: 'Catalogue manager',
+  sales: 'Sales',
+  admin: 'Admin',
+};
+
+/** E-mail as people type it: trimmed, lower-cased, at most 254 characters. */
+export const EmailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email());
+
+/** Body of `POST /api/auth/sign-in`. */
+export const SignInSchema = z.object({
+  email: EmailSchema,
+  password: z.string().min(1, 'password is required').max(256),
+});
+/** Body of `POST /api/auth/sign-in`. */
+export type SignIn = z.infer<typeof SignInSchema>;
+
+/** A person as the API shows them (never the password hash). */
+export const PersonSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string().min(1).max(120),
+  roles: z.array(RoleSchema).min(1),
+});
+/** A person as the API shows them. */
+export type Person = z.infer<typeof PersonSchema>;
+
+/** Body of `POST /api/people` (admin). */
+export const PersonCreateSchema = PersonSchema.pick({ name: true, roles: true }).extend({
+  email: EmailSchema,
+  password: z.string().min(10, 'password must be at least 10 characters').max(256),
+});
+/** Body of `POST /api/people` (admin). */
+export type PersonCreate = z.infer<typeof PersonCreateSchema>;
+
+/** Body of `PATCH /api/people/:id` (admin). */
+export const PersonUpdateSchema = PersonSchema.pick({ name: true, roles: true }).partial();
+/** Body of `PATCH /api/people/:id` (admin). */
+export type PersonUpdate = z.infer<typeof PersonUpdateSchema>;
+
+/** Answer of `GET /api/auth/me` and `POST /api/auth/sign-in`. */
+export const MeSchema = z.object({ person: PersonSchema });
+/** Answer of `GET /api/auth/me`. */
+export type Me = z.infer<typeof MeSchema>;

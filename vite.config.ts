@@ -1,0 +1,18 @@
+import { defineConfig } from 'vite';
+import vue from '@vitejs/plugin-vue';
+
+// One config for the client build and for vitest.
+export default defineConfig({
+  plugins: [vue()],
+  build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 2000 },
+  worker: { format: 'es' },
+  server: { port: 5173 },
+  test: {
+    include: ['tests/**/*.test.ts'],
+    environment: 'node',
+    pool: 'forks',
+    testTimeout: 30_000,
+    hookTimeout: 120_000,
+    globalSetup: ['tests/setup/global.ts'],
+  },
+});
