@@ -1,0 +1,23 @@
+/**
+ * `npm run bench`: runs every bench/*.bench.ts file in turn and prints its figures.
+ * `npm run bench -- analysis` runs only the files whose name contains "analysis".
+ */
+import { readdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { cpus } from 'node:os';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const filter = process.argv[2];
+const files = readdirSync(here)
+  .filter((name) => name.endsWith('.bench.ts') && (!filter || name.includes(filter)))
+  .sort();
+
+console.log(`Nestwright benchmarks: Node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? '?'})`);
+for (const name of files) {
+  console.log(`\n== ${name} ==`);
+  const mod = (await import(pathToFileURL(join(here, name)).href)) as { default: () => Promise<void> };
+  const started = performance.now();
+  await mod.default();
+  console.log(`(${name} took ${((performance.now() - started) / 1000).toFixed(1)} s)`);
+}
