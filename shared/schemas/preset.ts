@@ -1,0 +1,68 @@
+import { z } from 'zod';
+
+/** Largest thumbnail the API stores, as a data URL string (about 90 KB of PNG). */
+export const PRESET_THUMBNAIL_MAX_CHARS = 120_000;
+
+/** Prefix every stored thumbnail must carry: a base64 PNG data URL. */
+export const PRESET_THUMBNAIL_PREFIX = 'data:image/png;base64,';
+
+/** A PNG data URL rendered from the viewer canvas on save, limited in size. */
+export const PresetThumbnailSchema = z
+  .string()
+  .max(PRESET_THUMBNAIL_MAX_CHARS, `thumbnail must be at most ${PRESET_THUMBNAIL_MAX_CHARS} characters`)
+  .refine((value) => value.startsWith(PRESET_THUMBNAIL_PREFIX), {
+    message: `thumbnail must be a PNG data URL starting with ${PRESET_THUMBNAIL_PREFIX}`,
+  })
+  .refine((value) => /^[A-Za-z0-9+/]+={0,2}$/.test(value.slice(PRESET_THUMBNAIL_PREFIX.length)), {
+    message: 'thumbnail must be base64 after the data URL prefix',
+  });
+
+/** A preset's display name: trimmed, 1 to 80 characters. */
+export const PresetNameSchema = z.string().trim().min(1, 'name is required').max(80, 'name must be at most 80 characters');
+
+/**
+ * A designer's named parameter set for one template. `params` holds millimetres (and booleans / choices) exactly as
+ * the template's parameter schema reads them; the server validates them with the template's parseParams.
+ */
+export const PresetSchema = z.object({
+  id: z.string(),
+  ownerId: z.string(),
+  templateId: z.string().min(1).max(64),
+  /** Template version the parameters were saved against. */
+  templateVersion: z.number().int().nonnegative(),
+  name: PresetNameSchema,
+  params: z.record(z.string(), z.unknown()),
+  thumbnail: PresetThumbnailSchema.nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+/** A designer's named parameter set for one template. */
+export type Preset = z.infer<typeof PresetSchema>;
+
+/** Body of `POST /api/presets`. */
+export const PresetCreateSchema = PresetSchema.pick({ templateId: true, name: true, params: true }).extend({
+  thumbnail: PresetThumbnailSchema.optional(),
+});
+/** Body of `POST /api/presets`. */
+export type PresetCreate = z.infer<typeof PresetCreateSchema>;
+
+/** Body of `PATCH /api/presets/:id`: rename, new parameters and/or a new thumbnail. */
+export const PresetUpdateSchema = PresetSchema.pick({ name: true, params: true })
+  .extend({ thumbnail: PresetThumbnailSchema.nullable() })
+  .partial()
+  .refine((body) => Object.keys(body).length > 0, { message: 'nothing to update: send name, params or thumbnail' });
+/** Body of `PATCH /api/presets/:id`. */
+export type PresetUpdate = z.infer<typeof PresetUpdateSchema>;
+
+/** Query of `GET /api/presets`. */
+export const PresetListQuerySchema = z.object({ templateId: z.string().min(1).max(64).optional() });
+/** Query of `GET /api/presets`. */
+export type PresetListQuery = z.infer<typeof PresetListQuerySchema>;
+
+/** Path parameters of `/api/presets/:id`. */
+export const PresetIdParamsSchema = z.object({ id: z.string().min(1).max(64) });
+
+/** Answer of `GET /api/presets`. */
+export const PresetListSchema = z.object({ presets: z.array(PresetSchema) });
+/** Answer of `GET /api/presets`. */
+export type PresetList = z.infer<typeof PresetListSchema>;
