@@ -1,0 +1,19 @@
+import type { AnyTemplate } from './types';
+
+/** Every template the product offers, in picker order. */
+export const TEMPLATES: readonly AnyTemplate[] = [];
+
+/**
+ * The template with this id, or undefined.
+ * @param id - a template id such as `gable-box`
+ */
+export function findTemplate(id: string): AnyTemplate | undefined {
+  return TEMPLATES.find((template) => template.id === id);
+}
+
+export { describeParameters } from './lib/describeParameters';
+export { parseParams } from './lib/parseParams';
+export { TemplateParamError } from './lib/TemplateParamError';
+export { generate } from './generate';
+export type { GenerateResult } from './generate';
+export type { AnyTemplate, Template, TemplateOutput, TemplatePart, ParameterDescription } from './types';

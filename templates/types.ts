@@ -1,0 +1,68 @@
+import type { z } from 'zod';
+import type Geom3 from '@jscad/modeling/src/geometries/geom3/type';
+import type { NestBoxFacts } from '../shared/schemas/nestbox';
+
+/** Units a template parameter may carry (millimetres inside; inches only at the edge of the UI). */
+export type ParameterUnit = 'mm' | 'deg' | 'count' | '%' | '';
+
+/**
+ * What every template field carries in `.meta()` beside its zod range and default.
+ * `step` is the slider step in the field's unit.
+ */
+export interface ParameterMeta {
+  label: string;
+  unit: ParameterUnit;
+  step?: number;
+  help: string;
+}
+
+/** One printable body of a template, in its build orientation (+z up, resting on z = 0). */
+export interface TemplatePart {
+  /** Stable part name, e.g. `body` or `floor-plug`. */
+  name: string;
+  geometry: Geom3;
+}
+
+/** What `build(params)` returns: the printable parts and what the box offers a bird. */
+export interface TemplateOutput {
+  parts: TemplatePart[];
+  facts: NestBoxFacts;
+}
+
+/**
+ * A parametric nest-box template. `parameters` is a zod object whose every field has a range, a default and
+ * {@link ParameterMeta}; `build` is pure (no DOM, network, clock or unseeded randomness): the same `version` and
+ * parameters always give the same mesh.
+ */
+export interface Template<S extends z.ZodObject = z.ZodObject> {
+  /** Stable identifier used in URLs, presets and exports. */
+  id: string;
+  /** Bumped whenever the same parameters would give a different mesh. */
+  version: number;
+  name: string;
+  /** One sentence for the template picker. */
+  summary: string;
+  parameters: S;
+  build(params: z.output<S>): TemplateOutput;
+}
+
+/** Any registered template, parameters erased. */
+export type AnyTemplate = Template<z.ZodObject>;
+
+/** Parameters of a template after defaults are merged and ranges checked. */
+export type TemplateParams = Record<string, number | boolean | string>;
+
+/** One parameter as the editor and the CLI see it (read from the zod schema and its meta). */
+export interface ParameterDescription {
+  key: string;
+  label: string;
+  unit: ParameterUnit;
+  kind: 'number' | 'boolean' | 'choice';
+  min?: number;
+  max?: number;
+  step?: number;
+  default: number | boolean | string;
+  /** Allowed values of a `choice` parameter. */
+  options?: string[];
+  help: string;
+}
