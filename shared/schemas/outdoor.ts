@@ -77,3 +77,22 @@ export const OutdoorAssessmentSchema = z.object({
 });
 /** Outdoor assessment (see {@link OutdoorAssessmentSchema}). */
 export type OutdoorAssessment = z.infer<typeof OutdoorAssessmentSchema>;
+
+/**
+ * Options of the outdoor assessment. Defaults are the worked case of trade-facts §2c: air 30 °C, roof 1000 W/m²,
+ * wall 600 W/m², h_o 17 W/m²K, roof long-wave correction 3.9 K.
+ */
+export const AssessOutdoorOptionsSchema = z.object({
+  colourId: z.string().min(1),
+  airC: z.number().default(30),
+  roofIrradianceWm2: z.number().nonnegative().default(1000),
+  wallIrradianceWm2: z.number().nonnegative().default(600),
+  hoWm2K: z.number().positive().default(17),
+  roofLongwaveCorrectionK: z.number().default(3.9),
+  /** A surface within this many kelvin of the heat-deflection temperature gets "caution". */
+  cautionMarginK: z.number().nonnegative().default(10),
+  /** The printed wall, for its thermal resistance beside a pine board. */
+  wall: WallResistanceInputSchema.omit({ polymerK: true }).optional(),
+});
+/** Outdoor assessment options as callers write them (defaults optional). */
+export type AssessOutdoorOptions = z.input<typeof AssessOutdoorOptionsSchema>;
