@@ -1,0 +1,55 @@
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import type { Role } from '../../shared/schemas/auth';
+import { roleGuard } from './roleGuard';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Roles allowed to open the route (any one is enough); absent = any signed-in person. */
+    roles?: Role[];
+    /** Open without signing in (the sign-in page). */
+    public?: true;
+    /** Page title, shown in the browser tab as "<title> · Nestwright". */
+    title?: string;
+  }
+}
+
+/** Every route of the client. Screens add their records here and their area to ./areas.ts. */
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('../views/SignInView.vue'),
+    meta: { public: true, title: 'Sign in' },
+  },
+  { path: '/', name: 'home', component: () => import('../views/HomeView.vue'), meta: { title: 'Home' } },
+  {
+    path: '/admin/people',
+    name: 'admin-people',
+    component: () => import('../views/AdminPeopleView.vue'),
+    meta: { roles: ['admin'], title: 'People' },
+  },
+  {
+    path: '/forbidden',
+    name: 'forbidden',
+    component: () => import('../views/ForbiddenView.vue'),
+    meta: { title: 'Not for your role' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('../views/NotFoundView.vue'),
+    meta: { title: 'Not found' },
+  },
+];
+
+/** The app's router with the sign-in and role guard installed. */
+export const router = createRouter({
+  history: createWebHistory(),
+  routes,
+  scrollBehavior: (_to, _from, saved) => saved ?? { top: 0 },
+});
+
+router.beforeEach(roleGuard);
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Nestwright` : 'Nestwright';
+});

@@ -1,0 +1,66 @@
+import { defineStore } from 'pinia';
+import { computed, ref } from 'vue';
+import type { Person, Role, SignIn } from '../../shared/schemas/auth';
+import * as authApi from '../api/auth';
+import { ApiError } from '../api/client';
+
+/** The signed-in person and their roles; loads `/api/auth/me` once per page load. */
+export const useSessionStore = defineStore('session', () => {
+  const person = ref<Person | null>(null);
+  let loading: Promise<void> | null = null;
+  const loaded = ref(false);
+
+  const roles = computed<Role[]>(() => person.value?.roles ?? []);
+  const signedIn = computed(() => person.value !== null);
+
+  /**
+   * Whether the person holds at least one of the roles (admin does not imply the others).
+   * @param wanted - roles, any of which is enough
+   */
+  function hasRole(...wanted: Role[]): boolean {
+    return wanted.some((role) => roles.value.includes(role));
+  }
+
+  /** Loads the signed-in person once; later calls reuse the first answer. */
+  function load(): Promise<void> {
+    loading ??= authApi
+      .fetchMe()
+      .then((me) => {
+        person.value = me.person;
+      })
+      .catch((err: unknown) => {
+        if (err instanceof ApiError && err.status === 401) person.value = null;
+        else {
+          loading = null; // a network failure may pass: try again on the next navigation
+          throw err;
+        }
+      })
+      .finally(() => {
+        loaded.value = true;
+      });
+    return loading;
+  }
+
+  /**
+   * Signs in; throws ApiError (401 wrong credentials, 429 too many attempts, 400 bad input).
+   * @param credentials - e-mail and password
+   */
+  async function signIn(credentials: SignIn): Promise<void> {
+    const me = await authApi.signIn(credentials);
+    person.value = me.person;
+    loading = Promise.resolve();
+    loaded.value = true;
+  }
+
+  /** Signs out; the local session is cleared even when the server cannot be reached. */
+  async function signOut(): Promise<void> {
+    try {
+      await authApi.signOut();
+    } finally {
+      person.value = null;
+      loading = Promise.resolve();
+    }
+  }
+
+  return { person, roles, signedIn, loaded, hasRole, load, signIn, signOut };
+});
