@@ -1,0 +1,73 @@
+/** Builds the Express app (no listening): the API under /api and, when built, the client with an SPA fallback. */
+import express, { type Express } from 'express';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { sessionMiddleware } from './auth/sessionMiddleware';
+import type { AppContext } from './context';
+import { errorHandler } from './http/errorHandler';
+import { notFound } from './http/HttpError';
+import { originCheck } from './http/originCheck';
+import { authRouter } from './routes/auth';
+import { healthRouter } from './routes/health';
+import { peopleRouter } from './routes/people';
+
+/** Largest JSON body the API accepts. */
+export const JSON_BODY_LIMIT = '1mb';
+
+/** Options of {@link createApp}. */
+export interface CreateAppOptions {
+  /** Folder of the built client (dist/client) to serve with an SPA fallback; omitted in tests and in dev. */
+  clientDir?: string;
+}
+
+/**
+ * Builds the app for a context. Routers are factories `xRouter(ctx)` mounted under /api here.
+ * @param ctx - app context
+ * @param options - what else to serve
+ */
+export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
+
+  const api = express.Router();
+  api.use(express.json({ limit: JSON_BODY_LIMIT }));
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(originCheck(ctx.env.PUBLIC_ORIGIN));
+  api.use(sessionMiddleware(ctx));
+
+  api.use('/health', healthRouter());
+  api.use('/auth', authRouter(ctx));
+  api.use('/people', peopleRouter(ctx));
+
+  api.use((req) => {
+    throw notFound(`No API route ${req.method} ${req.path}.`);
+  });
+  app.use('/api', api);
+
+  if (options.clientDir && existsSync(join(options.clientDir, 'index.html'))) {
+    const indexHtml = join(options.clientDir, 'index.html');
+    app.use(express.static(options.clientDir, { index: false }));
+    app.use((req, res, next) => {
+      if (req.method !== 'GET' && req.method !== 'HEAD') {
+        next();
+        return;
+      }
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(indexHtml);
+    });
+  }
+
+  app.use(errorHandler((err) => ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`)));
+  return app;
+}
+
+/** TRUST_PROXY as Express wants it: a hop count, true/false, or an address list. */
+function parseTrustProxy(value: string): boolean | number | string {
+  if (value === 'true') return true;
+  if (value === 'false') return false;
+  return /^\d+$/.test(value) ? Number(value) : value;
+}

@@ -1,0 +1,31 @@
+/** Reads the session cookie on every API request and puts the signed-in person on res.locals. */
+import type { RequestHandler } from 'express';
+import type { Person } from '../../shared/schemas/auth';
+import type { AppContext } from '../context';
+import { clearSessionCookie, setSessionCookie } from './sessionCookie';
+
+/**
+ * Validates the session cookie: sets `res.locals.person` and `res.locals.sessionId` when valid, renews the cookie
+ * when lucia extended the session, clears it when the session is unknown or expired.
+ * @param ctx - app context
+ */
+export function sessionMiddleware(ctx: AppContext): RequestHandler {
+  return async (req, res, next) => {
+    const sessionId = ctx.lucia.readSessionCookie(req.headers.cookie ?? '');
+    if (!sessionId) {
+      next();
+      return;
+    }
+    const { session, user } = await ctx.lucia.validateSession(sessionId);
+    if (!session) {
+      clearSessionCookie(ctx, req, res);
+      next();
+      return;
+    }
+    if (session.fresh) setSessionCookie(ctx, req, res, session.id);
+    const person: Person = { id: user.id, email: user.email, name: user.name, roles: user.roles };
+    res.locals.person = person;
+    res.locals.sessionId = session.id;
+    next();
+  };
+}

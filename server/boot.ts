@@ -1,0 +1,100 @@
+/** Boots a server: opens PGlite, migrates, seeds a new database, builds the app and listens. */
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Express } from 'express';
+import { createApp } from './app';
+import { createContext, type AppContext, type Log } from './context';
+import { migrateDatabase, openDatabase } from './db/client';
+import { seedIfNew } from './db/seed';
+import { loadEnv, type Env } from './env';
+
+/** Options of {@link boot}. */
+export interface BootOptions {
+  /** DATA_DIR; undefined opens an in-memory database. */
+  dataDir?: string;
+  /** Port to listen on; 0 picks a free one. Defaults to env.PORT. */
+  port?: number;
+  /** Seed a new database (default true). */
+  seed?: boolean;
+  /** Progress lines (console.log by default). */
+  log?: Log;
+  /** The environment (parsed from process.env by default). */
+  env?: Env;
+  /** Built client to serve (dist/client); omitted = API only. */
+  clientDir?: string;
+  /** Adds middleware after the API and before listening (dev mode mounts Vite here). */
+  extend?: (app: Express, ctx: AppContext) => Promise<void> | void;
+}
+
+/** A running server. */
+export interface Booted {
+  /** `http://localhost:<port>` */
+  url: string;
+  ctx: AppContext;
+  /** Stops listening and closes the database. */
+  close(): Promise<void>;
+}
+
+/**
+ * Opens the database, migrates, seeds a new database, builds the app and listens, logging the time of each stage.
+ * @param options - see {@link BootOptions}
+ */
+export async function boot(options: BootOptions = {}): Promise<Booted> {
+  const log = options.log ?? ((line: string) => console.log(line));
+  const env = options.env ?? loadEnv();
+  const stage = stopwatch(log);
+
+  const { pg, db } = await openDatabase({ dataDir: options.dataDir });
+  stage(options.dataDir ? `database opened (${options.dataDir}/pg)` : 'database opened (in memory)');
+  await migrateDatabase(db);
+  stage('migrations applied');
+  const ctx = createContext({ db, pg, env, log });
+  if (options.seed ?? true) {
+    const ran = await seedIfNew(db, env, log);
+    stage(ran.length ? `new database seeded (${ran.join(', ')})` : 'existing database kept');
+  }
+  await ctx.lucia.deleteExpiredSessions();
+
+  const app = createApp(ctx, { clientDir: options.clientDir });
+  await options.extend?.(app, ctx);
+  const server = createServer(app);
+  await listen(server, options.port ?? env.PORT);
+  const { port } = server.address() as AddressInfo;
+  stage(`listening on port ${port}`);
+
+  let closing: Promise<void> | undefined;
+  return {
+    url: `http://localhost:${port}`,
+    ctx,
+    close() {
+      closing ??= (async () => {
+        await new Promise<void>((resolve) => {
+          server.close(() => resolve());
+          server.closeAllConnections();
+        });
+        await pg.close();
+      })();
+      return closing;
+    },
+  };
+}
+
+function listen(server: Server, port: number): Promise<void> {
+  return new Promise((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(port, () => {
+      server.off('error', reject);
+      resolve();
+    });
+  });
+}
+
+/** Logs each stage with the milliseconds since the previous one. */
+function stopwatch(log: Log): (label: string) => void {
+  let last = performance.now();
+  return (label) => {
+    const now = performance.now();
+    log(`  ${label} (${Math.round(now - last)} ms)`);
+    last = now;
+  };
+}

@@ -1,0 +1,40 @@
+/** The environment, parsed once at start-up with zod so a bad setting fails fast with a clear message. */
+import { z } from 'zod';
+
+/** "true"/"false"/"1"/"0"/"yes"/"no" as a boolean. */
+const BooleanFlag = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
+/** Every environment variable the server reads. */
+export const EnvSchema = z.object({
+  /** Port the HTTP server listens on. */
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  /** Folder for persistent data; the database lives in `${DATA_DIR}/pg`. */
+  DATA_DIR: z.string().min(1).default('./data'),
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  /**
+   * The address people use to reach the server, e.g. `https://nest.example.test`. State-changing requests must
+   * come from this origin (or from the request's own Host); an https origin makes session cookies Secure.
+   */
+  PUBLIC_ORIGIN: z.url({ protocol: /^https?$/ }).optional(),
+  /** Express "trust proxy" setting (e.g. `loopback` or `1`) when a reverse proxy terminates HTTPS. */
+  TRUST_PROXY: z.string().min(1).optional(),
+  /** Seed a new database with the Fernhollow Studio demo people and data; set to false on a real deployment. */
+  SEED_DEMO: BooleanFlag.default(true),
+});
+/** The parsed environment. */
+export type Env = z.infer<typeof EnvSchema>;
+
+/**
+ * Parses the environment or throws an Error listing every bad variable.
+ * @param source - the variables to read, `process.env` by default
+ */
+export function loadEnv(source: Record<string, string | undefined> = process.env): Env {
+  const result = EnvSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  return result.data;
+}
