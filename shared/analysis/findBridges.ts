@@ -1,0 +1,115 @@
+import type { IndexedMesh } from '../schemas/mesh';
+import type { Bridge } from '../schemas/analysis';
+import { PLATE_TOLERANCE_MM } from './measureMesh';
+
+/** Options of the bridge search. */
+export interface BridgeOptions {
+  /** Faces within this angle of facing straight down count as flat (common practice, no source). */
+  flatWithinDeg?: number;
+  /** Span above which a bridge is flagged. From memory: a ~10 mm default, see trade-facts §3 [M]. */
+  warnSpanMm?: number;
+  /** Span above which a bridge is judged to fail. From memory: ~20 mm, see trade-facts §3 [M]. */
+  failSpanMm?: number;
+}
+
+/**
+ * Finds bridges: connected regions of flat downward faces (not on the plate) whose two opposite sides, across the
+ * region's shorter horizontal extent, both meet walls that go down, so the extruded lines are held at both ends.
+ * A region held on one side only (a cantilever) is an overhang for the support estimate, not a bridge.
+ * The span is the shorter side of the region's x-y bounding box in build orientation.
+ * @param mesh - the part in build orientation
+ * @param neighbours - face across each edge (from meshTopology)
+ * @param plateZMm - height of the build plate
+ * @param options - thresholds
+ * @returns the bridges, widest first
+ */
+export function findBridges(
+  mesh: IndexedMesh,
+  neighbours: Int32Array,
+  plateZMm: number,
+  options: BridgeOptions = {},
+): Bridge[] {
+  const warn = options.warnSpanMm ?? 10;
+  const fail = options.failSpanMm ?? 20;
+  const cosFlat = Math.cos(((options.flatWithinDeg ?? 5) * Math.PI) / 180);
+  const p = mesh.positions;
+  const idx = mesh.indices;
+  const triangles = (idx.length / 3) | 0;
+  const flat = new Uint8Array(triangles);
+  const area = new Float64Array(triangles);
+  const minZ = new Float64Array(triangles);
+  for (let t = 0; t < triangles; t++) {
+    const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
+    const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
+    const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
+    const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
+    const len = Math.sqrt(nx * nx + ny * ny + nz * nz);
+    area[t] = len / 2;
+    minZ[t] = Math.min(p[a + 2], p[b + 2], p[c + 2]);
+    const onPlate = Math.max(p[a + 2], p[b + 2], p[c + 2]) <= plateZMm + PLATE_TOLERANCE_MM;
+    if (len > 0 && -nz >= cosFlat * len && !onPlate) flat[t] = 1;
+  }
+  const region = new Int32Array(triangles).fill(-1);
+  const bridges: Bridge[] = [];
+  const stack: number[] = [];
+  for (let seed = 0; seed < triangles; seed++) {
+    if (!flat[seed] || region[seed] >= 0) continue;
+    const faces: number[] = [];
+    region[seed] = seed;
+    stack.push(seed);
+    while (stack.length) {
+      const t = stack.pop()!;
+      faces.push(t);
+      for (let k = 0; k < 3; k++) {
+        const n = neighbours[t * 3 + k];
+        if (n >= 0 && flat[n] && region[n] < 0) {
+          region[n] = seed;
+          stack.push(n);
+        }
+      }
+    }
+    let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity, zSum = 0, areaSum = 0;
+    for (const t of faces) {
+      for (let k = 0; k < 3; k++) {
+        const v = idx[t * 3 + k] * 3;
+        x0 = Math.min(x0, p[v]);
+        x1 = Math.max(x1, p[v]);
+        y0 = Math.min(y0, p[v + 1]);
+        y1 = Math.max(y1, p[v + 1]);
+        zSum += p[v + 2] * area[t];
+      }
+      areaSum += area[t];
+    }
+    const zMm = zSum / (3 * areaSum);
+    const spanAlongX = x1 - x0 <= y1 - y0;
+    const lo = spanAlongX ? x0 : y0;
+    const hi = spanAlongX ? x1 : y1;
+    const span = hi - lo;
+    const reach = Math.max(span * 0.1, 0.5);
+    let heldLow = false;
+    let heldHigh = false;
+    for (const t of faces) {
+      for (let k = 0; k < 3; k++) {
+        const n = neighbours[t * 3 + k];
+        if (n >= 0 && region[n] === seed) continue;
+        // a boundary edge: is the part below it (a wall going down from here)?
+        if (n < 0 || minZ[n] > zMm - 0.5) continue;
+        const va = idx[t * 3 + k] * 3;
+        const vb = idx[t * 3 + ((k + 1) % 3)] * 3;
+        const axis = spanAlongX ? 0 : 1;
+        const mid = (p[va + axis] + p[vb + axis]) / 2;
+        if (mid <= lo + reach) heldLow = true;
+        if (mid >= hi - reach) heldHigh = true;
+      }
+    }
+    if (!heldLow || !heldHigh) continue;
+    bridges.push({
+      spanMm: span,
+      areaMm2: areaSum,
+      zMm,
+      centerMm: [(x0 + x1) / 2, (y0 + y1) / 2, zMm],
+      status: span > fail ? 'fail' : span > warn ? 'warn' : 'ok',
+    });
+  }
+  return bridges.sort((a, b) => b.spanMm - a.spanMm);
+}
