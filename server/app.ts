@@ -10,6 +10,7 @@ import { originCheck } from './http/originCheck';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
+import { presetsRouter } from './routes/presets';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -42,6 +43,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   api.use('/health', healthRouter());
   api.use('/auth', authRouter(ctx));
   api.use('/people', peopleRouter(ctx));
+  api.use('/presets', presetsRouter(ctx));
 
   api.use((req) => {
     throw notFound(`No API route ${req.method} ${req.path}.`);

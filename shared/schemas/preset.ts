@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
-/** Largest thumbnail the API stores, as a data URL string (about 90 KB of PNG). */
-export const PRESET_THUMBNAIL_MAX_CHARS = 120_000;
+/** Largest thumbnail the API stores, as a data URL string (about 66 KB of PNG; JSON bodies stay under the 100 KB body limit). */
+export const PRESET_THUMBNAIL_MAX_CHARS = 90_000;
 
 /** Prefix every stored thumbnail must carry: a base64 PNG data URL. */
 export const PRESET_THUMBNAIL_PREFIX = 'data:image/png;base64,';

@@ -1,5 +1,6 @@
 import type { Component } from 'vue';
 import type { Role } from '../../shared/schemas/auth';
+import IconDesigns from '../components/icons/IconDesigns.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
 
 /** One area of the product: a nav entry and a home-screen card. */
@@ -23,6 +24,14 @@ export interface Area {
  * designs (designer), families (designer), review (catalogue_manager), catalogue (sales), people (admin).
  */
 export const AREAS: readonly Area[] = [
+  {
+    id: 'designs',
+    label: 'Designs',
+    description: 'Shape nest boxes from templates, check them for printing and for birds, save presets, export files.',
+    path: '/designs',
+    roles: ['designer'],
+    icon: IconDesigns,
+  },
   {
     id: 'people',
     label: 'People',

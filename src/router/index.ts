@@ -29,6 +29,24 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['admin'], title: 'People' },
   },
   {
+    path: '/designs',
+    name: 'designs',
+    component: () => import('../views/DesignsView.vue'),
+    meta: { roles: ['designer'], title: 'Designs' },
+  },
+  {
+    path: '/designs/new/:templateId',
+    name: 'design-new',
+    component: () => import('../views/DesignEditorView.vue'),
+    meta: { roles: ['designer'], title: 'New design' },
+  },
+  {
+    path: '/designs/:presetId',
+    name: 'design-edit',
+    component: () => import('../views/DesignEditorView.vue'),
+    meta: { roles: ['designer'], title: 'Design' },
+  },
+  {
     path: '/forbidden',
     name: 'forbidden',
     component: () => import('../views/ForbiddenView.vue'),

@@ -1,0 +1,57 @@
+import type { IndexedMesh } from '../../shared/schemas/mesh';
+import type { NestBoxFacts } from '../../shared/schemas/nestbox';
+import type { BirdFitResult } from '../../shared/schemas/birdfit';
+import type { ProductionEstimate } from '../../shared/schemas/production';
+
+/** A request to the geometry worker: build one template at one parameter set. */
+export interface GeometryRequest {
+  /** Increasing number; the page keeps only the answer to its latest request. */
+  requestId: number;
+  templateId: string;
+  /** Raw parameters in millimetres (validated by the worker with the template's parseParams). */
+  params: Record<string, unknown>;
+  /** Printer profile id whose build volume and speeds the figures use. */
+  printerId: string;
+}
+
+/** The key figures beside the model; a figure is null when its engine is not available. */
+export interface DesignFigures {
+  volumeMm3: number;
+  surfaceAreaMm2: number | null;
+  boundingBoxMm: [number, number, number];
+  triangleCount: number;
+  bodyCount: number | null;
+  overhangAreaMm2: number | null;
+  supportVolumeMm3: number | null;
+  fitsPrinter: boolean | null;
+  /** Mass, print time, cost of one unit on the chosen printer, material and settings. */
+  production: ProductionEstimate | null;
+  /** Species the design suits and the guidance warnings, each with its source. */
+  birdFit: BirdFitResult | null;
+  /** Engines that could not run, with the reason (shown as a note, never hidden). */
+  unavailable: string[];
+}
+
+/** The worker's answer to one request. */
+export type GeometryResponse =
+  | {
+      requestId: number;
+      ok: true;
+      templateVersion: number;
+      mesh: IndexedMesh;
+      /** Per-triangle overhang flags (1 = beyond the self-supporting angle), or null. */
+      overhangMask: Uint8Array | null;
+      facts: NestBoxFacts;
+      figures: DesignFigures;
+      /** sha256 of the exported mesh content, hex. */
+      sha256: string;
+      /** Milliseconds spent building, analysing and hashing. */
+      timingsMs: { build: number; analysis: number; total: number };
+    }
+  | {
+      requestId: number;
+      ok: false;
+      /** The parameter at fault when the error is about input. */
+      field?: string;
+      message: string;
+    };
