@@ -35,6 +35,20 @@ export class Solid {
     return new Solid(kernel().Manifold.extrude(outlines as SimplePolygon[], heightMm));
   }
 
+  /**
+   * Extrudes an outline along an axis between two coordinates. The outline is drawn in the plane across the axis:
+   * (y, z) for `x`, (x, z) for `y`, (x, y) for `z`; every mapping is a proper rotation, so winding stays outward.
+   */
+  static prism(outline: Outline, axis: 'x' | 'y' | 'z', startMm: number, endMm: number): Solid {
+    const length = endMm - startMm;
+    const raw = track(kernel().Manifold.extrude([outline] as SimplePolygon[], length));
+    if (axis === 'z') return new Solid(raw.translate([0, 0, startMm]));
+    if (axis === 'x') {
+      return new Solid(raw.transform([0, 1, 0, 0, 0, 0, 1, 0, 1, 0, 0, 0, startMm, 0, 0, 1]));
+    }
+    return new Solid(raw.transform([1, 0, 0, 0, 0, 0, 1, 0, 0, -1, 0, 0, 0, endMm, 0, 1]));
+  }
+
   /** Revolves an outline given in the (r, z) half plane, r ≥ 0, about the z axis. */
   static revolve(outline: Outline, segments: number): Solid {
     return new Solid(kernel().Manifold.revolve([outline] as SimplePolygon[], segments));
