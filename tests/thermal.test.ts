@@ -86,7 +86,7 @@ describe('wallResistance', () => {
 describe('assessOutdoor', () => {
   it('fails a black PLA roof in full sun and says so', () => {
     // source: trade-facts §2c — black roof 82.0 °C vs PLA HDT 55 °C (§2e): "a dark PLA roof can exceed it"
-    const a = assessOutdoor(pla, { colourId: 'black' });
+    const a = assessOutdoor({ material: pla, colourId: 'black' });
     expect(a.roof.solAirC).toBeCloseTo(82.0, 1);
     expect(a.roof.verdict).toBe('fail');
     expect(a.roof.marginK).toBeLessThan(0);
@@ -97,7 +97,7 @@ describe('assessOutdoor', () => {
 
   it('passes white PLA with the worked values and still shows the heat cautions', () => {
     // source: trade-facts §2c — white roof 40.8 °C, white wall 38.8 °C; PLA HDT 55 °C (Ingeo 2003D)
-    const a = assessOutdoor(pla, { colourId: 'white' });
+    const a = assessOutdoor({ material: pla, colourId: 'white' });
     expect(a.roof.solAirC).toBeCloseTo(40.8, 1);
     expect(a.wall.solAirC).toBeCloseTo(38.8, 1);
     expect(a.verdict).toBe('ok');
@@ -107,20 +107,21 @@ describe('assessOutdoor', () => {
 
   it('cautions when a surface comes within the margin of the HDT', () => {
     // trade-facts §2c formula: sand α 0.40 roof = 30 + 400/17 − 3.9 = 49.6 °C, 5.4 K under 55 °C
-    const a = assessOutdoor(pla, { colourId: 'sand' });
+    const a = assessOutdoor({ material: pla, colourId: 'sand' });
     expect(a.roof.solAirC).toBeCloseTo(49.63, 1);
     expect(a.roof.verdict).toBe('caution');
   });
 
   it('keeps a dark ASA roof below its HDT', () => {
     // source: renato.design via trade-facts §2e — ASA HDT 90–100 °C; roof 82.0 °C for α 0.95 (§2c)
-    const a = assessOutdoor(asa, { colourId: 'black' });
+    const a = assessOutdoor({ material: asa, colourId: 'black' });
     expect(a.roof.verdict).toBe('caution');
     expect(a.roof.marginK).toBeGreaterThan(0);
   });
 
   it('adds the wall resistance beside pine when the wall is given', () => {
-    const a = assessOutdoor(pla, {
+    const a = assessOutdoor({
+      material: pla,
       colourId: 'white',
       wall: { wallThicknessMm: 3, wallLoops: 3, lineWidthMm: 0.45, infillPct: 15 },
     });
@@ -129,6 +130,6 @@ describe('assessOutdoor', () => {
   });
 
   it('rejects an unknown colour', () => {
-    expect(() => assessOutdoor(pla, { colourId: 'tartan' })).toThrow(/colourId/);
+    expect(() => assessOutdoor({ material: pla, colourId: 'tartan' })).toThrow(/colourId/);
   });
 });

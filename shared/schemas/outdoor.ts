@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MaterialSchema } from './production';
 
 /** A printed wall: solid perimeters on both faces and a sparse infill core between them. */
 export const WallResistanceInputSchema = z.object({
@@ -83,6 +84,8 @@ export type OutdoorAssessment = z.infer<typeof OutdoorAssessmentSchema>;
  * wall 600 W/m², h_o 17 W/m²K, roof long-wave correction 3.9 K.
  */
 export const AssessOutdoorOptionsSchema = z.object({
+  material: MaterialSchema,
+  /** One of the material's colour ids. */
   colourId: z.string().min(1),
   airC: z.number().default(30),
   roofIrradianceWm2: z.number().nonnegative().default(1000),
@@ -94,5 +97,5 @@ export const AssessOutdoorOptionsSchema = z.object({
   /** The printed wall, for its thermal resistance beside a pine board. */
   wall: WallResistanceInputSchema.omit({ polymerK: true }).optional(),
 });
-/** Outdoor assessment options as callers write them (defaults optional). */
+/** Outdoor assessment input as callers write it (defaults optional). */
 export type AssessOutdoorOptions = z.input<typeof AssessOutdoorOptionsSchema>;

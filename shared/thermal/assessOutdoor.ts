@@ -5,7 +5,6 @@ import {
   type OutdoorVerdict,
   type SurfaceHeat,
 } from '../schemas/outdoor';
-import { MaterialSchema, type Material } from '../schemas/production';
 import { solAirTemperature } from './solAirTemperature';
 import { wallResistance } from './wallResistance';
 
@@ -24,14 +23,14 @@ function surface(solAirC: number, irradianceWm2: number, hdtC: number, cautionMa
  * Outdoor fitness of a box in one material and colour: sol-air temperatures of the sunlit roof and wall against
  * the material's heat-deflection temperature, the wall's thermal resistance beside a pine board, and the cautions
  * a seller must show. The figures are estimates; the texts defer to local rules and expert practice.
- * @param material - the filament material (heat-deflection temperature, conductivity, colours)
- * @param options - colour, weather case (defaults: 30 °C air, roof 1000 W/m², wall 600 W/m²) and optional wall build
+ * @param options - the material (heat-deflection temperature, conductivity, colours), one of its colours, the
+ *   weather case (defaults: 30 °C air, roof 1000 W/m², wall 600 W/m²) and optionally the printed wall
  * @returns roof and wall results, the overall verdict and caution texts
  * @throws Error when the colour is not one of the material's colours
  */
-export function assessOutdoor(material: Material, options: AssessOutdoorOptions): OutdoorAssessment {
-  const m = MaterialSchema.parse(material);
+export function assessOutdoor(options: AssessOutdoorOptions): OutdoorAssessment {
   const o = AssessOutdoorOptionsSchema.parse(options);
+  const m = o.material;
   const colour = m.colours.find((c) => c.id === o.colourId);
   if (!colour) throw new Error(`colourId must be one of ${m.colours.map((c) => c.id).join(', ')}`);
   const a = colour.solarAbsorptance;
