@@ -1,6 +1,5 @@
 /** `/api/presets`: a designer's named parameter sets per template (owner-only; others' presets answer 404). */
 import { Router } from 'express';
-import type { Person } from '../../shared/schemas/auth';
 import {
   PresetCreateSchema,
   PresetIdParamsSchema,
@@ -11,7 +10,7 @@ import {
   PresetUpdateSchema,
 } from '../../shared/schemas/preset';
 import type { AppContext } from '../context';
-import { requireRole } from '../auth/requireRole';
+import { requireRole, signedInPerson } from '../auth/requireRole';
 import { conflict, notFound } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { checkPresetParams } from '../services/presetParams';
@@ -30,13 +29,13 @@ export function presetsRouter(ctx: AppContext): Router {
   router.use(requireRole('designer'));
 
   router.get('/', validate({ query: PresetListQuerySchema }), async (_req, res) => {
-    const person = res.locals.person as Person;
+    const person = signedInPerson(res);
     const { templateId } = parsedQuery<PresetListQuery>(res);
     res.json({ presets: await store.listPresets(ctx.db, person.id, templateId) });
   });
 
   router.get('/:id', validate({ params: PresetIdParamsSchema }), async (_req, res) => {
-    const person = res.locals.person as Person;
+    const person = signedInPerson(res);
     const { id } = parsedParams<{ id: string }>(res);
     const preset = await store.findPreset(ctx.db, person.id, id);
     if (!preset) throw notFound('No such preset.');
@@ -44,7 +43,7 @@ export function presetsRouter(ctx: AppContext): Router {
   });
 
   router.post('/', validate({ body: PresetCreateSchema }), async (_req, res) => {
-    const person = res.locals.person as Person;
+    const person = signedInPerson(res);
     const body = parsedBody<PresetCreate>(res);
     const { params, templateVersion } = checkPresetParams(body.templateId, body.params);
     if (await store.presetNameTaken(ctx.db, person.id, body.templateId, body.name)) nameTaken(body.name);
@@ -65,7 +64,7 @@ export function presetsRouter(ctx: AppContext): Router {
   });
 
   router.patch('/:id', validate({ params: PresetIdParamsSchema, body: PresetUpdateSchema }), async (_req, res) => {
-    const person = res.locals.person as Person;
+    const person = signedInPerson(res);
     const { id } = parsedParams<{ id: string }>(res);
     const body = parsedBody<PresetUpdate>(res);
     const existing = await store.findPreset(ctx.db, person.id, id);
@@ -89,7 +88,7 @@ export function presetsRouter(ctx: AppContext): Router {
   });
 
   router.delete('/:id', validate({ params: PresetIdParamsSchema }), async (_req, res) => {
-    const person = res.locals.person as Person;
+    const person = signedInPerson(res);
     const { id } = parsedParams<{ id: string }>(res);
     if (!(await store.deletePreset(ctx.db, person.id, id))) throw notFound('No such preset.');
     res.status(204).end();

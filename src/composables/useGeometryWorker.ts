@@ -1,4 +1,5 @@
 import { onBeforeUnmount, ref, shallowRef } from 'vue';
+import type { Region } from '../../shared/schemas/birdfit';
 import type { GeometryRequest, GeometryResponse } from '../workers/geometryProtocol';
 
 /** Longest a single build may take before the worker is restarted and the design shows an error. */
@@ -93,10 +94,11 @@ export function useGeometryWorker() {
    * @param templateId - the template to build
    * @param params - raw parameters in millimetres
    * @param printerId - printer profile the figures are for
+   * @param region - bird-fit region, both when omitted
    */
-  function request(templateId: string, params: Record<string, unknown>, printerId: string): void {
+  function request(templateId: string, params: Record<string, unknown>, printerId: string, region?: Region): void {
     latestId = nextId++;
-    queued = { requestId: latestId, templateId, params: { ...params }, printerId };
+    queued = { requestId: latestId, templateId, params: { ...params }, printerId, region };
     busy.value = true;
     pump();
   }

@@ -1,35 +1,72 @@
 import type { GenerateResult } from '../../templates/generate';
-import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
+import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
+import { buildPlateFit } from '../../shared/analysis/buildPlateFit';
+import { estimateProduction } from '../../shared/production/estimateProduction';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
+import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import type { Region } from '../../shared/schemas/birdfit';
 import type { DesignFigures } from './geometryProtocol';
 
 /**
+ * Sample budgets for live preview: smaller than the export report's defaults so a slider drag stays responsive;
+ * the figures shown are estimates either way (support by vertical rays, walls by sampled rays).
+ */
+const PREVIEW_SUPPORT_RAYS = 60_000;
+const PREVIEW_WALL_SAMPLES = 1_500;
+
+/**
  * The figures beside the model for one generated design on one printer, and the per-triangle overhang mask for the
- * viewer. Engines that are not available yet are listed in `unavailable` rather than faked.
+ * viewer. The mesh is already in build orientation (+z up); engines that are not available are listed in
+ * `unavailable` rather than faked.
  * @param result - the generated design (mesh in build orientation, facts)
  * @param printerId - printer profile id (falls back to the first default printer)
+ * @param region - bird-fit region, both when omitted
  */
 export function computeDesignFigures(
   result: GenerateResult,
   printerId: string,
+  region?: Region,
 ): { figures: DesignFigures; overhangMask: Uint8Array | null } {
   const printer = DEFAULT_PRINTERS.find((item) => item.id === printerId) ?? DEFAULT_PRINTERS[0];
-  const size = boundingSizeMm(result.mesh.positions);
   const plate = printer.buildVolumeMm;
+  const { report, overhangMask } = analyzeGeometry(result.mesh, {
+    up: '+z',
+    supportMaxRays: PREVIEW_SUPPORT_RAYS,
+    wallSamples: PREVIEW_WALL_SAMPLES,
+  });
+  const size = report.bbox.sizeMm;
+  const fit = buildPlateFit(size, [plate.x, plate.y, plate.z]);
+  const production = estimateProduction(
+    {
+      volumeMm3: report.volumeMm3,
+      surfaceAreaMm2: report.surfaceAreaMm2,
+      heightMm: size[2],
+      supportVolumeMm3: report.supportVolumeMm3,
+      bboxSizeMm: size,
+      footprintMm2: report.footprintMm2,
+      upFacingAreaMm2: report.upFacingAreaMm2,
+      downFacingAreaMm2: report.downFacingAreaMm2,
+    },
+    printer,
+    DEFAULT_MATERIALS[0],
+    DEFAULT_SETTINGS,
+    DEFAULT_RATES,
+  );
   return {
     figures: {
-      volumeMm3: result.volumeMm3,
-      surfaceAreaMm2: null,
+      volumeMm3: report.volumeMm3,
+      surfaceAreaMm2: report.surfaceAreaMm2,
       boundingBoxMm: size,
-      triangleCount: result.triangles,
-      bodyCount: result.partCount,
-      overhangAreaMm2: null,
-      supportVolumeMm3: null,
-      fitsPrinter: size[0] <= plate.x && size[1] <= plate.y && size[2] <= plate.z,
-      production: null,
-      birdFit: null,
-      unavailable: ['print-readiness analysis', 'bird-fit guidance'],
+      triangleCount: report.triangles,
+      bodyCount: report.components,
+      overhangAreaMm2: report.overhang.areaMm2,
+      supportVolumeMm3: report.supportVolumeMm3,
+      fitsPrinter: fit.fits,
+      production,
+      birdFit: assessBirdFit(result.facts, { region }),
+      unavailable: [],
     },
-    overhangMask: null,
+    overhangMask,
   };
 }
 

@@ -15,7 +15,7 @@ async function handle(request: GeometryRequest): Promise<GeometryResponse> {
   try {
     const result = await generate(request.templateId, request.params);
     const built = performance.now();
-    const { figures, overhangMask } = computeDesignFigures(result, request.printerId);
+    const { figures, overhangMask } = computeDesignFigures(result, request.printerId, request.region);
     const finished = performance.now();
     return {
       requestId: request.requestId,

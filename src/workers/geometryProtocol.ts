@@ -1,6 +1,6 @@
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
-import type { BirdFitResult } from '../../shared/schemas/birdfit';
+import type { BirdFitResult, Region } from '../../shared/schemas/birdfit';
 import type { ProductionEstimate } from '../../shared/schemas/production';
 
 /** A request to the geometry worker: build one template at one parameter set. */
@@ -12,6 +12,8 @@ export interface GeometryRequest {
   params: Record<string, unknown>;
   /** Printer profile id whose build volume and speeds the figures use. */
   printerId: string;
+  /** Bird-fit region; both regions when omitted. */
+  region?: Region;
 }
 
 /** The key figures beside the model; a figure is null when its engine is not available. */
