@@ -1,7 +1,8 @@
 import type { AnyTemplate } from './types';
+import { gableBox } from './gableBox';
 
 /** Every template the product offers, in picker order. */
-export const TEMPLATES: readonly AnyTemplate[] = [];
+export const TEMPLATES: readonly AnyTemplate[] = [gableBox as unknown as AnyTemplate];
 
 /**
  * The template with this id, or undefined.

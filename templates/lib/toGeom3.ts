@@ -1,4 +1,4 @@
-import { geometries } from '@jscad/modeling';
+import jscad from '@jscad/modeling';
 import type Geom3 from '@jscad/modeling/src/geometries/geom3/type';
 import type { Solid } from './Solid';
 
@@ -18,11 +18,11 @@ export function toGeom3(solid: Solid): Geom3 {
     return [vertProperties[at], vertProperties[at + 1], vertProperties[at + 2]];
   };
   for (let tri = 0; tri < polygons.length; tri++) {
-    polygons[tri] = geometries.poly3.create([
+    polygons[tri] = jscad.geometries.poly3.create([
       point(triVerts[tri * 3]),
       point(triVerts[tri * 3 + 1]),
       point(triVerts[tri * 3 + 2]),
     ]);
   }
-  return geometries.geom3.create(polygons);
+  return jscad.geometries.geom3.create(polygons);
 }

@@ -1,4 +1,4 @@
-import { geometries } from '@jscad/modeling';
+import jscad from '@jscad/modeling';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { TemplatePart } from '../types';
 
@@ -33,7 +33,7 @@ export function toMesh(parts: TemplatePart[]): IndexedMesh {
       }
       return index;
     };
-    for (const polygon of geometries.geom3.toPolygons(part.geometry)) {
+    for (const polygon of jscad.geometries.geom3.toPolygons(part.geometry)) {
       const ring = polygon.vertices.map(vertexIndex);
       for (let i = 1; i + 1 < ring.length; i++) {
         if (ring[0] === ring[i] || ring[i] === ring[i + 1] || ring[0] === ring[i + 1]) continue;

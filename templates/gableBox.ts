@@ -1,0 +1,249 @@
+import { z } from 'zod';
+import type { Template } from './types';
+import { commonParameters } from './lib/commonParameters';
+import { Solid, type Outline } from './lib/Solid';
+import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
+import { toGeom3 } from './lib/toGeom3';
+import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
+
+const parameters = z
+  .object({
+    entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
+    holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
+    floorWidthMm: z.number().min(80).max(200).default(120).meta({
+      label: 'Floor width', unit: 'mm', step: 1, help: 'Inside floor, side to side.',
+    }),
+    floorDepthMm: z.number().min(80).max(200).default(120).meta({
+      label: 'Floor depth', unit: 'mm', step: 1, help: 'Inside floor, front to back.',
+    }),
+    cavityDepthMm: z.number().min(120).max(300).default(180).meta({
+      label: 'Cavity depth', unit: 'mm', step: 1, help: 'Inside floor up to where the roof meets the side walls.',
+    }),
+    wallThicknessMm: commonParameters.wallThicknessMm(10),
+    roofPitchDeg: z.number().min(45).max(65).default(50).meta({
+      label: 'Roof pitch', unit: 'deg', step: 1,
+      help: 'Roof slope from horizontal. The box prints roof-down, so 45° or steeper keeps the roof self-supporting.',
+    }),
+    ridgeFlatMm: z.number().min(3).max(20).default(6.35).meta({
+      label: 'Ridge strip width', unit: 'mm', step: 0.05,
+      help: 'The ridge is cut to a flat strip that rests on the build plate; wider holds better on the plate.',
+    }),
+    roofOverhangMm: z.number().min(0).max(50).default(25).meta({
+      label: 'Roof overhang', unit: 'mm', step: 1,
+      help: 'How far the roof reaches past the side and front walls; it shades the box and keeps rain off the entry.',
+    }),
+    trimStyle: z.enum(['none', 'shingles', 'boards']).default('none').meta({
+      label: 'Trim', unit: '', help: 'Shingle rows on the roof or board grooves on the walls; both print without support.',
+    }),
+    ventilationSlots: commonParameters.ventilationSlots(2),
+    drainageHoles: commonParameters.drainageHoles(4),
+    hangingHole: commonParameters.hangingHole(true),
+    perch: commonParameters.perch(),
+    printClearanceMm: commonParameters.printClearanceMm(),
+  })
+  .strict();
+
+/** Height of the floor plug's boss that fits into the open bottom of the box. */
+const PLUG_BOSS_MM = 8;
+const SLOT_WIDTH_MM = 6;
+const SLOT_LENGTH_MM = 30;
+const DRAIN_DIAMETER_MM = 6;
+const HANGING_HOLE_MM = 6;
+const HOLE_SEGMENTS = 48;
+
+/**
+ * Gable box printed roof-down: the ridge is cut to a flat strip on the build plate, the roof pitch is at least 45°
+ * so the roof needs no support, and the floor is a separate plug (cleaning access) printed beside the box.
+ * Designed upright (floor at z = 0, entry facing −y), then turned over to print.
+ */
+export const gableBox: Template<typeof parameters> = {
+  id: 'gable-box',
+  version: 1,
+  name: 'Gable box',
+  summary: 'Classic pitched-roof box, printed roof-down on a flat ridge strip, with a removable floor plug.',
+  parameters,
+  build(p) {
+    const t = p.wallThicknessMm;
+    const W = p.floorWidthMm;
+    const D = p.floorDepthMm;
+    const tan = Math.tan((p.roofPitchDeg * Math.PI) / 180);
+    const cos = Math.cos((p.roofPitchDeg * Math.PI) / 180);
+    const sin = Math.sin((p.roofPitchDeg * Math.PI) / 180);
+    const Wo = W + 2 * t;
+    const o = p.roofOverhangMm;
+    const floorZ = PLUG_BOSS_MM;
+    const eavesZ = floorZ + p.cavityDepthMm;
+    /** Underside of the roof (= top of the cavity) at horizontal distance x from the centre line. */
+    const innerRoofZ = (x: number): number => eavesZ + (W / 2 - Math.abs(x)) * tan;
+    const roofThicknessZ = t / cos;
+    const outerRoofZ = (x: number): number => innerRoofZ(x) + roofThicknessZ;
+    const flatZ = outerRoofZ(p.ridgeFlatMm / 2);
+    // Keep at least a wall's thickness of roof under the flat ridge strip.
+    const innerApexZ = Math.min(innerRoofZ(0), flatZ - t);
+    const frontY = -D / 2 - t;
+
+    const wallsOutline: Outline = [
+      [-Wo / 2, 0],
+      [Wo / 2, 0],
+      [Wo / 2, innerRoofZ(Wo / 2) + 0.5],
+      [0, innerRoofZ(0) + 0.5],
+      [-Wo / 2, innerRoofZ(Wo / 2) + 0.5],
+    ];
+    const eaveX = Wo / 2 + o;
+    const roofOutline: Outline = [
+      [eaveX, innerRoofZ(eaveX)],
+      [eaveX, outerRoofZ(eaveX)],
+      [p.ridgeFlatMm / 2, flatZ],
+      [-p.ridgeFlatMm / 2, flatZ],
+      [-eaveX, outerRoofZ(eaveX)],
+      [-eaveX, innerRoofZ(eaveX)],
+      [0, innerRoofZ(0)],
+    ];
+    const cavityOutline: Outline = [
+      [-W / 2, -1],
+      [W / 2, -1],
+      [W / 2, eavesZ],
+      ...apexPoints(innerApexZ, innerRoofZ, tan, W),
+      [-W / 2, eavesZ],
+    ];
+
+    const additions: Solid[] = [Solid.prism(roofOutline, 'y', frontY - o, D / 2 + t)];
+    const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+
+    // Entry hole: the tip of the teardrop points down here because the box is turned over to print.
+    const r = p.entryHoleDiameterMm / 2;
+    const tipBelow = TEARDROP_TIP_RADII * r;
+    const highestCentreZ = Math.min(innerRoofZ(r), innerApexZ) - 3 - r;
+    const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + tipBelow, highestCentreZ);
+    const holeAboveFloorMm = holeCentreZ - tipBelow - floorZ;
+    cuts.push(
+      Solid.prism(teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS, false), 'y', frontY - 1, -D / 2 + 1).translate(
+        0,
+        0,
+        holeCentreZ,
+      ),
+    );
+
+    if (p.hangingHole) {
+      const z = innerApexZ - HANGING_HOLE_MM * 1.5;
+      cuts.push(
+        Solid.prism(teardropOutline(HANGING_HOLE_MM, 16, false), 'y', D / 2 - 1, D / 2 + t + 1).translate(0, 0, z),
+      );
+    }
+
+    if (p.perch) {
+      // Tip up when upright = V underside when printed roof-down, so the dowel needs no support.
+      const perchZ = holeCentreZ - tipBelow - 18;
+      additions.push(
+        Solid.prism(teardropOutline(10, 24, true, Math.SQRT2), 'y', frontY - 30, frontY + 1).translate(0, 0, perchZ),
+      );
+    }
+
+    const slotTopZ = innerRoofZ(Wo / 2) - 6;
+    for (let i = 0; i < p.ventilationSlots; i++) {
+      const y = -D / 2 + ((i + 0.5) * D) / p.ventilationSlots;
+      const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
+        u + y,
+        v + slotTopZ - SLOT_LENGTH_MM / 2,
+      ]);
+      cuts.push(Solid.prism(slot, 'x', -Wo / 2 - 1, Wo / 2 + 1));
+    }
+
+    if (p.trimStyle === 'boards') cuts.push(...boardGrooves(W, D, t, innerRoofZ));
+    if (p.trimStyle === 'shingles') {
+      const firstRowX = p.ridgeFlatMm / 2 + SHINGLE_PROUD_MM / sin + 1;
+      additions.push(...shingleRows({ fromXMm: firstRowX, toXMm: eaveX, outerZ: outerRoofZ, pitchDeg: p.roofPitchDeg, fromYMm: frontY - o, toYMm: D / 2 + t }));
+    }
+
+    const box = Solid.prism(wallsOutline, 'y', frontY, D / 2 + t)
+      .add(...additions)
+      .subtract(...cuts)
+      .rotate(0, 180, 0)
+      .onPlate();
+
+    const c = p.printClearanceMm;
+    const plug = Solid.box([Wo, D + 2 * t, t], [-Wo / 2, -D / 2 - t, 0])
+      .add(Solid.box([W - 2 * c, D - 2 * c, PLUG_BOSS_MM + 0.01], [-W / 2 + c, -D / 2 + c, t - 0.01]))
+      .subtract(...drainHoles(W, D, p.drainageHoles, t + PLUG_BOSS_MM))
+      .translate(eaveX + 10 + Wo / 2, 0, 0);
+
+    return {
+      parts: [
+        { name: 'body', geometry: toGeom3(box) },
+        { name: 'floor-plug', geometry: toGeom3(plug) },
+      ],
+      facts: {
+        entryHoleDiameterMm: p.entryHoleDiameterMm,
+        floorWidthMm: W,
+        floorDepthMm: D,
+        cavityDepthMm: p.cavityDepthMm,
+        holeAboveFloorMm,
+        wallThicknessMm: t,
+        hasPerch: p.perch,
+        drainageHoleCount: p.drainageHoles,
+        ventilationAreaMm2: 2 * p.ventilationSlots * slotAreaMm2(SLOT_WIDTH_MM, SLOT_LENGTH_MM),
+        cleaningAccess: true,
+        chambers: 1,
+      },
+    };
+  },
+};
+
+/** Top of the cavity outline: the two roof planes, cut flat where the ridge strip would leave the roof too thin. */
+function apexPoints(apexZ: number, innerRoofZ: (x: number) => number, tan: number, W: number): Outline {
+  if (apexZ >= innerRoofZ(0) - 1e-9) return [[0, innerRoofZ(0)]];
+  const halfFlat = W / 2 - (apexZ - innerRoofZ(W / 2)) / tan;
+  return [
+    [halfFlat, apexZ],
+    [-halfFlat, apexZ],
+  ];
+}
+
+/** Vertical V-grooves (45° flanks) on the front and side walls, stopping under the roof. */
+function boardGrooves(W: number, D: number, t: number, innerRoofZ: (x: number) => number): Solid[] {
+  const depth = 1.2;
+  const grooves: Solid[] = [];
+  const Wo = W + 2 * t;
+  const frontY = -D / 2 - t;
+  for (let x = -Wo / 2 + 20; x <= Wo / 2 - 20 + 1e-9; x += 20) {
+    const v: Outline = [
+      [x - depth, frontY - 1],
+      [x + depth, frontY - 1],
+      [x, frontY + depth],
+    ];
+    grooves.push(Solid.prism(v, 'z', -1, innerRoofZ(Math.abs(x) + depth) - 1));
+  }
+  const sideTop = innerRoofZ(Wo / 2) - 1;
+  for (let y = frontY + 20; y <= D / 2 + t - 20 + 1e-9; y += 20) {
+    for (const side of [-1, 1]) {
+      const face = (side * Wo) / 2;
+      const v: Outline =
+        side > 0
+          ? [
+              [face - depth, y],
+              [face + 1, y - depth - 1],
+              [face + 1, y + depth + 1],
+            ]
+          : [
+              [face + depth, y],
+              [face - 1, y + depth + 1],
+              [face - 1, y - depth - 1],
+            ];
+      grooves.push(Solid.prism(v, 'z', -1, sideTop));
+    }
+  }
+  return grooves;
+}
+
+/** Vertical drainage holes through the floor plug: corners first, then edge midpoints. */
+function drainHoles(W: number, D: number, count: number, heightMm: number): Solid[] {
+  const ix = W / 2 - 15;
+  const iy = D / 2 - 15;
+  const spots: [number, number][] = [
+    [-ix, -iy], [ix, -iy], [ix, iy], [-ix, iy],
+    [0, -iy], [ix, 0], [0, iy], [-ix, 0],
+  ];
+  return spots
+    .slice(0, count)
+    .map(([x, y]) => Solid.cylinder(heightMm + 2, DRAIN_DIAMETER_MM / 2, 16).translate(x, y, -1));
+}
