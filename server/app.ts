@@ -1,5 +1,5 @@
 /** Builds the Express app (no listening): the API under /api and, when built, the client with an SPA fallback. */
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { sessionMiddleware } from './auth/sessionMiddleware';
@@ -31,24 +31,25 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.disable('x-powered-by');
   if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
 
-  const api = express.Router();
-  api.use(express.json({ limit: JSON_BODY_LIMIT }));
-  api.use((_req, res, next) => {
-    res.set('Cache-Control', 'no-store');
-    next();
-  });
-  api.use(originCheck(ctx.env.PUBLIC_ORIGIN));
-  api.use(sessionMiddleware(ctx));
+  // Every /api request: JSON body (1 MB), no caching, origin check on state-changing methods, session.
+  app.use(
+    '/api',
+    express.json({ limit: JSON_BODY_LIMIT }),
+    noStore,
+    originCheck(ctx.env.PUBLIC_ORIGIN),
+    sessionMiddleware(ctx),
+  );
 
-  api.use('/health', healthRouter());
-  api.use('/auth', authRouter(ctx));
-  api.use('/people', peopleRouter(ctx));
-  api.use('/presets', presetsRouter(ctx));
+  // API routers: one line per router; add yours here (and its rows to tests/authz.test.ts).
+  app.use('/api/health', healthRouter());
+  app.use('/api/auth', authRouter(ctx));
+  app.use('/api/people', peopleRouter(ctx));
+  app.use('/api/presets', presetsRouter(ctx));
 
-  api.use((req) => {
-    throw notFound(`No API route ${req.method} ${req.path}.`);
+  // Anything else under /api is a 404 in the error shape (keep this after every API router).
+  app.use('/api', (req) => {
+    throw notFound(`No API route ${req.method} ${req.originalUrl.split('?')[0]}.`);
   });
-  app.use('/api', api);
 
   if (options.clientDir && existsSync(join(options.clientDir, 'index.html'))) {
     const indexHtml = join(options.clientDir, 'index.html');
@@ -63,9 +64,17 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
     });
   }
 
-  app.use(errorHandler((err) => ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`)));
+  app.use(
+    errorHandler((err) => ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`)),
+  );
   return app;
 }
+
+/** API answers are per person and change often: never cache them. */
+const noStore: RequestHandler = (_req, res, next) => {
+  res.set('Cache-Control', 'no-store');
+  next();
+};
 
 /** TRUST_PROXY as Express wants it: a hop count, true/false, or an address list. */
 function parseTrustProxy(value: string): boolean | number | string {

@@ -1,0 +1,82 @@
+/**
+ * `makeTestApp()`: the real app over a private copy of the migrated + seeded snapshot from ./global.ts, with
+ * supertest agents already signed in as the demo person of each role.
+ */
+import { readFile } from 'node:fs/promises';
+import type { Express } from 'express';
+import supertest from 'supertest';
+import { inject } from 'vitest';
+import type { Role } from '../../shared/schemas/auth';
+import { createApp } from '../../server/app';
+import { createContext, type AppContext } from '../../server/context';
+import { openDatabase } from '../../server/db/client';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/db/seedDemo';
+import { EnvSchema, type Env } from '../../server/env';
+
+/** The origin test requests come from (PUBLIC_ORIGIN of the test app). */
+export const TEST_ORIGIN = 'http://nestwright.test';
+
+/** A supertest agent (keeps cookies between requests). */
+export type TestAgent = ReturnType<typeof supertest.agent>;
+
+/** What {@link makeTestApp} returns. */
+export interface TestApp {
+  app: Express;
+  ctx: AppContext;
+  /**
+   * A supertest agent with the Origin header set; signed in as the demo person holding `role`, or signed out for
+   * null. Agents are cached per role; pass `{ fresh: true }` for a new session (e.g. to sign it out).
+   */
+  agent(role: Role | null, options?: { fresh?: boolean }): Promise<TestAgent>;
+  /** Signs in a new agent with any e-mail and password. */
+  signIn(email: string, password: string): Promise<TestAgent>;
+  /** Lines the server logged (unexpected errors land here). */
+  logs: string[];
+  /** Closes the database. */
+  close(): Promise<void>;
+}
+
+let snapshot: Promise<Buffer> | undefined;
+
+/**
+ * A fresh app on its own copy of the seeded database (about a second).
+ * @param envOverrides - environment settings for this app (PUBLIC_ORIGIN defaults to {@link TEST_ORIGIN})
+ */
+export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<TestApp> {
+  snapshot ??= readFile(inject('pgSnapshotPath'));
+  const { pg, db } = await openDatabase({ loadDataDir: new Blob([new Uint8Array(await snapshot)]) });
+  const env: Env = { ...EnvSchema.parse({ NODE_ENV: 'test', PUBLIC_ORIGIN: TEST_ORIGIN }), ...envOverrides };
+  const logs: string[] = [];
+  const ctx = createContext({ db, pg, env, log: (line) => logs.push(line) });
+  const app = createApp(ctx);
+  const agents = new Map<Role | null, TestAgent>();
+
+  const newAgent = (): TestAgent => supertest.agent(app).set('Origin', TEST_ORIGIN);
+  const signIn = async (email: string, password: string): Promise<TestAgent> => {
+    const agent = newAgent();
+    const res = await agent.post('/api/auth/sign-in').send({ email, password });
+    if (res.status !== 200) throw new Error(`Sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return agent;
+  };
+
+  return {
+    app,
+    ctx,
+    logs,
+    signIn,
+    async agent(role, options = {}) {
+      const cached = agents.get(role);
+      if (cached && !options.fresh) return cached;
+      let agent: TestAgent;
+      if (role === null) agent = newAgent();
+      else {
+        const person = DEMO_PEOPLE.find((candidate) => candidate.roles.includes(role));
+        if (!person) throw new Error(`No demo person holds ${role}`);
+        agent = await signIn(person.email, DEMO_PASSWORD);
+      }
+      if (!options.fresh) agents.set(role, agent);
+      return agent;
+    },
+    close: () => pg.close(),
+  };
+}
