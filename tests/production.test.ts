@@ -164,6 +164,14 @@ describe('estimateProduction', () => {
     expect(e.notes.join(' ')).toMatch(/slicer estimate/);
   });
 
+  it('spreads the failed prints over the good ones', () => {
+    // analytic: with failure share f, each good unit carries f / (1 − f) extra material, machine time and energy
+    const rates = { ...DEFAULT_RATES, failureAllowancePct: 20 };
+    const e = estimateProduction({ ...cube40, volumeMm3: 400000 }, printer, pla, DEFAULT_SETTINGS, rates);
+    const direct = e.cost.materialCents + e.cost.machineTimeCents + e.cost.energyCents;
+    expect(Math.abs(e.cost.failureAllowanceCents - direct * 0.25)).toBeLessThanOrEqual(1);
+  });
+
   it('grows mass, time and cost with infill and with support (property)', () => {
     // common practice, no source: more plastic never costs less
     fc.assert(
