@@ -1,6 +1,7 @@
 import type { BirdFitResult, BirdFitWarning, Region, Species, SpeciesFit } from '../schemas/birdfit';
 import { NestBoxFactsSchema, type NestBoxFacts } from '../schemas/nestbox';
 import { SPECIES } from './species';
+import { PINE_BOARD_MM, PINE_K_WMK } from '../thermal/wallResistance';
 
 /** Entry holes are matched within this many millimetres of the published range (print tolerance; common practice, no source). */
 export const HOLE_TOLERANCE_MM = 1;
@@ -14,6 +15,8 @@ export const HOUSE_SPARROW_HOLE_MM = 32;
 export const MIN_HOLE_ABOVE_FLOOR_MM = 125;
 /** ¾ in boards (Cornell; OEBS) and ≥ 15 mm (BTO; Which?). */
 export const WOOD_WALL_MM = 19;
+/** Solid printed PLA (MakeItFrom data sheet; Zmeskal et al. give 0.12). */
+const PLA_K_WMK = 0.13;
 /** The lower of the published wood-wall minimums (BTO; Which?). */
 export const MIN_WOOD_WALL_MM = 15;
 
@@ -164,14 +167,14 @@ export function assessBirdFit(facts: NestBoxFacts, options: AssessBirdFitOptions
     });
   }
   if (f.wallThicknessMm < WOOD_WALL_MM) {
-    const ratio = f.wallThicknessMm / WOOD_WALL_MM;
+    const ratio = f.wallThicknessMm / PLA_K_WMK / (PINE_BOARD_MM / PINE_K_WMK);
     warnings.push({
       code: 'thin-walls',
       severity: f.wallThicknessMm < MIN_WOOD_WALL_MM ? 'warning' : 'caution',
       message:
         `Walls of ${fmt(f.wallThicknessMm)} mm are thinner than the 15–19 mm wood that guidance asks for. Solid PLA ` +
-        `conducts heat about as well as pine, so a solid wall this thick insulates about ${Math.round(ratio * 100)} % ` +
-        'as well as a ¾ in board. Compensate with thicker walls holding closed air cells (check the wall resistance), ' +
+        `conducts heat about as well as pine, so a solid wall this thick insulates only about ${Math.round(ratio * 100)} % ` +
+        'as well as a ¾ in pine board. Compensate with thicker walls holding closed air cells (check the wall resistance), ' +
         'a light colour, ventilation, a roof overhang and a shaded site.',
       source: 'Cornell (¾ in walls); BTO and Which? (≥ 15 mm; thin plastic boxes overheat); PLA and pine conductivity (Zmeskal 2020; USDA Wood Handbook)',
     });
