@@ -169,6 +169,8 @@ describe('assessBirdFit', () => {
     const w = r.warnings.find((x) => x.code === 'thin-walls')!;
     expect(w.severity).toBe('warning');
     expect(w.message).toMatch(/PLA/);
+    // source: trade-facts §2a [C] — 3 mm PLA (k 0.13) = 0.023 m²K/W vs 19 mm pine (k 0.11) = 0.173: about 13 %
+    expect(w.message).toMatch(/about 13 %/);
     expect(assessBirdFit({ ...good, wallThicknessMm: 16 }).warnings.find((x) => x.code === 'thin-walls')!.severity).toBe('caution');
     expect(codes(good)).not.toContain('thin-walls');
   });
