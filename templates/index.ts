@@ -1,8 +1,9 @@
 import type { AnyTemplate } from './types';
 import { gableBox } from './gableBox';
+import { aFrame } from './aFrame';
 
 /** Every template the product offers, in picker order. */
-export const TEMPLATES: readonly AnyTemplate[] = [gableBox as unknown as AnyTemplate];
+export const TEMPLATES: readonly AnyTemplate[] = [gableBox, aFrame] as unknown as AnyTemplate[];
 
 /**
  * The template with this id, or undefined.

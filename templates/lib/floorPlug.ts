@@ -1,0 +1,38 @@
+import { Solid } from './Solid';
+
+/** Size of a round floor plug and its seat. */
+export interface FloorPlugOptions {
+  /** Diameter of the round opening in the floor. */
+  openingDiameterMm: number;
+  /** Thickness of the floor the plug fills, so its top is flush with the inside floor. */
+  seatThicknessMm: number;
+  /** Gap per side between plug and opening. */
+  clearanceMm: number;
+  /** Vertical 6 mm drainage holes on a ring. */
+  drainageHoles: number;
+}
+
+/** Flange width beyond the opening, per side, and its thickness. */
+const FLANGE_MM = 8;
+const FLANGE_THICKNESS_MM = 3;
+
+/**
+ * Round cleaning plug printed as its own part, flange down: a boss that fills the floor opening (less the print
+ * clearance) on a flange that stops it under the floor. Centred on the origin, resting on z = 0.
+ * @param options - opening, seat and clearance sizes
+ */
+export function floorPlug(options: FloorPlugOptions): Solid {
+  const flange = Solid.cylinder(FLANGE_THICKNESS_MM, options.openingDiameterMm / 2 + FLANGE_MM, 64);
+  const boss = Solid.cylinder(
+    options.seatThicknessMm + 0.01,
+    options.openingDiameterMm / 2 - options.clearanceMm,
+    64,
+  ).translate(0, 0, FLANGE_THICKNESS_MM - 0.01);
+  const height = FLANGE_THICKNESS_MM + options.seatThicknessMm;
+  const ring = options.openingDiameterMm / 2 - 12;
+  const holes = Array.from({ length: options.drainageHoles }, (_, i) => {
+    const angle = (2 * Math.PI * (i + 0.5)) / options.drainageHoles;
+    return Solid.cylinder(height + 2, 3, 16).translate(ring * Math.cos(angle), ring * Math.sin(angle), -1);
+  });
+  return flange.add(boss).subtract(...holes);
+}
