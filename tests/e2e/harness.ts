@@ -1,0 +1,234 @@
+/**
+ * Browser-test harness shared by every `tests/e2e/*.e2e.test.ts`: builds the client when dist/client is missing or
+ * older than its sources, boots the real server on a free port with a new seeded in-memory database, and drives
+ * Debian's Chromium through playwright-core. Each page gets its own browser context (its own cookies).
+ *
+ * ```ts
+ * let e2e: E2E;
+ * beforeAll(async () => { e2e = await startE2E(); });
+ * afterAll(() => e2e?.close());
+ * it('...', async () => { const page = await e2e.newPage(); await e2e.signInAs(page, 'designer'); ... });
+ * ```
+ */
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
+import type { Role } from '../../shared/schemas/auth';
+import { boot, type Booted } from '../../server/boot';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/db/seedDemo';
+
+/** Repository root. */
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
+/** Where `vite build` writes the client (vite.config.ts build.outDir). */
+export const CLIENT_DIR = join(ROOT, 'dist/client');
+/** Everything that goes into the client bundle; a newer file here makes dist/client stale. */
+const CLIENT_SOURCES = ['src', 'shared', 'templates', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'];
+/** Lock so that e2e files running in parallel workers build the client only once. */
+const BUILD_LOCK = join(ROOT, 'dist/.client-build.lock');
+/** A lock older than this is left over from a crashed run. */
+const STALE_LOCK_MS = 5 * 60_000;
+
+/** Chromium flags for headless runs on a shared CI machine (common.md). */
+export const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
+
+/** Debian's Chromium; never a downloaded browser. */
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+/** A running server and browser for one e2e test file. */
+export interface E2E {
+  /** `http://localhost:<port>` of the server under test. */
+  baseUrl: string;
+  /** The booted server (its `ctx.db` lets a test look at or prepare data). */
+  server: Booted;
+  /** The shared browser. */
+  browser: Browser;
+  /**
+   * A new page in a fresh browser context (no cookies), 1280x800 unless told otherwise.
+   * Console errors and failed requests of the page are collected in `problems(page)`.
+   * @param options - playwright context options (viewport, locale, ...)
+   */
+  newPage(options?: BrowserContextOptions): Promise<Page>;
+  /**
+   * Signs in through the sign-in page and waits until the app has left it.
+   * @param page - the page
+   * @param email - e-mail address
+   * @param password - password
+   */
+  signIn(page: Page, email: string, password: string): Promise<void>;
+  /**
+   * Signs in as the seeded demo person holding `role` (password from the seed).
+   * @param page - the page
+   * @param role - one of the four roles
+   * @returns the demo person
+   */
+  signInAs(page: Page, role: Role): Promise<DemoPerson>;
+  /**
+   * Uncaught page errors and console errors seen on the page so far (tests assert it is empty).
+   * @param page - a page from {@link E2E.newPage}
+   */
+  problems(page: Page): string[];
+  /** Closes every context, the browser and the server. */
+  close(): Promise<void>;
+}
+
+/** A seeded demo person. */
+export interface DemoPerson {
+  email: string;
+  name: string;
+  roles: Role[];
+  password: string;
+}
+
+/**
+ * The seeded demo person holding `role`.
+ * @param role - one of the four roles
+ */
+export function demoPerson(role: Role): DemoPerson {
+  const person = DEMO_PEOPLE.find((p) => p.roles.includes(role));
+  if (!person) throw new Error(`No demo person holds the role ${role}`);
+  return { ...person, roles: [...person.roles], password: DEMO_PASSWORD };
+}
+
+/** Options of {@link startE2E}. */
+export interface StartE2EOptions {
+  /** DATA_DIR for the server; undefined = a new in-memory database. */
+  dataDir?: string;
+  /** Default viewport of new pages. */
+  viewport?: { width: number; height: number };
+  /** Log server stages and browser console messages to stdout. */
+  verbose?: boolean;
+}
+
+/**
+ * Builds the client if needed, boots the server (in-memory, seeded, port 0) and launches Chromium.
+ * @param options - see {@link StartE2EOptions}
+ */
+export async function startE2E(options: StartE2EOptions = {}): Promise<E2E> {
+  await ensureClientBuilt();
+  const log = options.verbose ? (line: string) => console.log(`[server] ${line}`) : () => {};
+  const server = await boot({ port: 0, seed: true, dataDir: options.dataDir, clientDir: CLIENT_DIR, log });
+  let browser: Browser;
+  try {
+    browser = await chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS });
+  } catch (err) {
+    await server.close();
+    throw err;
+  }
+  const contexts = new Set<BrowserContext>();
+  const pageProblems = new WeakMap<Page, string[]>();
+  const baseUrl = server.url;
+
+  const e2e: E2E = {
+    baseUrl,
+    server,
+    browser,
+    async newPage(contextOptions = {}) {
+      const context = await browser.newContext({
+        baseURL: baseUrl,
+        viewport: options.viewport ?? { width: 1280, height: 800 },
+        ...contextOptions,
+      });
+      contexts.add(context);
+      context.on('close', () => contexts.delete(context));
+      const page = await context.newPage();
+      // Fail a step with its own message well before the test's timeout does.
+      page.setDefaultTimeout(10_000);
+      const problems: string[] = [];
+      pageProblems.set(page, problems);
+      page.on('pageerror', (err) => problems.push(`page error: ${err.message}`));
+      page.on('console', (msg) => {
+        if (options.verbose) console.log(`[browser ${msg.type()}] ${msg.text()}`);
+        // Expected 401/403/429 answers show up as console errors of the failed fetch; keep only script errors.
+        if (msg.type() === 'error' && !/Failed to load resource/.test(msg.text())) problems.push(`console: ${msg.text()}`);
+      });
+      return page;
+    },
+    async signIn(page, email, password) {
+      await page.goto('/sign-in');
+      await page.getByLabel('E-mail').fill(email);
+      await page.getByLabel('Password', { exact: true }).fill(password);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL((url) => url.pathname !== '/sign-in', { timeout: 15_000 });
+    },
+    async signInAs(page, role) {
+      const person = demoPerson(role);
+      await e2e.signIn(page, person.email, person.password);
+      return person;
+    },
+    problems(page) {
+      return [...(pageProblems.get(page) ?? [])];
+    },
+    async close() {
+      for (const context of [...contexts]) await context.close().catch(() => {});
+      await browser.close().catch(() => {});
+      await server.close();
+    },
+  };
+  return e2e;
+}
+
+/**
+ * Runs `vite build` when dist/client is missing or older than the newest client source; once per test run even
+ * when several e2e files start at the same time (a lock directory serialises them).
+ * @returns whether this call built the client
+ */
+export async function ensureClientBuilt(): Promise<boolean> {
+  if (clientIsFresh()) return false;
+  await acquireLock();
+  try {
+    if (clientIsFresh()) return false; // another worker built it while we waited
+    const { build } = await import('vite');
+    // vitest sets NODE_ENV=test, which would give a development build of Vue; build as `npm run build` does.
+    const nodeEnv = process.env.NODE_ENV;
+    process.env.NODE_ENV = 'production';
+    try {
+      await build({ root: ROOT, configFile: join(ROOT, 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+    } finally {
+      process.env.NODE_ENV = nodeEnv;
+    }
+    return true;
+  } finally {
+    rmSync(BUILD_LOCK, { recursive: true, force: true });
+  }
+}
+
+function clientIsFresh(): boolean {
+  const builtIndex = join(CLIENT_DIR, 'index.html');
+  return existsSync(builtIndex) && statSync(builtIndex).mtimeMs >= newestMtimeMs(CLIENT_SOURCES.map((p) => join(ROOT, p)));
+}
+
+function newestMtimeMs(paths: string[]): number {
+  let newest = 0;
+  const visit = (path: string): void => {
+    if (!existsSync(path)) return;
+    const stat = statSync(path);
+    if (stat.isDirectory()) {
+      for (const entry of readdirSync(path)) if (entry !== 'node_modules') visit(join(path, entry));
+    } else newest = Math.max(newest, stat.mtimeMs);
+  };
+  paths.forEach(visit);
+  return newest;
+}
+
+async function acquireLock(): Promise<void> {
+  mkdirSync(dirname(BUILD_LOCK), { recursive: true });
+  for (;;) {
+    try {
+      mkdirSync(BUILD_LOCK);
+      return;
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code !== 'EEXIST') throw err;
+      const lock = statSync(BUILD_LOCK, { throwIfNoEntry: false });
+      if (lock && Date.now() - lock.mtimeMs > STALE_LOCK_MS) rmSync(BUILD_LOCK, { recursive: true, force: true });
+      else await new Promise((r) => setTimeout(r, 250));
+    }
+  }
+}
