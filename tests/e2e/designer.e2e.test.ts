@@ -1,0 +1,186 @@
+/**
+ * The designer's configurator in Chromium: a designer signs in, opens every template, moves the entry-hole slider and
+ * sees the preview and the figures change, saves a preset, reloads it, and downloads an STL that the test checks
+ * with manifold-3d (closed, manifold) and against the server's export of the same parameters (same mesh hash, same
+ * bytes). Screenshots go to /tmp/nestwright-e2e for a person to look at.
+ */
+import { createHash } from 'node:crypto';
+import { mkdirSync, readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import Module from 'manifold-3d';
+import { TEMPLATES, describeParameters } from '../../templates/index';
+import { generate } from '../../templates/generate';
+import { parseStl } from '../../shared/mesh/parseStl';
+import { startE2E, type E2E } from './harness';
+
+const SHOTS = '/tmp/nestwright-e2e';
+let e2e: E2E;
+
+beforeAll(async () => {
+  mkdirSync(SHOTS, { recursive: true });
+  e2e = await startE2E({ viewport: { width: 1440, height: 900 } });
+}, 240_000);
+
+afterAll(async () => {
+  await e2e?.close();
+});
+
+/** Waits until the editor shows a built mesh whose hash differs from `previous` and returns that hash. */
+async function waitForBuild(page: Page, previous = '…'): Promise<string> {
+  const hash = page.getByTestId('mesh-hash');
+  await page.waitForFunction(
+    (old) => {
+      const text = document.querySelector('[data-testid="mesh-hash"]')?.textContent?.trim();
+      const busy = document.querySelector('[data-testid="geometry-status"]')?.textContent?.includes('Rebuilding');
+      return !!text && text !== '…' && text !== old && !busy;
+    },
+    previous,
+    { timeout: 60_000 },
+  );
+  return (await hash.textContent())!.trim();
+}
+
+async function figure(page: Page, id: string): Promise<string> {
+  return ((await page.getByTestId(`figure-${id}`).locator('dd').textContent()) ?? '').trim();
+}
+
+/** Clicks the entry-hole slider's rail at a fraction of its length, as a person dragging it would. */
+async function moveEntrySlider(page: Page, fraction: number): Promise<void> {
+  const rail = page.getByTestId('param-entryHoleDiameterMm').locator('.n-slider-rail');
+  const box = await rail.boundingBox();
+  if (!box) throw new Error('entry-hole slider is not visible');
+  await page.mouse.click(box.x + box.width * fraction, box.y + box.height / 2);
+}
+
+async function entryInputValue(page: Page): Promise<number> {
+  return Number(await page.locator('#input-entryHoleDiameterMm').inputValue());
+}
+
+describe('designer configurator', () => {
+  it('lists every registered template on the designs screen', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto('/designs');
+    for (const template of TEMPLATES) {
+      await expect(page.getByTestId(`template-${template.id}`).textContent()).resolves.toContain(template.name);
+    }
+    await page.screenshot({ path: `${SHOTS}/designs.png` });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  });
+
+  it.each(TEMPLATES.map((template) => [template.id]))(
+    'opens %s, and moving the entry-hole slider changes the preview and the figures',
+    async (templateId: string) => {
+      const template = TEMPLATES.find((item) => item.id === templateId)!;
+      const entry = describeParameters(template).find((param) => param.key === 'entryHoleDiameterMm');
+      expect(entry, `${templateId} offers an entry-hole parameter`).toBeDefined();
+      const page = await e2e.newPage();
+      await e2e.signInAs(page, 'designer');
+      await page.goto('/designs');
+      await page.getByTestId(`template-${templateId}`).click();
+      await page.waitForURL(`**/designs/new/${templateId}`);
+
+      const firstHash = await waitForBuild(page);
+      expect(await page.getByTestId('model-canvas').count()).toBe(1);
+      expect(await entryInputValue(page)).toBeCloseTo(Number(entry!.default), 6);
+      const volumeBefore = await figure(page, 'volume');
+      const massBefore = await figure(page, 'mass');
+      expect(volumeBefore).toMatch(/cm³$/);
+
+      await moveEntrySlider(page, 0.85);
+      const secondHash = await waitForBuild(page, firstHash);
+      const moved = await entryInputValue(page);
+      // The slider moved towards its upper end: 85 % along the rail, within a step or two.
+      const expected = entry!.min! + 0.85 * (entry!.max! - entry!.min!);
+      expect(Math.abs(moved - expected)).toBeLessThan((entry!.max! - entry!.min!) * 0.05);
+      expect(secondHash).not.toBe(firstHash);
+      // A bigger hole removes material: the volume figure changes (mass follows it).
+      expect(await figure(page, 'volume')).not.toBe(volumeBefore);
+      expect(await figure(page, 'mass')).not.toBe(massBefore);
+      // The figure panel shows the box dimensions the bird-fit rules read.
+      expect(await page.getByTestId('bird-fit').textContent()).toContain(`${moved.toFixed(1)} mm`);
+
+      await page.screenshot({ path: `${SHOTS}/editor-${templateId}.png` });
+      expect(e2e.problems(page)).toEqual([]);
+      await page.context().close();
+    },
+    120_000,
+  );
+
+  it('saves a preset, reloads it, and downloads an STL that is manifold and identical to the server export', async () => {
+    const template = TEMPLATES[0];
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto(`/designs/new/${template.id}`);
+    const firstHash = await waitForBuild(page);
+    await moveEntrySlider(page, 0.2);
+    const hash = await waitForBuild(page, firstHash);
+    const entryMm = await entryInputValue(page);
+
+    // Save as a named preset: the URL becomes the preset's.
+    await page.getByTestId('save-preset').click();
+    await page.locator('#preset-name').fill('Browser test, small entry');
+    await page.getByTestId('confirm-preset-name').click();
+    await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
+    const presetId = new URL(page.url()).pathname.split('/').pop()!;
+    await expect(page.getByTestId('design-title').textContent()).resolves.toContain('Browser test, small entry');
+
+    // Reload the page: the preset's parameters come back from the server and build the same mesh.
+    await page.reload();
+    const reloadedHash = await waitForBuild(page);
+    expect(reloadedHash).toBe(hash);
+    expect(await entryInputValue(page)).toBeCloseTo(entryMm, 6);
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+    await page.screenshot({ path: `${SHOTS}/editor-preset.png` });
+
+    // The designs screen lists it with the thumbnail rendered on save.
+    const stored = await page.request.get(`/api/presets/${presetId}`);
+    expect(stored.status()).toBe(200);
+    const preset = (await stored.json()) as { params: Record<string, unknown>; thumbnail: string | null };
+    expect(preset.thumbnail).toMatch(/^data:image\/png;base64,/);
+    expect(preset.params.entryHoleDiameterMm).toBeCloseTo(entryMm, 6);
+
+    // Download the STL written in the browser.
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-stl').click()]);
+    const stlPath = `${SHOTS}/browser-${presetId}.stl`;
+    await download.saveAs(stlPath);
+    const browserStl = new Uint8Array(readFileSync(stlPath));
+    // Binary STL size is 84 + 50 × triangles (source: Paul Bourke, "STL format", via trade-facts §6).
+    const triangles = new DataView(browserStl.buffer, browserStl.byteOffset).getUint32(80, true);
+    expect(browserStl.length).toBe(84 + 50 * triangles);
+
+    // manifold-3d (outside the project) accepts it as one closed, oriented 2-manifold per body.
+    const wasm = await Module();
+    wasm.setup();
+    const mesh = parseStl(browserStl);
+    const manifold = new wasm.Manifold(
+      new wasm.Mesh({ numProp: 3, vertProperties: mesh.positions, triVerts: mesh.indices }),
+    );
+    expect(manifold.status()).toBe('NoError');
+    expect(manifold.numTri()).toBe(triangles);
+    const node = await generate(template.id, preset.params);
+    // Volume agrees with the mesh the template builds in Node (tolerance: float32 STL coordinates).
+    expect(Math.abs(manifold.volume() - node.volumeMm3) / node.volumeMm3).toBeLessThan(1e-4);
+    manifold.delete();
+
+    // The server export of the same parameters is the same mesh: its hash is the one the page shows, and the file
+    // bytes are identical.
+    const exported = await page.request.post('/api/exports', {
+      data: { templateId: template.id, params: preset.params, format: 'stl' },
+      headers: { Origin: e2e.baseUrl },
+    });
+    expect(exported.status(), await exported.text()).toBe(200);
+    const serverSha = exported.headers()['x-mesh-sha256'];
+    expect(serverSha).toMatch(/^[0-9a-f]{64}$/);
+    expect(serverSha.slice(0, 12)).toBe(hash);
+    expect(node.sha256).toBe(serverSha);
+    const serverStl = new Uint8Array(await exported.body());
+    const digest = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
+    expect(digest(browserStl)).toBe(digest(serverStl));
+
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 180_000);
+});
