@@ -1,0 +1,148 @@
+import { z } from 'zod';
+import type { Template } from './types';
+import { commonParameters } from './lib/commonParameters';
+import { eggCeilingZ, eggProfile } from './lib/eggProfile';
+import { floorPlug } from './lib/floorPlug';
+import { Solid } from './lib/Solid';
+import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
+import { toGeom3 } from './lib/toGeom3';
+
+const parameters = z
+  .object({
+    entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
+    holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
+    bodyDiameterMm: z.number().min(150).max(240).default(180).meta({
+      label: 'Body diameter', unit: 'mm', step: 1, help: 'Widest outside diameter of the pod.',
+    }),
+    bodyHeightMm: z.number().min(200).max(320).default(260).meta({
+      label: 'Body height', unit: 'mm', step: 1,
+      help: 'Outside height from the flat printing face to the top; taller than wide makes an egg.',
+    }),
+    floorDiameterMm: z.number().min(80).max(150).default(110).meta({
+      label: 'Floor diameter', unit: 'mm', step: 1,
+      help: 'Inside floor diameter; it is reduced when the body is too narrow for it.',
+    }),
+    wallThicknessMm: commonParameters.wallThicknessMm(10),
+    ventilationSlots: commonParameters.ventilationSlots(2),
+    drainageHoles: commonParameters.drainageHoles(4),
+    hangingHole: z.boolean().default(true).meta({
+      label: 'Hanging eye', unit: '',
+      help: 'A tab with a hole on top to hang the pod by wire; hang it out of reach of predators and follow local guidance on height.',
+    }),
+    perch: commonParameters.perch(),
+    cleaningAccess: z.boolean().default(true).meta({
+      label: 'Cleaning access', unit: '',
+      help: 'A round floor plug, printed as a separate part, so old nests can be removed after the season.',
+    }),
+    printClearanceMm: commonParameters.printClearanceMm(),
+  })
+  .strict();
+
+const SEGMENTS = 72;
+const PROFILE_STEPS = 24;
+const SLOT_WIDTH_MM = 6;
+const SLOT_LENGTH_MM = 26;
+
+/**
+ * Round pod printed upright on a flat face: an egg whose underside flattens into a 45° cone and whose inside
+ * ceiling rises to a 45° point, so neither needs support. Entry faces −y, hanging eye on top.
+ */
+export const roundPod: Template<typeof parameters> = {
+  id: 'round-pod',
+  version: 1,
+  name: 'Round pod',
+  summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
+  parameters,
+  build(p) {
+    const t = p.wallThicknessMm;
+    const a = p.bodyDiameterMm / 2;
+    const lower = a;
+    const ai = a - t;
+    const bli = lower - t;
+    const floorRadius = Math.min(p.floorDiameterMm / 2, ai - 15);
+    // Inside floor height below the equator, then the flat printing face one floor thickness lower.
+    const floorZ = -bli * Math.sqrt(1 - (floorRadius / ai) ** 2);
+    const cutZ = floorZ - t;
+    // Both tops are 45° cones over the ellipses (apex at √(a² + b²)); the inner apex sits t·√2 lower so the cone wall
+    // keeps the full wall thickness.
+    const apexZ = Math.max(a * 1.25, p.bodyHeightMm + cutZ);
+    const upper = Math.sqrt(apexZ ** 2 - a ** 2);
+    const upperInner = Math.sqrt((apexZ - t * Math.SQRT2) ** 2 - ai ** 2);
+
+    const outer = Solid.revolve(
+      eggProfile({ radiusMm: a, upperMm: upper, lowerMm: lower, cutZMm: cutZ, steps: PROFILE_STEPS, coneTop: true, coneBottom: true }),
+      SEGMENTS,
+    );
+    const cavity = Solid.revolve(
+      eggProfile({ radiusMm: ai, upperMm: upperInner, lowerMm: bli, cutZMm: floorZ, steps: PROFILE_STEPS, coneTop: true, coneBottom: false }),
+      SEGMENTS,
+    );
+    const additions: Solid[] = [];
+    const cuts: Solid[] = [cavity];
+
+    const r = p.entryHoleDiameterMm / 2;
+    const ceiling = (x: number): number => eggCeilingZ({ radiusMm: ai, upperMm: upperInner }, x);
+    const highestCentreZ = ceiling(r + 6) - TEARDROP_TIP_RADII * r - 4;
+    const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
+    cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', -a - 2, -ai * 0.3).translate(0, 0, holeCentreZ));
+
+    const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
+    for (let i = 0; i < p.ventilationSlots; i++) {
+      const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
+      const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
+      cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
+    }
+
+    if (p.hangingHole) {
+      const tab = Solid.box([28, 8, 38], [-14, -4, apexZ - 20]);
+      const eye = Solid.prism(teardropOutline(8, 24), 'y', -5, 5).translate(0, 0, apexZ + 8);
+      additions.push(tab.subtract(eye));
+    }
+
+    if (p.perch) {
+      const perchZ = holeCentreZ - r - 18;
+      const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
+      additions.push(
+        Solid.prism(teardropOutline(10, 24, false, Math.SQRT2), 'y', wallY - 30, wallY + t).translate(0, 0, perchZ),
+      );
+    }
+
+    const openingMm = floorRadius * 2 - 30;
+    let plug: Solid | undefined;
+    if (p.cleaningAccess) {
+      cuts.push(Solid.cylinder(t + 2, openingMm / 2, 64).translate(0, 0, cutZ - 1));
+      plug = floorPlug({
+        openingDiameterMm: openingMm,
+        seatThicknessMm: t,
+        clearanceMm: p.printClearanceMm,
+        drainageHoles: p.drainageHoles,
+      });
+    } else {
+      for (let i = 0; i < p.drainageHoles; i++) {
+        const angle = (2 * Math.PI * (i + 0.5)) / p.drainageHoles;
+        const ring = openingMm / 2 - 12;
+        cuts.push(Solid.cylinder(t + 2, 3, 16).translate(ring * Math.cos(angle), ring * Math.sin(angle), cutZ - 1));
+      }
+    }
+
+    const body = outer.add(...additions).subtract(...cuts).translate(0, 0, -cutZ);
+    const parts = [{ name: 'body', geometry: toGeom3(body) }];
+    if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
+    return {
+      parts,
+      facts: {
+        entryHoleDiameterMm: p.entryHoleDiameterMm,
+        floorWidthMm: floorRadius * 2,
+        floorDepthMm: floorRadius * 2,
+        cavityDepthMm: ceiling(0) - floorZ,
+        holeAboveFloorMm: holeCentreZ - r - floorZ,
+        wallThicknessMm: t,
+        hasPerch: p.perch,
+        drainageHoleCount: p.drainageHoles,
+        ventilationAreaMm2: 2 * p.ventilationSlots * slotAreaMm2(SLOT_WIDTH_MM, SLOT_LENGTH_MM),
+        cleaningAccess: p.cleaningAccess,
+        chambers: 1,
+      },
+    };
+  },
+};
