@@ -123,3 +123,5 @@ export const seedRuns = pgTable('seed_runs', {
 export type PersonRow = typeof people.$inferSelect;
 /** A preset row as stored. */
 export type PresetRow = typeof presets.$inferSelect;
+
+export * from './tables/families';
