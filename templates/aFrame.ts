@@ -17,12 +17,12 @@ const parameters = z
     floorDepthMm: z.number().min(80).max(200).default(120).meta({
       label: 'Floor depth', unit: 'mm', step: 1, help: 'Inside floor, front to back.',
     }),
-    cavityDepthMm: z.number().min(150).max(320).default(230).meta({
+    cavityDepthMm: z.number().min(150).max(320).default(200).meta({
       label: 'Inside height', unit: 'mm', step: 1,
       help: 'Inside floor up to the apex; short upright walls are added under the slopes when the slopes alone are too low.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
-    roofPitchDeg: z.number().min(55).max(75).default(65).meta({
+    roofPitchDeg: z.number().min(55).max(75).default(60).meta({
       label: 'Wall slope', unit: 'deg', step: 1,
       help: 'Slope of the A-frame walls from horizontal; 55° or steeper keeps their inside faces self-supporting.',
     }),

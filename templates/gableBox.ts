@@ -16,11 +16,11 @@ const parameters = z
     floorDepthMm: z.number().min(80).max(200).default(120).meta({
       label: 'Floor depth', unit: 'mm', step: 1, help: 'Inside floor, front to back.',
     }),
-    cavityDepthMm: z.number().min(120).max(300).default(180).meta({
+    cavityDepthMm: z.number().min(120).max(300).default(160).meta({
       label: 'Cavity depth', unit: 'mm', step: 1, help: 'Inside floor up to where the roof meets the side walls.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
-    roofPitchDeg: z.number().min(45).max(65).default(50).meta({
+    roofPitchDeg: z.number().min(45).max(65).default(47).meta({
       label: 'Roof pitch', unit: 'deg', step: 1,
       help: 'Roof slope from horizontal. The box prints roof-down, so 45° or steeper keeps the roof self-supporting.',
     }),

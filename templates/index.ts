@@ -2,9 +2,10 @@ import type { AnyTemplate } from './types';
 import { gableBox } from './gableBox';
 import { aFrame } from './aFrame';
 import { roundPod } from './roundPod';
+import { barkTrunk } from './barkTrunk';
 
 /** Every template the product offers, in picker order. */
-export const TEMPLATES: readonly AnyTemplate[] = [gableBox, aFrame, roundPod] as unknown as AnyTemplate[];
+export const TEMPLATES: readonly AnyTemplate[] = [gableBox, aFrame, roundPod, barkTrunk] as unknown as AnyTemplate[];
 
 /**
  * The template with this id, or undefined.

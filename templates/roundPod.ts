@@ -14,7 +14,7 @@ const parameters = z
     bodyDiameterMm: z.number().min(150).max(240).default(180).meta({
       label: 'Body diameter', unit: 'mm', step: 1, help: 'Widest outside diameter of the pod.',
     }),
-    bodyHeightMm: z.number().min(200).max(320).default(260).meta({
+    bodyHeightMm: z.number().min(200).max(320).default(245).meta({
       label: 'Body height', unit: 'mm', step: 1,
       help: 'Outside height from the flat printing face to the top; taller than wide makes an egg.',
     }),

@@ -49,6 +49,12 @@ export class Solid {
     return new Solid(raw.transform([1, 0, 0, 0, 0, 0, 1, 0, 0, -1, 0, 0, 0, endMm, 0, 1]));
   }
 
+  /** A solid from a closed, outward-wound triangle mesh (flat xyz positions, three indices per triangle). */
+  static fromMesh(positions: Float32Array, indices: Uint32Array): Solid {
+    const { Manifold, Mesh } = kernel();
+    return new Solid(new Manifold(new Mesh({ numProp: 3, vertProperties: positions, triVerts: indices })));
+  }
+
   /** Revolves an outline given in the (r, z) half plane, r ≥ 0, about the z axis. */
   static revolve(outline: Outline, segments: number): Solid {
     return new Solid(kernel().Manifold.revolve([outline] as SimplePolygon[], segments));

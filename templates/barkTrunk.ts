@@ -1,0 +1,187 @@
+import { z } from 'zod';
+import type { Template } from './types';
+import { barkTube } from './lib/barkTube';
+import { commonParameters } from './lib/commonParameters';
+import { floorPlug } from './lib/floorPlug';
+import { Solid, type Outline } from './lib/Solid';
+import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
+import { toGeom3 } from './lib/toGeom3';
+
+const parameters = z
+  .object({
+    entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
+    holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
+    cavityDiameterMm: z.number().min(90).max(160).default(110).meta({
+      label: 'Chamber diameter', unit: 'mm', step: 1, help: 'Inside diameter of each round chamber (its floor).',
+    }),
+    cavityDepthMm: z.number().min(140).max(260).default(165).meta({
+      label: 'Chamber depth', unit: 'mm', step: 1,
+      help: 'Inside floor up to where the pointed ceiling of the chamber starts.',
+    }),
+    storeys: z.number().int().min(1).max(2).default(1).meta({
+      label: 'Storeys', unit: 'count', step: 1,
+      help: 'One or two chambers stacked, each with its own entry; two storeys are taller than most build volumes.',
+    }),
+    wallThicknessMm: commonParameters.wallThicknessMm(10),
+    barkDepthMm: z.number().min(0).max(3).default(2).meta({
+      label: 'Bark depth', unit: 'mm', step: 0.1, help: 'Depth of the bark furrows on the outside; 0 gives a smooth trunk.',
+    }),
+    barkSeed: z.number().int().min(1).max(999).default(7).meta({
+      label: 'Bark pattern', unit: 'count', step: 1, help: 'Pick another number for another bark pattern.',
+    }),
+    knotRimMm: z.number().min(0).max(10).default(5).meta({
+      label: 'Knot rim', unit: 'mm', step: 0.5,
+      help: 'Width of the knot-like rim round each entry; it also thickens the wall against enlarging the hole.',
+    }),
+    mountRadiusMm: z.number().min(50).max(600).default(150).meta({
+      label: 'Tree radius', unit: 'mm', step: 5,
+      help: 'Radius of the trunk or pole the concave back sits against.',
+    }),
+    flatBack: z.boolean().default(false).meta({
+      label: 'Flat back', unit: '', help: 'A flat back for a wall or post instead of the concave one.',
+    }),
+    ventilationSlots: commonParameters.ventilationSlots(2),
+    drainageHoles: commonParameters.drainageHoles(4),
+    hangingHole: commonParameters.hangingHole(true),
+    perch: commonParameters.perch(),
+    cleaningAccess: z.boolean().default(true).meta({
+      label: 'Cleaning access', unit: '',
+      help: 'A round plug in the lowest floor, printed as a separate part. An upper storey has no cleaning access.',
+    }),
+    printClearanceMm: commonParameters.printClearanceMm(),
+  })
+  .strict();
+
+const SLOT_WIDTH_MM = 6;
+const SLOT_LENGTH_MM = 26;
+const SEGMENTS = 96;
+
+/**
+ * Bark trunk printed upright: a bark-textured cylinder with one or two stacked chambers (each with a 45° pointed
+ * ceiling and its own entry in a knot-like rim), a concave or flat back (+y) and an optional floor plug.
+ */
+export const barkTrunk: Template<typeof parameters> = {
+  id: 'bark-trunk',
+  version: 1,
+  name: 'Bark trunk',
+  summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
+  parameters,
+  build(p) {
+    const t = p.wallThicknessMm;
+    const Ri = p.cavityDiameterMm / 2;
+    const Ro = Ri + t + p.barkDepthMm;
+    const storeyMm = p.cavityDepthMm + Ri + t;
+    const heightMm = t + storeyMm * p.storeys;
+    const r = p.entryHoleDiameterMm / 2;
+    const frontY = -Ro;
+
+    const additions: Solid[] = [];
+    const cuts: Solid[] = [];
+    let holeAboveFloorMm = p.holeAboveFloorMm;
+    for (let storey = 0; storey < p.storeys; storey++) {
+      const floorZ = t + storey * storeyMm;
+      const ceilingZ = floorZ + p.cavityDepthMm;
+      const chamber: Outline = [
+        [0, floorZ],
+        [Ri, floorZ],
+        [Ri, ceilingZ],
+        [0, ceilingZ + Ri],
+      ];
+      cuts.push(Solid.revolve(chamber, SEGMENTS));
+      // Keep the hole (and its rim) under the pointed ceiling.
+      const highestCentreZ = ceilingZ + Ri - (r + 4) - TEARDROP_TIP_RADII * r - 3;
+      const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
+      holeAboveFloorMm = Math.min(holeAboveFloorMm, holeCentreZ - r - floorZ);
+      cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ));
+      if (p.knotRimMm > 0) {
+        // Tip-down outline: the rim's underside is a 45° V, so it prints without support.
+        const rim = teardropOutline(p.entryHoleDiameterMm + 2 * p.knotRimMm, 48, false, Math.SQRT2);
+        additions.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));
+      }
+      if (p.perch) {
+        additions.push(
+          Solid.prism(teardropOutline(10, 24, false, Math.SQRT2), 'y', frontY - 30, -Ri / 2).translate(
+            0,
+            0,
+            holeCentreZ - r - p.knotRimMm - 16,
+          ),
+        );
+      }
+      const slotZ = ceilingZ - SLOT_LENGTH_MM / 2 - 4;
+      for (let i = 0; i < p.ventilationSlots; i++) {
+        const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
+        const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
+        cuts.push(Solid.prism(slot, 'x', Ri * 0.5, Ro + 2), Solid.prism(slot, 'x', -Ro - 2, -Ri * 0.5));
+      }
+      if (storey > 0) {
+        // An upper floor drains forward through weep holes at floor level (vertical holes would open into the
+        // chamber below).
+        const weeps = Math.min(p.drainageHoles, 3);
+        for (let i = 0; i < weeps; i++) {
+          const x = (i - (weeps - 1) / 2) * 16;
+          cuts.push(Solid.prism(teardropOutline(6, 16), 'y', frontY - 12, -Ri + 2).translate(x, 0, floorZ + 3));
+        }
+      }
+    }
+
+    if (p.hangingHole) {
+      const tab = Solid.box([28, 8, 26], [-14, Ri + t / 2 - 8, heightMm - 4]);
+      const eye = Solid.prism(teardropOutline(8, 24), 'y', Ri - 10, Ri + t + 4).translate(0, 0, heightMm + 9);
+      additions.push(tab.subtract(eye));
+    }
+
+    const openingMm = p.cavityDiameterMm - 30;
+    let plug: Solid | undefined;
+    if (p.cleaningAccess) {
+      cuts.push(Solid.cylinder(t + 2, openingMm / 2, 64).translate(0, 0, -1));
+      plug = floorPlug({
+        openingDiameterMm: openingMm,
+        seatThicknessMm: t,
+        clearanceMm: p.printClearanceMm,
+        drainageHoles: p.drainageHoles,
+      });
+    } else {
+      for (let i = 0; i < p.drainageHoles; i++) {
+        const angle = (2 * Math.PI * (i + 0.5)) / p.drainageHoles;
+        const ring = openingMm / 2 - 12;
+        cuts.push(Solid.cylinder(t + 2, 3, 16).translate(ring * Math.cos(angle), ring * Math.sin(angle), -1));
+      }
+    }
+
+    // The back: a tree of the given radius touching the chamber wall's outside, or a flat cut there.
+    const backY = Ri + t;
+    cuts.push(
+      p.flatBack
+        ? Solid.box([2 * Ro + 20, Ro, heightMm + 40], [-Ro - 10, backY, -10])
+        : Solid.cylinder(heightMm + 40, p.mountRadiusMm, 180).translate(0, backY + p.mountRadiusMm, -10),
+    );
+
+    const trunk = barkTube({
+      radiusMm: Ro,
+      heightMm,
+      barkDepthMm: p.barkDepthMm,
+      seed: p.barkSeed,
+      segments: SEGMENTS * 2,
+      rowMm: 3,
+    });
+    const body = trunk.add(...additions).subtract(...cuts);
+    const parts = [{ name: 'body', geometry: toGeom3(body) }];
+    if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug.translate(Ro + 10 + openingMm / 2 + 8, 0, 0)) });
+    return {
+      parts,
+      facts: {
+        entryHoleDiameterMm: p.entryHoleDiameterMm,
+        floorWidthMm: p.cavityDiameterMm,
+        floorDepthMm: p.cavityDiameterMm,
+        cavityDepthMm: p.cavityDepthMm,
+        holeAboveFloorMm,
+        wallThicknessMm: t,
+        hasPerch: p.perch,
+        drainageHoleCount: p.storeys > 1 ? Math.min(p.drainageHoles, 3) : p.drainageHoles,
+        ventilationAreaMm2: 2 * p.ventilationSlots * slotAreaMm2(SLOT_WIDTH_MM, SLOT_LENGTH_MM),
+        cleaningAccess: p.cleaningAccess && p.storeys === 1,
+        chambers: p.storeys,
+      },
+    };
+  },
+};
