@@ -59,6 +59,7 @@ export function createBuildPlate(volume: BuildVolumeMm): Group {
     new EdgesGeometry(new BoxGeometry(widthMm, depthMm, heightMm)),
     new LineBasicMaterial({ color: '#b9ae98', transparent: true, opacity: 0.35 }),
   );
+  volumeBox.name = 'build-volume';
   volumeBox.position.z = heightMm / 2;
   group.add(volumeBox);
 
