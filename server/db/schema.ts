@@ -125,3 +125,4 @@ export type PersonRow = typeof people.$inferSelect;
 export type PresetRow = typeof presets.$inferSelect;
 
 export * from './tables/families';
+export * from './tables/sales';

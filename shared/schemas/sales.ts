@@ -1,0 +1,66 @@
+import { z } from 'zod';
+import { DimDivisorSchema, PackagingRulesSchema } from './shipping';
+
+/** The print farm as quotes see it: how many machines, for how long a day, and how often a plate fails. */
+export const FarmSettingsSchema = z.object({
+  printers: z.number().int().positive().max(10_000),
+  /** Machine hours per day (24 for a farm that runs overnight). */
+  hoursPerDay: z.number().gt(0).max(24),
+  /** Copies on one build plate; null = as many as fit the plate (the analysis' plate fit), at least 1. */
+  copiesPerPlate: z.number().int().positive().max(500).nullable(),
+  failureRatePct: z.number().min(0).lt(100),
+  /** Warm-up and plate change between plates. */
+  plateChangeMin: z.number().nonnegative().max(600),
+  /** Days added for packing and dispatch. */
+  handlingDays: z.number().int().nonnegative().max(60),
+});
+/** Farm settings (see {@link FarmSettingsSchema}). */
+export type FarmSettings = z.infer<typeof FarmSettingsSchema>;
+
+/** From this quantity on, the unit price drops by this share. */
+export const QuantityBreakSchema = z.object({
+  minQuantity: z.number().int().positive(),
+  discountPct: z.number().min(0).lt(100),
+});
+/** A quantity break (see {@link QuantityBreakSchema}). */
+export type QuantityBreak = z.infer<typeof QuantityBreakSchema>;
+
+/** Settings of the sales area: shipping divisors with their dates, packaging, farm and quantity breaks. */
+export const SalesSettingsSchema = z.object({
+  dimDivisors: z.array(DimDivisorSchema).min(1).max(20),
+  packaging: PackagingRulesSchema,
+  farm: FarmSettingsSchema,
+  /** Ascending by quantity; the largest break at or below the quantity applies. */
+  quantityBreaks: z
+    .array(QuantityBreakSchema)
+    .max(10)
+    .refine((breaks) => breaks.every((b, i) => i === 0 || b.minQuantity > breaks[i - 1].minQuantity), {
+      message: 'quantityBreaks must be in ascending order of minQuantity',
+    }),
+});
+/** Sales settings (see {@link SalesSettingsSchema}). */
+export type SalesSettings = z.infer<typeof SalesSettingsSchema>;
+
+/** One line of the price list: a published variant and what it costs. */
+export const PriceListRowSchema = z.object({
+  sku: z.string(),
+  productName: z.string(),
+  familyName: z.string(),
+  material: z.string(),
+  colour: z.string(),
+  entryHoleDiameterMm: z.number(),
+  massG: z.number(),
+  /** Outside dimensions of the shipping box, largest first. */
+  boxOuterMm: z.tuple([z.number(), z.number(), z.number()]),
+  /** Shipped weight (product and packaging). */
+  shippedMassG: z.number(),
+  currency: z.string(),
+  unitPriceCents: z.number().int().nonnegative(),
+});
+/** A price list line (see {@link PriceListRowSchema}). */
+export type PriceListRow = z.infer<typeof PriceListRowSchema>;
+
+/** Route parameters `:sku`. */
+export const SkuParamsSchema = z.object({ sku: z.string().trim().min(1).max(80) });
+/** Route parameters `:id` of a family. */
+export const FamilyIdParamsSchema = z.object({ id: z.string().trim().min(1).max(80) });
