@@ -24,7 +24,8 @@ export const PALETTE = {
   line: '#ddd5c3',
   lineSoft: '#ebe4d4',
   /** Signals. */
-  ochre: '#b07a1e',
+  /** Warning text and icons; dark enough for 4.5:1 on eggshell. */
+  ochre: '#8c5f14',
   rust: '#a63d2a',
   slate: '#3d6475',
 } as const;

@@ -4,12 +4,18 @@
  * Screenshots go to /tmp/nestwright-e2e (not committed) for a person to look at.
  */
 import { mkdirSync } from 'node:fs';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../../shared/schemas/auth';
 import { areasFor } from '../../src/router/areas';
 import { demoPerson, startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
+
+/** Lets fades and spinners finish so a screenshot shows the settled screen (not a check of anything). */
+async function settle(page: Page): Promise<void> {
+  await page.waitForTimeout(400);
+}
 let e2e: E2E;
 
 beforeAll(async () => {
@@ -28,6 +34,7 @@ describe('sign-in, home screen and sign-out', () => {
     await page.waitForURL((url) => url.pathname === '/sign-in');
     expect(new URL(page.url()).searchParams.get('next')).toBe('/admin/people');
     await expect(page.getByRole('heading', { name: 'Sign in' }).isVisible()).resolves.toBe(true);
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/sign-in.png` });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
@@ -57,6 +64,7 @@ describe('sign-in, home screen and sign-out', () => {
     // Home plus the person's areas, nothing more.
     expect(await page.getByRole('navigation', { name: 'Areas' }).getByRole('link').count()).toBe(expectedAreas.length + 1);
     if (expectedAreas.length === 0) expect(await page.getByTestId('no-areas').isVisible()).toBe(true);
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/home-${role}.png` });
 
     await page.getByRole('button', { name: `Account menu for ${person.name}` }).click();
@@ -87,6 +95,7 @@ describe('sign-in, home screen and sign-out', () => {
     // No layout shift: the message line is reserved before it appears (tolerance 0.5 px, common practice).
     expect(Math.abs((after?.y ?? 0) - (before?.y ?? 0))).toBeLessThan(0.5);
     expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/sign-in-wrong-password.png` });
 
     // Empty fields are caught in the browser, before any request.
@@ -99,6 +108,36 @@ describe('sign-in, home screen and sign-out', () => {
     await page.context().close();
   });
 
+  it('says how long to wait after too many attempts', async () => {
+    // An e-mail of its own, so the limit (per address + e-mail) does not touch the other tests.
+    const email = 'guesser@fernhollow.test';
+    const page = await e2e.newPage();
+    await page.goto('/sign-in');
+    // Guess from inside the page (same client address as the form; the limit counts per address + e-mail).
+    const lastStatus = await page.evaluate(async (guessEmail) => {
+      let status = 0;
+      for (let attempt = 0; attempt < 20 && status !== 429; attempt++) {
+        const res = await fetch('/api/auth/sign-in', {
+          method: 'POST',
+          headers: { 'Content-Type': 'application/json' },
+          body: JSON.stringify({ email: guessEmail, password: `guess-${attempt}` }),
+        });
+        status = res.status;
+      }
+      return status;
+    }, email);
+    expect(lastStatus).toBe(429);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill('one-more-guess');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    // The server's window is 15 minutes (server/auth/signInLimiter.ts); the page names the wait in minutes.
+    await page.getByRole('alert').filter({ hasText: /Too many attempts, try again in 1[45] minutes\./ }).waitFor();
+    await settle(page);
+    await page.screenshot({ path: `${SHOTS}/sign-in-too-many.png` });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  });
+
   it('shows Forbidden to a designer who opens the admin people screen', async () => {
     const page = await e2e.newPage();
     await e2e.signInAs(page, 'designer');
@@ -107,6 +146,7 @@ describe('sign-in, home screen and sign-out', () => {
     expect(new URL(page.url()).pathname).toBe('/forbidden');
     // The server agrees: the people API refuses the designer.
     expect((await page.request.get('/api/people')).status()).toBe(403);
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/forbidden-designer.png` });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
@@ -118,6 +158,7 @@ describe('sign-in, home screen and sign-out', () => {
     await page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: 'People' }).click();
     await page.waitForURL((url) => url.pathname === '/admin/people');
     for (const role of ROLES) await page.getByRole('cell', { name: demoPerson(role).email }).waitFor();
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/admin-people.png` });
 
     await page.getByRole('button', { name: 'Add a person' }).click();
@@ -130,6 +171,7 @@ describe('sign-in, home screen and sign-out', () => {
     await dialog.getByRole('button', { name: 'Add person' }).click();
     await dialog.getByText('password must be at least 10 characters').waitFor();
     await dialog.getByText('Choose at least one role.').waitFor();
+    await settle(page);
     await page.screenshot({ path: `${SHOTS}/admin-add-invalid.png` });
 
     await dialog.getByLabel('Initial password').fill('wren-password-1');
