@@ -135,6 +135,16 @@ describe('designer configurator', () => {
     expect(await page.getByTestId('unsaved').count()).toBe(0);
     await page.screenshot({ path: `${SHOTS}/editor-preset.png` });
 
+    // Inches only at the edge of the UI: switching the display converts the shown value and builds nothing new.
+    await page.getByText('inch', { exact: true }).click();
+    await page.waitForFunction(() => document.querySelector('#input-entryHoleDiameterMm')?.closest('[data-testid]')?.textContent?.includes(' in'));
+    // source: 1 in = 25.4 mm exactly (international inch, 1959)
+    expect(await entryInputValue(page)).toBeCloseTo(entryMm / 25.4, 2);
+    expect((await page.getByTestId('mesh-hash').textContent())!.trim()).toBe(hash);
+    await page.screenshot({ path: `${SHOTS}/editor-inch.png` });
+    await page.getByText('mm', { exact: true }).first().click();
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+
     // The designs screen lists it with the thumbnail rendered on save.
     const stored = await page.request.get(`/api/presets/${presetId}`);
     expect(stored.status()).toBe(200);
