@@ -18,11 +18,8 @@ export function toGeom3(solid: Solid): Geom3 {
     return [vertProperties[at], vertProperties[at + 1], vertProperties[at + 2]];
   };
   for (let tri = 0; tri < polygons.length; tri++) {
-    polygons[tri] = jscad.geometries.poly3.create([
-      point(triVerts[tri * 3]),
-      point(triVerts[tri * 3 + 1]),
-      point(triVerts[tri * 3 + 2]),
-    ]);
+    // A JSCAD poly3 is a plain { vertices } object; building it directly skips a copy per triangle.
+    polygons[tri] = { vertices: [point(triVerts[tri * 3]), point(triVerts[tri * 3 + 1]), point(triVerts[tri * 3 + 2])] };
   }
   return jscad.geometries.geom3.create(polygons);
 }

@@ -22,19 +22,9 @@ export function toMesh(parts: TemplatePart[]): IndexedMesh {
   const positions: number[] = [];
   const indices: number[] = [];
   for (const part of parts) {
-    const weld = new Map<string, number>();
-    const vertexIndex = (point: readonly number[]): number => {
-      const key = `${point[0]},${point[1]},${point[2]}`;
-      let index = weld.get(key);
-      if (index === undefined) {
-        index = positions.length / 3;
-        positions.push(point[0], point[1], point[2]);
-        weld.set(key, index);
-      }
-      return index;
-    };
+    const weld = new VertexWeld(positions);
     for (const polygon of jscad.geometries.geom3.toPolygons(part.geometry)) {
-      const ring = polygon.vertices.map(vertexIndex);
+      const ring = polygon.vertices.map((point) => weld.index(point[0], point[1], point[2]));
       for (let i = 1; i + 1 < ring.length; i++) {
         if (ring[0] === ring[i] || ring[i] === ring[i + 1] || ring[0] === ring[i + 1]) continue;
         indices.push(ring[0], ring[i], ring[i + 1]);
@@ -44,6 +34,70 @@ export function toMesh(parts: TemplatePart[]): IndexedMesh {
   const mesh: IndexedMesh = { positions: new Float32Array(positions), indices: new Uint32Array(indices) };
   assertClosedManifold(mesh);
   return mesh;
+}
+
+/**
+ * Welds exactly equal float32 positions with an open-addressing hash table on their bit patterns (string keys are
+ * several times slower on meshes of tens of thousands of vertices).
+ */
+class VertexWeld {
+  private table = new Int32Array(1 << 12).fill(-1);
+  private count = 0;
+  private readonly bits = new Uint32Array(3);
+  private readonly floats = new Float32Array(this.bits.buffer);
+  private readonly first: number;
+
+  constructor(private readonly positions: number[]) {
+    this.first = positions.length / 3;
+  }
+
+  index(x: number, y: number, z: number): number {
+    if (this.count * 2 >= this.table.length) this.grow();
+    this.floats[0] = x;
+    this.floats[1] = y;
+    this.floats[2] = z;
+    const mask = this.table.length - 1;
+    let slot = this.hash() & mask;
+    for (;;) {
+      const found = this.table[slot];
+      if (found < 0) break;
+      const at = found * 3;
+      if (
+        this.positions[at] === this.floats[0] &&
+        this.positions[at + 1] === this.floats[1] &&
+        this.positions[at + 2] === this.floats[2]
+      ) {
+        return found;
+      }
+      slot = (slot + 1) & mask;
+    }
+    const index = this.positions.length / 3;
+    this.positions.push(this.floats[0], this.floats[1], this.floats[2]);
+    this.table[slot] = index;
+    this.count++;
+    return index;
+  }
+
+  private hash(): number {
+    let h = Math.imul(this.bits[0] ^ 0x9e3779b9, 0x85ebca6b);
+    h = Math.imul(h ^ this.bits[1] ^ (h >>> 13), 0xc2b2ae35);
+    h = Math.imul(h ^ this.bits[2] ^ (h >>> 16), 0x27d4eb2f);
+    return (h ^ (h >>> 15)) >>> 0;
+  }
+
+  private grow(): void {
+    const old = this.table;
+    this.table = new Int32Array(old.length * 2).fill(-1);
+    const mask = this.table.length - 1;
+    for (let v = this.first; v < this.positions.length / 3; v++) {
+      this.floats[0] = this.positions[v * 3];
+      this.floats[1] = this.positions[v * 3 + 1];
+      this.floats[2] = this.positions[v * 3 + 2];
+      let slot = this.hash() & mask;
+      while (this.table[slot] >= 0) slot = (slot + 1) & mask;
+      this.table[slot] = v;
+    }
+  }
 }
 
 /**
