@@ -11,6 +11,8 @@ import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
 import { presetsRouter } from './routes/presets';
+import { exportsRouter } from './routes/exports';
+import { templatesRouter } from './routes/templates';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -45,6 +47,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/auth', authRouter(ctx));
   app.use('/api/people', peopleRouter(ctx));
   app.use('/api/presets', presetsRouter(ctx));
+  app.use('/api/templates', templatesRouter());
+  app.use('/api/exports', exportsRouter(ctx));
 
   // Anything else under /api is a 404 in the error shape (keep this after every API router).
   app.use('/api', (req) => {
