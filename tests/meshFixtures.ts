@@ -66,3 +66,30 @@ export function toAsciiStl(mesh: IndexedMesh): string {
   lines.push('endsolid test');
   return lines.join('\n');
 }
+
+type ManifoldModule = Awaited<ReturnType<typeof import('manifold-3d').default>>;
+let manifoldModule: Promise<ManifoldModule> | null = null;
+
+/** Loads manifold-3d once per test file (WASM). */
+export function loadManifold(): Promise<ManifoldModule> {
+  manifoldModule ??= import('manifold-3d').then(async ({ default: init }) => {
+    const wasm = await init();
+    wasm.setup();
+    return wasm;
+  });
+  return manifoldModule;
+}
+
+/**
+ * Copies a manifold-3d solid into the neutral indexed mesh.
+ * @param solid - a Manifold
+ */
+export function manifoldToMesh(solid: { getMesh(): { numProp: number; vertProperties: Float32Array; triVerts: Uint32Array } }): IndexedMesh {
+  const mesh = solid.getMesh();
+  const count = mesh.vertProperties.length / mesh.numProp;
+  const positions = new Float32Array(count * 3);
+  for (let i = 0; i < count; i++) {
+    for (let d = 0; d < 3; d++) positions[i * 3 + d] = mesh.vertProperties[i * mesh.numProp + d];
+  }
+  return { positions, indices: Uint32Array.from(mesh.triVerts) };
+}

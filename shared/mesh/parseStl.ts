@@ -26,10 +26,10 @@ export function parseStl(bytes: Uint8Array): IndexedMesh {
     if (HEADER_BYTES + 4 + FACET_BYTES * declared === bytes.length) return weldVertices(readBinary(view, declared));
   }
   if (looksLikeAsciiStl(bytes)) return weldVertices(readAscii(bytes));
+  if (!looksBinary(bytes)) throw new MeshFormatError('not_a_mesh', 'The file is text but not an ASCII STL.');
   if (bytes.length < HEADER_BYTES + 4) {
     throw new MeshFormatError('truncated', `The file is ${bytes.length} bytes, shorter than a binary STL header (84).`);
   }
-  if (!looksBinary(bytes)) throw new MeshFormatError('not_a_mesh', 'The file is neither a binary nor an ASCII STL.');
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const declared = view.getUint32(HEADER_BYTES, true);
   const expected = HEADER_BYTES + 4 + FACET_BYTES * declared;
