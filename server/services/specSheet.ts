@@ -1,0 +1,212 @@
+/** Gathers what a spec sheet shows for a published variant and renders it. */
+import sharp from 'sharp';
+import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { SPECIES } from '../../shared/birdfit/species';
+import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
+import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
+import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
+import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { SalesSettings } from '../../shared/schemas/sales';
+import { dimensionalWeight } from '../../shared/shipping/dimensionalWeight';
+import { shippingBox } from '../../shared/shipping/shippingBox';
+import { mmIn, money } from '../pdf/formatMeasure';
+import { pdfText } from '../pdf/pdfFonts';
+import { renderSpecSheetsPdf, type SpecSheetCaution, type SpecSheetInput } from '../pdf/specSheetPdf';
+import { productMesh } from './specSheetMesh';
+
+/** Name of the demo studio on every document. */
+export const STUDIO_NAME = 'Fernhollow Studio';
+
+/** Options of {@link specSheetInput}. */
+export interface SpecSheetOptions {
+  settings: SalesSettings;
+  /** Date printed on the sheet (default now). */
+  issuedOn?: Date;
+  /** A photo of the sample print (any format sharp reads); a rendered view is used when absent. */
+  photo?: Buffer;
+}
+
+/**
+ * Everything one variant's spec sheet shows: the body built upright from its template and parameters, a
+ * three-view drawing, a picture, the bird fit, the shipping box and weights, care and cautions.
+ * @param variant - a published catalogue variant
+ * @param options - settings, date and optional photo
+ */
+export async function specSheetInput(variant: CatalogueVariant, options: SpecSheetOptions): Promise<SpecSheetInput> {
+  const product = await productMesh(variant.templateId, variant.params);
+  const drawing = orthographicDrawing(product.mesh);
+  const facts = variant.report.facts;
+  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const colour = material?.colours.find((c) => c.id === variant.attributes.colour) ??
+    material?.colours[0] ?? { id: 'natural', name: 'Natural', hex: '#e8e2d0', solarAbsorptance: 0.35 };
+
+  const picture = options.photo
+    ? { png: await sharp(options.photo).rotate().resize(800, 800, { fit: 'inside' }).png().toBuffer(), caption: 'Photo of the sample print' }
+    : {
+        png: await sharp(Buffer.from(shadedViewSvg(product.mesh, { colourHex: colour.hex, widthPx: 700 }))).png().toBuffer(),
+        caption: product.upright ? 'Rendered view from the design' : 'Rendered view, as printed',
+      };
+
+  const o = drawing.overallMm;
+  const box = shippingBox([o.widthMm, o.depthMm, o.heightMm], variant.report.massG, options.settings.packaging);
+  const weights = options.settings.dimDivisors.map((divisor) => dimensionalWeight(box.outerMm, box.actualMassG, divisor));
+
+  const fit = assessBirdFit(facts);
+  const sources: string[] = [];
+  const species = fit.suits.map((s) => {
+    const full = fit.species.find((row) => row.speciesId === s.speciesId);
+    let sourceIndex = sources.indexOf(s.source);
+    if (sourceIndex === -1) sourceIndex = sources.push(s.source) - 1;
+    return {
+      commonName: s.commonName,
+      scientificName: scientificName(s.speciesId) ?? '',
+      region: s.region,
+      mountingHeightM: full?.mountingHeightM ?? s.mountingHeightM,
+      sourceIndex,
+    };
+  });
+
+  return {
+    studioName: STUDIO_NAME,
+    sku: variant.sku,
+    productName: productName(variant),
+    familyName: variant.family.name,
+    templateName: product.templateName,
+    issuedOn: options.issuedOn ?? new Date(),
+    picturePng: picture.png,
+    pictureCaption: picture.caption,
+    drawing,
+    entryHoleDiameterMm: facts.entryHoleDiameterMm,
+    holeAboveFloorMm: facts.holeAboveFloorMm,
+    floorWidthMm: facts.floorWidthMm,
+    floorDepthMm: facts.floorDepthMm,
+    cavityDepthMm: facts.cavityDepthMm,
+    wallThicknessMm: facts.wallThicknessMm,
+    material: material?.name ?? variant.attributes.material.toUpperCase(),
+    colour: { name: colour.name, hex: colour.hex },
+    massG: variant.report.massG,
+    backFit: backFit(variant.params, o.widthMm),
+    priceText: `${money(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
+    species,
+    sources: sources.map(pdfText),
+    box,
+    weights,
+    care: CARE,
+    cautions: cautions(variant, facts.hasPerch, material?.heatDeflectionC ?? null, colour.solarAbsorptance, fit.suits),
+  };
+}
+
+/**
+ * One PDF of spec sheets (two pages per variant).
+ * @param variants - the variants, in order
+ * @param options - settings and date
+ */
+export async function renderSpecSheets(variants: CatalogueVariant[], options: SpecSheetOptions): Promise<Buffer> {
+  const inputs: SpecSheetInput[] = [];
+  for (const variant of variants) inputs.push(await specSheetInput(variant, options));
+  return renderSpecSheetsPdf(inputs);
+}
+
+/**
+ * A variant's product name: the family name with what sets the variant apart (its axis values).
+ * @param variant - the variant
+ */
+export function productName(variant: CatalogueVariant): string {
+  const parts = Object.entries(variant.axisValues).map(([key, value]) => axisLabel(key, value));
+  return parts.length > 0 ? `${variant.family.name}, ${parts.join(', ')}` : variant.family.name;
+}
+
+function axisLabel(key: string, value: unknown): string {
+  if (key === 'entryHoleDiameterMm' && typeof value === 'number') return `${value} mm entry`;
+  if (typeof value === 'boolean') return `${value ? 'with' : 'no'} ${key.replace(/([A-Z])/g, ' $1').toLowerCase()}`;
+  if (typeof value === 'string') return value.replace(/-/g, ' ');
+  return `${key.replace(/Mm$/, '').replace(/([A-Z])/g, ' $1').toLowerCase()} ${String(value)}${key.endsWith('Mm') ? ' mm' : ''}`;
+}
+
+function scientificName(speciesId: string): string | undefined {
+  return SPECIES.find((s) => s.id === speciesId)?.scientificName;
+}
+
+/**
+ * Which trunks, poles or posts the back fits, from the template's parameters.
+ * @param params - the variant's complete parameters
+ * @param widthMm - overall width of the body
+ */
+export function backFit(params: Record<string, unknown>, widthMm: number): string {
+  if (typeof params.mountRadiusMm === 'number' && params.flatBack !== true) {
+    return (
+      `Concave back shaped for a trunk or pole of ${mmIn(2 * params.mountRadiusMm)} diameter. ` +
+      'On a thicker trunk it bears on its two side edges, on a thinner one along its centre line: fix with a strap or screws through the hanging hole.'
+    );
+  }
+  return (
+    `Flat back, ${mmIn(widthMm)} wide overall: flush on a flat post, board or wall. ` +
+    'On a round pole or trunk it touches along one line: fix with a strap or a bracket.'
+  );
+}
+
+/** Care lines of every sheet. */
+const CARE = [
+  'Clear coat and paint, if used, go on the outside only: never inside the box or on the inside edge of the entry hole (NestWatch: paint the exterior only).',
+  'Clean once a year after the nesting season: open the cleaning access, take out the old nest, brush the box out and let it dry before closing it.',
+  'Check the fixings and look for cracks when you clean; replace a box that has gone brittle.',
+];
+
+function cautions(
+  variant: CatalogueVariant,
+  hasPerch: boolean,
+  heatDeflectionC: number | null,
+  solarAbsorptance: number,
+  suits: Array<{ commonName: string; mountingHeightM: { min: number; max: number } }>,
+): SpecSheetCaution[] {
+  const list: SpecSheetCaution[] = [
+    {
+      title: 'Heat',
+      text:
+        'A plastic box in full sun gets much hotter than the air, and above 41.7 °C (107 °F) inside is lethal to nestlings. ' +
+        (heatDeflectionC !== null ? `The material softens from about ${heatDeflectionC} °C. ` : '') +
+        (solarAbsorptance >= 0.6 ? 'This colour absorbs most sunlight and runs hot: choose a shaded site. ' : '') +
+        'Hang the box where it gets afternoon shade, facing away from the strongest sun.',
+      source: 'Audubon (2024), K. Stumpf; PLA heat deflection, NatureWorks data sheet',
+    },
+    {
+      title: 'Perches',
+      text: hasPerch
+        ? 'This variant has a perch under the entry. Perches help starlings, house sparrows and predators; offer it only where local guidance allows.'
+        : 'Do not add a perch under the entry: perches help starlings, house sparrows and predators.',
+      source: 'USFWS "For the Birds" (2001); Cornell nest-box features',
+    },
+    {
+      title: 'Mounting height',
+      text:
+        suits.length > 0
+          ? `Published heights for the birds it suits: ${suits.map((s) => `${s.commonName} ${s.mountingHeightM.min}–${s.mountingHeightM.max} m`).join('; ')}. Keep it out of reach of cats.`
+          : 'Mount the box out of reach of cats at the height local guidance gives for the species you want.',
+      source: 'species table sources above',
+    },
+    {
+      title: 'Predator guards',
+      text: 'On a post, use a smooth metal or plastic pole with a baffle; trees and wooden posts give climbing predators a hold. A metal plate round the hole stops it being enlarged.',
+      source: 'NestWatch FAQ on predators',
+    },
+  ];
+  const covered = new Set(['perch', 'predator-guard', 'mounting-height', 'plastic-heat']);
+  for (const warning of variant.birdFitWarnings) {
+    if (warning.severity === 'info' || covered.has(warning.code)) continue;
+    covered.add(warning.code);
+    list.push({ title: warningTitle(warning.code), text: pdfText(warning.message), source: pdfText(warning.source) });
+  }
+  list.push({
+    title: 'Local rules',
+    text:
+      'Follow local rules and bird-conservation advice on where and when to put up nest boxes and on unwanted species. ' +
+      'Figures on this sheet are estimates from the design: confirm them with a test print.',
+    source: '',
+  });
+  return list;
+}
+
+function warningTitle(code: string): string {
+  const words = code.replace(/-/g, ' ');
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}

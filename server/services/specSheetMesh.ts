@@ -1,0 +1,62 @@
+/** The product as it stands in use (body only, upright, front facing −y), built from a template for the spec sheet. */
+import type { IndexedMesh } from '../../shared/schemas/mesh';
+import type { NestBoxFacts } from '../../shared/schemas/nestbox';
+import { findTemplate, parseParams, TemplateParamError } from '../../templates/index';
+import { loadKernel } from '../../templates/lib/kernel';
+import { scoped } from '../../templates/lib/scope';
+import { toMesh } from '../../templates/lib/toMesh';
+
+/**
+ * How each template's body turns from build orientation to standing in use. Templates are designed upright and some
+ * turn over to print (the gable box prints roof-down: rotated 180° about y); unknown templates are drawn as printed.
+ */
+const UPRIGHT_TURN: Record<string, 'none' | 'turn-over-y'> = {
+  'gable-box': 'turn-over-y',
+  'a-frame': 'none',
+  'round-pod': 'none',
+  'bark-trunk': 'none',
+};
+
+/** The product body in use orientation with what it offers a bird. */
+export interface ProductMesh {
+  templateName: string;
+  /** Body only (no loose parts such as floor plugs), upright, resting on z = 0, centred on x and y. */
+  mesh: IndexedMesh;
+  facts: NestBoxFacts;
+  /** Whether the drawing shows the part upright (false: as printed, the template's use orientation is unknown). */
+  upright: boolean;
+}
+
+/**
+ * Builds the template and returns its first part (the body) standing as it is used.
+ * @param templateId - a registered template id
+ * @param rawParams - template parameters (missing keys take defaults)
+ * @throws TemplateParamError for an unknown template or a bad parameter
+ */
+export async function productMesh(templateId: string, rawParams: unknown): Promise<ProductMesh> {
+  const template = findTemplate(templateId);
+  if (!template) throw new TemplateParamError('templateId', `templateId: unknown template "${templateId}"`);
+  const params = parseParams(template, rawParams);
+  await loadKernel();
+  const { mesh, facts } = scoped(() => {
+    const output = template.build(params);
+    return { mesh: toMesh(output.parts.slice(0, 1)), facts: output.facts };
+  });
+  const turn = UPRIGHT_TURN[templateId] ?? 'none';
+  return { templateName: template.name, mesh: standUpright(mesh, turn), facts, upright: templateId in UPRIGHT_TURN };
+}
+
+/** Applies the turn, then rests the mesh on z = 0 and centres it on x and y. */
+function standUpright(mesh: IndexedMesh, turn: 'none' | 'turn-over-y'): IndexedMesh {
+  const p = Float32Array.from(mesh.positions);
+  if (turn === 'turn-over-y') for (let i = 0; i < p.length; i += 3) { p[i] = -p[i]; p[i + 2] = -p[i + 2]; }
+  const min = [Infinity, Infinity, Infinity];
+  const max = [-Infinity, -Infinity, -Infinity];
+  for (let i = 0; i < p.length; i++) {
+    min[i % 3] = Math.min(min[i % 3], p[i]);
+    max[i % 3] = Math.max(max[i % 3], p[i]);
+  }
+  const shift = [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, min[2]];
+  for (let i = 0; i < p.length; i++) p[i] -= shift[i % 3];
+  return { positions: p, indices: mesh.indices };
+}
