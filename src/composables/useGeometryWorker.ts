@@ -1,4 +1,4 @@
-import { onBeforeUnmount, ref, shallowRef } from 'vue';
+import { onScopeDispose, ref, shallowRef } from 'vue';
 import type { Region } from '../../shared/schemas/birdfit';
 import type { GeometryRequest, GeometryResponse } from '../workers/geometryProtocol';
 
@@ -103,7 +103,7 @@ export function useGeometryWorker() {
     pump();
   }
 
-  onBeforeUnmount(() => {
+  onScopeDispose(() => {
     restart();
     queued = null;
   });

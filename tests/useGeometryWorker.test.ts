@@ -1,0 +1,148 @@
+/**
+ * The editor's geometry worker client: one build in flight, newer requests replace queued ones, stale answers are
+ * dropped, errors name the parameter, a build over the time limit restarts the worker. Runs against a stand-in
+ * Worker (no browser): what is checked is the request bookkeeping, the real worker runs in the browser test.
+ * Expected behaviour is our own design (latest request wins), no outside source.
+ */
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { effectScope } from 'vue';
+import { useGeometryWorker } from '../src/composables/useGeometryWorker';
+import type { GeometryRequest, GeometryResponse } from '../src/workers/geometryProtocol';
+
+class StandInWorker {
+  static created: StandInWorker[] = [];
+  posted: GeometryRequest[] = [];
+  terminated = false;
+  onmessage: ((event: MessageEvent<GeometryResponse>) => void) | null = null;
+  onerror: ((event: ErrorEvent) => void) | null = null;
+  constructor(
+    readonly url: URL,
+    readonly options: WorkerOptions,
+  ) {
+    StandInWorker.created.push(this);
+  }
+  postMessage(request: GeometryRequest): void {
+    this.posted.push(request);
+  }
+  terminate(): void {
+    this.terminated = true;
+  }
+  answer(response: GeometryResponse): void {
+    this.onmessage?.({ data: response } as MessageEvent<GeometryResponse>);
+  }
+}
+
+function okAnswer(requestId: number, sha256: string): GeometryResponse {
+  return {
+    requestId,
+    ok: true,
+    templateVersion: 1,
+    mesh: { positions: new Float32Array(9), indices: new Uint32Array([0, 1, 2]) },
+    overhangMask: null,
+    facts: {
+      entryHoleDiameterMm: 32,
+      floorWidthMm: 120,
+      floorDepthMm: 120,
+      cavityDepthMm: 160,
+      holeAboveFloorMm: 130,
+      wallThicknessMm: 3,
+      hasPerch: false,
+      drainageHoleCount: 4,
+      ventilationAreaMm2: 360,
+      cleaningAccess: true,
+      chambers: 1,
+    },
+    figures: {
+      volumeMm3: 1,
+      surfaceAreaMm2: 1,
+      boundingBoxMm: [1, 1, 1],
+      triangleCount: 1,
+      bodyCount: 1,
+      overhangAreaMm2: 0,
+      supportVolumeMm3: 0,
+      fitsPrinter: true,
+      production: null,
+      birdFit: null,
+      unavailable: [],
+    },
+    sha256,
+    timingsMs: { build: 1, analysis: 1, total: 2 },
+  };
+}
+
+beforeEach(() => {
+  StandInWorker.created = [];
+  vi.stubGlobal('Worker', StandInWorker);
+});
+afterEach(() => {
+  vi.unstubAllGlobals();
+  vi.useRealTimers();
+});
+
+describe('useGeometryWorker', () => {
+  it('keeps one build in flight, sends only the latest queued request and drops stale answers', () => {
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('gable-box', { entryHoleDiameterMm: 28 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 30 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, 'workhorse-220');
+    const worker = StandInWorker.created[0];
+    expect(StandInWorker.created).toHaveLength(1);
+    expect(worker.options).toEqual({ type: 'module' });
+    expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([28]);
+    expect(geometry.busy.value).toBe(true);
+
+    // The first answer is stale (two newer requests exist): dropped; the latest queued request goes next.
+    worker.answer(okAnswer(worker.posted[0].requestId, 'a'.repeat(64)));
+    expect(geometry.result.value).toBeNull();
+    expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([28, 32]);
+    expect(geometry.busy.value).toBe(true);
+
+    worker.answer(okAnswer(worker.posted[1].requestId, 'b'.repeat(64)));
+    expect(geometry.result.value?.sha256).toBe('b'.repeat(64));
+    expect(geometry.busy.value).toBe(false);
+    expect(geometry.error.value).toBeNull();
+
+    scope.stop();
+    expect(worker.terminated).toBe(true);
+  });
+
+  it('shows a parameter error with its field, and clears it on the next good build', () => {
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('gable-box', { entryHoleDiameterMm: 99 }, 'workhorse-220');
+    const worker = StandInWorker.created[0];
+    worker.answer({
+      requestId: worker.posted[0].requestId,
+      ok: false,
+      field: 'entryHoleDiameterMm',
+      message: 'entryHoleDiameterMm must be between 22 and 65 mm',
+    });
+    expect(geometry.error.value).toContain('between 22 and 65 mm');
+    expect(geometry.errorField.value).toBe('entryHoleDiameterMm');
+    expect(geometry.busy.value).toBe(false);
+
+    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, 'workhorse-220');
+    worker.answer(okAnswer(worker.posted[1].requestId, 'c'.repeat(64)));
+    expect(geometry.error.value).toBeNull();
+    expect(geometry.errorField.value).toBeNull();
+    scope.stop();
+  });
+
+  it('stops a build that runs past the time limit, says so, and starts a new worker for the next request', () => {
+    vi.useFakeTimers();
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('bark-trunk', {}, 'workhorse-220');
+    const first = StandInWorker.created[0];
+    vi.advanceTimersByTime(31_000);
+    expect(first.terminated).toBe(true);
+    expect(geometry.error.value).toMatch(/took longer than 30 s/);
+    expect(geometry.busy.value).toBe(false);
+
+    geometry.request('bark-trunk', { storeys: 1 }, 'workhorse-220');
+    expect(StandInWorker.created).toHaveLength(2);
+    expect(StandInWorker.created[1].posted).toHaveLength(1);
+    scope.stop();
+  });
+});
