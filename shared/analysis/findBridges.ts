@@ -13,10 +13,10 @@ export interface BridgeOptions {
 }
 
 /**
- * Finds bridges: connected regions of flat downward faces (not on the plate) whose two opposite sides, across the
- * region's shorter horizontal extent, both meet walls that go down, so the extruded lines are held at both ends.
+ * Finds bridges: connected regions of flat downward faces (not on the plate) whose two opposite sides (along x or
+ * along y in build orientation) both meet walls that go down, so the extruded lines are held at both ends.
  * A region held on one side only (a cantilever) is an overhang for the support estimate, not a bridge.
- * The span is the shorter side of the region's x-y bounding box in build orientation.
+ * The span is the region's bounding-box extent between the holding sides (the shorter one when held both ways).
  * @param mesh - the part in build orientation
  * @param neighbours - face across each edge (from meshTopology)
  * @param plateZMm - height of the build plate
@@ -81,28 +81,32 @@ export function findBridges(
       areaSum += area[t];
     }
     const zMm = zSum / (3 * areaSum);
-    const spanAlongX = x1 - x0 <= y1 - y0;
-    const lo = spanAlongX ? x0 : y0;
-    const hi = spanAlongX ? x1 : y1;
-    const span = hi - lo;
-    const reach = Math.max(span * 0.1, 0.5);
-    let heldLow = false;
-    let heldHigh = false;
+    // Held at both ends along x, along y, or both: the span is the extent between the holding walls.
+    const reachX = Math.max((x1 - x0) * 0.1, 0.5);
+    const reachY = Math.max((y1 - y0) * 0.1, 0.5);
+    let heldX0 = false, heldX1 = false, heldY0 = false, heldY1 = false;
     for (const t of faces) {
       for (let k = 0; k < 3; k++) {
         const n = neighbours[t * 3 + k];
         if (n >= 0 && region[n] === seed) continue;
-        // a boundary edge: is the part below it (a wall going down from here)?
+        // a boundary edge: does the part go down from here (a wall under the edge)?
         if (n < 0 || minZ[n] > zMm - 0.5) continue;
         const va = idx[t * 3 + k] * 3;
         const vb = idx[t * 3 + ((k + 1) % 3)] * 3;
-        const axis = spanAlongX ? 0 : 1;
-        const mid = (p[va + axis] + p[vb + axis]) / 2;
-        if (mid <= lo + reach) heldLow = true;
-        if (mid >= hi - reach) heldHigh = true;
+        const mx = (p[va] + p[vb]) / 2;
+        const my = (p[va + 1] + p[vb + 1]) / 2;
+        const alongY = Math.abs(p[va] - p[vb]) <= Math.abs(p[va + 1] - p[vb + 1]); // edge runs along y: holds x ends
+        if (alongY && mx <= x0 + reachX) heldX0 = true;
+        if (alongY && mx >= x1 - reachX) heldX1 = true;
+        if (!alongY && my <= y0 + reachY) heldY0 = true;
+        if (!alongY && my >= y1 - reachY) heldY1 = true;
       }
     }
-    if (!heldLow || !heldHigh) continue;
+    const spans: number[] = [];
+    if (heldX0 && heldX1) spans.push(x1 - x0);
+    if (heldY0 && heldY1) spans.push(y1 - y0);
+    if (spans.length === 0) continue;
+    const span = Math.min(...spans);
     bridges.push({
       spanMm: span,
       areaMm2: areaSum,

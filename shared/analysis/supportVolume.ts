@@ -40,7 +40,7 @@ export function supportVolume(
   options: SupportVolumeOptions = {},
 ): SupportVolumeResult {
   const maxRays = options.maxRays ?? 200_000;
-  const minPitchMm = options.minPitchMm ?? 0.2;
+  const minPitchMm = options.minPitchMm ?? 0.1;
   const p = mesh.positions;
   const idx = mesh.indices;
   let projected = 0;
