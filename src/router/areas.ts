@@ -1,7 +1,11 @@
 import type { Component } from 'vue';
 import type { Role } from '../../shared/schemas/auth';
+import IconCatalogue from '../components/icons/IconCatalogue.vue';
 import IconDesigns from '../components/icons/IconDesigns.vue';
+import IconFamilies from '../components/icons/IconFamilies.vue';
+import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
+import IconReview from '../components/icons/IconReview.vue';
 
 /** One area of the product: a nav entry and a home-screen card. */
 export interface Area {
@@ -33,12 +37,44 @@ export const AREAS: readonly Area[] = [
     icon: IconDesigns,
   },
   {
+    id: 'families',
+    label: 'Families',
+    description: 'Spread a design into sizes, trims and colours, check every variant and submit the family for review.',
+    path: '/families',
+    roles: ['designer'],
+    icon: IconFamilies,
+  },
+  {
+    id: 'review',
+    label: 'Review',
+    description: 'Check submitted families variant by variant; approve, send back with comments, publish or retire.',
+    path: '/review',
+    roles: ['catalogue_manager'],
+    icon: IconReview,
+  },
+  {
+    id: 'catalogue',
+    label: 'Catalogue',
+    description: 'Find every published variant with its SKU, price and key figures.',
+    path: '/catalogue',
+    roles: ['sales', 'catalogue_manager', 'designer'],
+    icon: IconCatalogue,
+  },
+  {
     id: 'people',
     label: 'People',
     description: 'Add people to the studio and choose what each of them may do.',
     path: '/admin/people',
     roles: ['admin'],
     icon: IconPeople,
+  },
+  {
+    id: 'mail',
+    label: 'E-mail',
+    description: 'Read the messages Nestwright sent to the development mail server, and the outgoing queue.',
+    path: '/admin/mail',
+    roles: ['admin'],
+    icon: IconMail,
   },
 ];
 

@@ -1,0 +1,57 @@
+/**
+ * Formats the figures family, review and catalogue screens show: money from cents, volumes, masses, durations.
+ * Millimetres inside; the units are written next to the number.
+ */
+
+/**
+ * Money from integer cents, e.g. `$12.40`.
+ * @param cents - amount in cents
+ * @param currency - ISO 4217 code
+ */
+export function formatCents(cents: number, currency = 'USD'): string {
+  return new Intl.NumberFormat('en', { style: 'currency', currency }).format(cents / 100);
+}
+
+/**
+ * A volume in cm³ from mm³, one decimal (`12.5 cm³`); small volumes keep mm³.
+ * @param volumeMm3 - volume in cubic millimetres
+ */
+export function formatVolumeMm3(volumeMm3: number): string {
+  return volumeMm3 < 1000 ? `${Math.round(volumeMm3)} mm³` : `${(volumeMm3 / 1000).toFixed(1)} cm³`;
+}
+
+/**
+ * A mass in grams, one decimal.
+ * @param massG - mass in grams
+ */
+export function formatMassG(massG: number): string {
+  return `${massG.toFixed(1)} g`;
+}
+
+/**
+ * A duration from minutes as `3 h 25 min`.
+ * @param minutes - duration in minutes
+ */
+export function formatMinutes(minutes: number): string {
+  const rounded = Math.round(minutes);
+  const hours = Math.floor(rounded / 60);
+  return hours ? `${hours} h ${rounded % 60} min` : `${rounded} min`;
+}
+
+/**
+ * An axis value as people read it: numbers as written, booleans as yes/no, ids with spaces.
+ * @param value - the axis value
+ */
+export function formatAxisValue(value: unknown): string {
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  if (typeof value === 'string') return value.replace(/-/g, ' ');
+  return String(value);
+}
+
+/**
+ * A date and time in the reader's locale, short.
+ * @param iso - ISO timestamp
+ */
+export function formatWhen(iso: string): string {
+  return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+}
