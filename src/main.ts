@@ -11,10 +11,21 @@ import '@fontsource/jetbrains-mono/400.css';
 import '@fontsource/jetbrains-mono/600.css';
 import './styles/base.css';
 import App from './App.vue';
+import { setUnauthorizedHandler } from './api/client';
 import { router } from './router';
+import { useSessionStore } from './stores/session';
 
 const app = createApp(App);
 app.use(createPinia());
 app.use(router);
+
+// A session that expires while a screen is open: forget the person and ask them to sign in again, then return.
+setUnauthorizedHandler(() => {
+  const session = useSessionStore();
+  if (!session.signedIn) return;
+  session.forget();
+  const here = router.currentRoute.value;
+  if (!here.meta.public) void router.replace({ name: 'sign-in', query: { next: here.fullPath } });
+});
 // The guard loads the session before the first screen shows, so no signed-out flash.
 void router.isReady().then(() => app.mount('#app'));

@@ -16,6 +16,17 @@ export interface ApiRequest<T> {
   signal?: AbortSignal;
 }
 
+let onUnauthorized: ((path: string) => void) | null = null;
+
+/**
+ * Registers what happens when a call answers 401 (the session expired or was ended elsewhere): main.ts clears the
+ * session and sends the person to sign in. Not called for the sign-in and `me` calls, whose 401 is expected.
+ * @param handler - receives the API path that answered 401
+ */
+export function setUnauthorizedHandler(handler: ((path: string) => void) | null): void {
+  onUnauthorized = handler;
+}
+
 /**
  * Calls the Nestwright API: JSON in and out, same-origin cookies, error answers thrown as {@link ApiError}.
  * @param path - path under `/api`, e.g. `/auth/me`
@@ -48,6 +59,7 @@ export async function api<T = unknown>(path: string, request: ApiRequest<T> = {}
     }
   }
   if (!res.ok) {
+    if (res.status === 401 && !path.startsWith('/auth/')) onUnauthorized?.(path);
     const retryAfterSec = parseRetryAfter(res.headers.get('Retry-After'));
     const parsed = ApiErrorSchema.safeParse(json);
     if (parsed.success) {

@@ -52,6 +52,12 @@ export const useSessionStore = defineStore('session', () => {
     loaded.value = true;
   }
 
+  /** Forgets the person without asking the server (their session already ended there). */
+  function forget(): void {
+    person.value = null;
+    loading = Promise.resolve();
+  }
+
   /** Signs out; the local session is cleared even when the server cannot be reached. */
   async function signOut(): Promise<void> {
     try {
@@ -62,5 +68,5 @@ export const useSessionStore = defineStore('session', () => {
     }
   }
 
-  return { person, roles, signedIn, loaded, hasRole, load, signIn, signOut };
+  return { person, roles, signedIn, loaded, hasRole, load, signIn, signOut, forget };
 });

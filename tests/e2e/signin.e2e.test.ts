@@ -152,6 +152,24 @@ describe('sign-in, home screen and sign-out', () => {
     await page.context().close();
   });
 
+  it('asks for sign-in again when the session ends while a screen is open, then returns there', async () => {
+    const page = await e2e.newPage();
+    const admin = await e2e.signInAs(page, 'admin');
+    // The session ends on the server behind the app's back (as when it expires or is ended in another tab).
+    const status = await page.evaluate(async () => (await fetch('/api/auth/sign-out', { method: 'POST' })).status);
+    expect(status).toBeLessThan(300);
+    await page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: 'People' }).click();
+    await page.waitForURL((url) => url.pathname === '/sign-in');
+    expect(new URL(page.url()).searchParams.get('next')).toBe('/admin/people');
+    await page.getByLabel('E-mail').fill(admin.email);
+    await page.getByLabel('Password', { exact: true }).fill(admin.password);
+    await page.keyboard.press('Enter');
+    await page.waitForURL((url) => url.pathname === '/admin/people');
+    await page.getByRole('cell', { name: admin.email }).waitFor();
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  });
+
   it('lets the admin see the people table, add a person and change their roles', async () => {
     const page = await e2e.newPage();
     await e2e.signInAs(page, 'admin');
