@@ -102,6 +102,15 @@ describe('designer configurator', () => {
       // The figure panel shows the box dimensions the bird-fit rules read.
       expect(await page.getByTestId('bird-fit').textContent()).toContain(`${moved.toFixed(1)} mm`);
 
+      // Switching the perch on shows why guidance advises against it.
+      // source: USFWS "For the Birds" and Cornell NestWatch via trade-facts §1c — no perch on a nest box
+      if (describeParameters(template).some((param) => param.key === 'perch')) {
+        expect(await page.getByTestId('bird-warnings').textContent()).not.toMatch(/perch/i);
+        await page.getByTestId('param-perch').locator('.n-switch').click();
+        await waitForBuild(page, secondHash);
+        expect(await page.getByTestId('bird-warnings').textContent()).toMatch(/perch/i);
+      }
+
       await page.screenshot({ path: `${SHOTS}/editor-${templateId}.png` });
       expect(e2e.problems(page)).toEqual([]);
       await page.context().close();
