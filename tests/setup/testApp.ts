@@ -36,15 +36,27 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-let snapshot: Promise<Buffer> | undefined;
+const snapshots = new Map<'seeded' | 'migrated', Promise<Buffer>>();
+
+/**
+ * A database snapshot made once per test run by ./global.ts.
+ * @param kind - `seeded` (demo data in) or `migrated` (a new database that was never seeded)
+ */
+export async function loadSnapshot(kind: 'seeded' | 'migrated' = 'seeded'): Promise<Blob> {
+  let bytes = snapshots.get(kind);
+  if (!bytes) {
+    bytes = readFile(inject(kind === 'seeded' ? 'pgSnapshotPath' : 'pgMigratedSnapshotPath'));
+    snapshots.set(kind, bytes);
+  }
+  return new Blob([new Uint8Array(await bytes)]);
+}
 
 /**
  * A fresh app on its own copy of the seeded database (about a second).
  * @param envOverrides - environment settings for this app (PUBLIC_ORIGIN defaults to {@link TEST_ORIGIN})
  */
 export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<TestApp> {
-  snapshot ??= readFile(inject('pgSnapshotPath'));
-  const { pg, db } = await openDatabase({ loadDataDir: new Blob([new Uint8Array(await snapshot)]) });
+  const { pg, db } = await openDatabase({ loadDataDir: await loadSnapshot('seeded') });
   const env: Env = { ...EnvSchema.parse({ NODE_ENV: 'test', PUBLIC_ORIGIN: TEST_ORIGIN }), ...envOverrides };
   const logs: string[] = [];
   const ctx = createContext({ db, pg, env, log: (line) => logs.push(line) });
