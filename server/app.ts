@@ -11,6 +11,10 @@ import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
 import { presetsRouter } from './routes/presets';
+import { familiesRouter } from './routes/families';
+import { catalogueRouter } from './routes/catalogue';
+import { photosRouter } from './routes/photos';
+import { mailRouter } from './routes/mail';
 import { exportsRouter } from './routes/exports';
 import { templatesRouter } from './routes/templates';
 
@@ -47,6 +51,10 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/auth', authRouter(ctx));
   app.use('/api/people', peopleRouter(ctx));
   app.use('/api/presets', presetsRouter(ctx));
+  app.use('/api/families', familiesRouter(ctx));
+  app.use('/api/catalogue', catalogueRouter(ctx));
+  app.use('/api/photos', photosRouter(ctx));
+  app.use('/api/mail', mailRouter(ctx));
   app.use('/api/templates', templatesRouter());
   app.use('/api/exports', exportsRouter(ctx));
 

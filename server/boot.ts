@@ -6,6 +6,7 @@ import { createApp } from './app';
 import { createContext, type AppContext, type Log } from './context';
 import { migrateDatabase, openDatabase } from './db/client';
 import { seedIfNew } from './db/seed';
+import { startFamilyServices } from './services/familyServices';
 import { loadEnv, type Env } from './env';
 
 /** Options of {@link boot}. */
@@ -61,6 +62,7 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   await listen(server, options.port ?? env.PORT);
   const { port } = server.address() as AddressInfo;
   stage(`listening on port ${port}`);
+  await startFamilyServices(ctx, server);
 
   let closing: Promise<void> | undefined;
   return {

@@ -6,7 +6,20 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../shared/schemas/auth';
 import { demoPersonId } from '../server/db/seedDemo';
+import { eq } from 'drizzle-orm';
+import { families } from '../server/db/schema';
+import {
+  acknowledgeAll,
+  computeNow,
+  createTestFamily,
+  familyInState,
+  oncePerApp,
+  pngBytes,
+  smallFamilyBody,
+} from './familiesFixtures';
 import { listRoutes } from './setup/listRoutes';
+import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
+import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -24,6 +37,8 @@ interface AuthzRow {
   body?: unknown | ((role: Role | null) => unknown);
   /** The call ends the session (sign-out): use a fresh agent for it. */
   consumesSession?: boolean;
+  /** A multipart file upload instead of a JSON body. */
+  attach?: { field: string; filename: string; bytes: () => Promise<Buffer> };
 }
 
 /** Every API route. Keep in the order of server/app.ts. */
@@ -74,6 +89,126 @@ const ROUTES: AuthzRow[] = [
     body: (role: Role | null) => ({ name: `Authz renamed ${role ?? 'nobody'}` }),
   },
   { method: 'delete', route: '/api/presets/:id', path: designerPresetPath, allowed: ['designer'] },
+  // Families: designers build, catalogue managers review; the state-changing rows get a family in the right state.
+  { method: 'get', route: '/api/families', allowed: ['designer', 'catalogue_manager'] },
+  {
+    method: 'post',
+    route: '/api/families',
+    allowed: ['designer'],
+    body: () => smallFamilyBody(),
+  },
+  { method: 'get', route: '/api/families/:id', path: seededFamilyPath('HGB'), allowed: ['designer', 'catalogue_manager'] },
+  {
+    method: 'patch',
+    route: '/api/families/:id',
+    path: draftFamilyPath,
+    allowed: ['designer'],
+    body: { name: 'Renamed Test Gable' },
+  },
+  { method: 'post', route: '/api/families/:id/compute', path: computeFamilyPath, allowed: ['designer'] },
+  { method: 'post', route: '/api/families/:id/cancel', path: cancelFamilyPath, allowed: ['designer'] },
+  {
+    method: 'get',
+    route: '/api/families/:id/progress',
+    path: seededFamilyPath('HGB', '/progress'),
+    allowed: ['designer', 'catalogue_manager'],
+  },
+  {
+    method: 'get',
+    route: '/api/families/:id/variants',
+    path: seededFamilyPath('HGB', '/variants'),
+    allowed: ['designer', 'catalogue_manager'],
+  },
+  {
+    method: 'post',
+    route: '/api/families/:id/acknowledgements',
+    path: ackFamilyPath,
+    allowed: ['designer'],
+    body: { acknowledgements: [{ code: 'thin-walls', text: 'Walls are 10 mm printed PLA; listing carries the heat caution.' }] },
+  },
+  { method: 'post', route: '/api/families/:id/submit', path: submittableFamilyPath, allowed: ['designer'], body: {} },
+  {
+    method: 'post',
+    route: '/api/families/:id/approve',
+    path: seededFamilyPath('CAF', '/approve'),
+    allowed: ['catalogue_manager'],
+    body: { comment: 'Looks right.' },
+  },
+  {
+    method: 'post',
+    route: '/api/families/:id/return',
+    path: inReviewFamilyPath,
+    allowed: ['catalogue_manager'],
+    body: { comments: 'Please add a photo of the floor plug.' },
+  },
+  { method: 'post', route: '/api/families/:id/publish', path: approvedFamilyPath, allowed: ['catalogue_manager'], body: {} },
+  {
+    method: 'post',
+    route: '/api/families/:id/retire',
+    path: seededFamilyPath('HGB', '/retire'),
+    allowed: ['catalogue_manager'],
+    body: {},
+  },
+  {
+    method: 'get',
+    route: '/api/families/:id/diff',
+    path: seededFamilyPath('HGB', '/diff?from=1&to=1'),
+    allowed: ['designer', 'catalogue_manager'],
+  },
+  {
+    method: 'get',
+    route: '/api/families/:id/audit',
+    path: seededFamilyPath('HGB', '/audit'),
+    allowed: ['designer', 'catalogue_manager'],
+  },
+  {
+    method: 'post',
+    route: '/api/families/:id/photos',
+    path: seededFamilyPath('MGB', '/photos'),
+    allowed: ['designer'],
+    attach: { field: 'photo', filename: 'sample.png', bytes: () => pngBytes() },
+  },
+  { method: 'get', route: '/api/catalogue', allowed: ['sales', 'catalogue_manager', 'designer'] },
+  { method: 'get', route: '/api/photos/:id', path: photoPath(''), allowed: 'signed-in' },
+  { method: 'get', route: '/api/photos/:id/thumb', path: photoPath('/thumb'), allowed: 'signed-in' },
+  { method: 'get', route: '/api/mail/messages', allowed: ['admin'] },
+  // Sales: spec sheets, price lists, quotes (sales and catalogue managers); settings (read: + admin, write: admin).
+  {
+    method: 'get',
+    route: '/api/variants/:sku/spec-sheet.pdf',
+    path: salesPath(() => `/api/variants/${FIXTURE_SKUS[0]}/spec-sheet.pdf`),
+    allowed: ['sales', 'catalogue_manager'],
+  },
+  {
+    method: 'get',
+    route: '/api/families/:id/spec-sheet.pdf',
+    path: salesPath((familyId) => `/api/families/${familyId}/spec-sheet.pdf`),
+    allowed: ['sales', 'catalogue_manager'],
+  },
+  { method: 'get', route: '/api/price-list.csv', allowed: ['sales', 'catalogue_manager'] },
+  { method: 'get', route: '/api/price-list.xlsx', allowed: ['sales', 'catalogue_manager'] },
+  { method: 'get', route: '/api/quotes', allowed: ['sales', 'catalogue_manager'] },
+  {
+    method: 'post',
+    route: '/api/quotes',
+    path: salesPath(() => '/api/quotes'),
+    allowed: ['sales', 'catalogue_manager'],
+    body: (role: Role | null) => ({
+      sku: FIXTURE_SKUS[0],
+      quantity: 10,
+      deliveryDate: '2099-01-31',
+      customerName: `Authz ${role ?? 'nobody'}`,
+    }),
+  },
+  {
+    method: 'get',
+    route: '/api/quotes/:id.pdf',
+    path: async (t) => `${await salesQuotePath(t)}.pdf`,
+    allowed: ['sales', 'catalogue_manager'],
+  },
+  { method: 'get', route: '/api/quotes/:id', path: salesQuotePath, allowed: ['sales', 'catalogue_manager'] },
+  { method: 'get', route: '/api/settings/sales', allowed: ['sales', 'catalogue_manager', 'admin'] },
+  { method: 'put', route: '/api/settings/sales', allowed: ['admin'], body: DEFAULT_SALES_SETTINGS },
 ];
 
 /** A new preset of the demo designer (one per call, so a delete in one case does not affect the next). */
@@ -84,6 +219,56 @@ async function designerPresetPath(t: TestApp): Promise<string> {
     .send({ templateId: 'gable-box', name: `Authz probe ${crypto.randomUUID()}`, params: {} });
   if (res.status !== 201) throw new Error(`Could not create a preset: ${res.status} ${JSON.stringify(res.body)}`);
   return `/api/presets/${res.body.id as string}`;
+}
+
+/** `/api/families/<id><suffix>` of a seeded demo family (HGB published, CAF in review, MGB draft). */
+function seededFamilyPath(code: string, suffix = ''): (t: TestApp) => Promise<string> {
+  return async (t) => {
+    const [row] = await t.ctx.db.select({ id: families.id }).from(families).where(eq(families.code, code));
+    return `/api/families/${row.id}${suffix}`;
+  };
+}
+
+const draftFamily = oncePerApp((t) => createTestFamily(t));
+const computeFamily = oncePerApp((t) => createTestFamily(t));
+const ackFamily = oncePerApp((t) => createTestFamily(t));
+const submittableFamily = oncePerApp(async (t) => {
+  const family = await createTestFamily(t);
+  await computeNow(t, family.id);
+  return acknowledgeAll(t, family.id);
+});
+const inReviewFamily = oncePerApp((t) => familyInState(t, 'in_review'));
+const approvedFamily = oncePerApp((t) => familyInState(t, 'approved'));
+const photo = oncePerApp(async (t) => {
+  const path = await seededFamilyPath('MGB', '/photos')(t);
+  const res = await (await t.agent('designer')).post(path).attach('photo', await pngBytes(), 'sample.png');
+  if (res.status !== 201) throw new Error(`Could not upload a photo: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.photo as { id: string };
+});
+
+async function draftFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await draftFamily(t)).id}`;
+}
+async function computeFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await computeFamily(t)).id}/compute`;
+}
+async function cancelFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await computeFamily(t)).id}/cancel`;
+}
+async function ackFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await ackFamily(t)).id}/acknowledgements`;
+}
+async function submittableFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await submittableFamily(t)).id}/submit`;
+}
+async function inReviewFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await inReviewFamily(t)).id}/return`;
+}
+async function approvedFamilyPath(t: TestApp): Promise<string> {
+  return `/api/families/${(await approvedFamily(t)).id}/publish`;
+}
+function photoPath(suffix: string): (t: TestApp) => Promise<string> {
+  return async (t) => `/api/photos/${(await photo(t)).id}${suffix}`;
 }
 
 const CALLERS: Array<Role | null> = [...ROLES, null];
@@ -113,6 +298,7 @@ describe('authorization table', () => {
     const path = row.path ? await row.path(t) : row.route;
     const body = typeof row.body === 'function' ? (row.body as (role: Role | null) => unknown)(caller) : row.body;
     let request = agent[row.method](path);
+    if (row.attach) request = request.attach(row.attach.field, await row.attach.bytes(), row.attach.filename);
     if (body !== undefined) request = request.send(body as object);
     const res = await request;
     const want = expected(row, caller);
@@ -135,3 +321,18 @@ describe('authorization table', () => {
     expect(notMounted, 'rows in ROUTES that the app does not mount').toEqual([]);
   });
 });
+
+/** A path that needs the published sales fixture family (tests/salesFixtures.ts) in the test database. */
+function salesPath(build: (familyId: string) => string): (t: TestApp) => Promise<string> {
+  return async (t) => build((await ensureSalesFixture(t.ctx.db)).familyId);
+}
+
+/** `/api/quotes/<id>` of a new quote made by the demo sales person. */
+async function salesQuotePath(t: TestApp): Promise<string> {
+  await ensureSalesFixture(t.ctx.db);
+  const res = await (await t.agent('sales'))
+    .post('/api/quotes')
+    .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-31', customerName: 'Authz probe' });
+  if (res.status !== 201) throw new Error(`Could not create a quote: ${res.status} ${JSON.stringify(res.body)}`);
+  return `/api/quotes/${res.body.id as string}`;
+}

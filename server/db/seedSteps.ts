@@ -3,3 +3,4 @@
  */
 import './seedProduction';
 import './seedDemo';
+import './seedFamilies';

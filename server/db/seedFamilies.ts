@@ -1,0 +1,150 @@
+/**
+ * Demo families of the invented Fernhollow Studio: one published, one in review, one draft, so the family screens,
+ * the review queue and the catalogue show real, computed products. Published and in-review variants are computed
+ * here (inline, a few seconds); the draft is left for the designer to compute.
+ */
+import { eq } from 'drizzle-orm';
+import type { Person } from '../../shared/schemas/auth';
+import type { FamilyCreate } from '../../shared/schemas/family';
+import { FamilyCreateSchema } from '../../shared/schemas/family';
+import type { BirdFitWarning } from '../../shared/schemas/birdfit';
+import { computeRevision } from '../jobs/computeRevision';
+import { computeVariantGeometry } from '../jobs/variantGeometry';
+import { EnvSchema } from '../env';
+import {
+  acknowledgeWarnings,
+  createFamily,
+  currentRevisionId,
+  getFamily,
+  transitionFamily,
+  type FamilyContext,
+} from '../services/familyService';
+import type { Db } from './client';
+import { people } from './schema';
+import { DEMO_PEOPLE } from './seedDemo';
+import { registerSeedStep } from './seedRegistry';
+
+/** The studio's written answers to bird-fit warnings (our own wording for the demo). */
+const DEMO_ACKNOWLEDGEMENTS: Partial<Record<BirdFitWarning['code'], string>> = {
+  'thin-walls':
+    'Walls are 10 mm printed PLA with air-filled infill, thinner than 15 mm timber; every listing carries the heat caution and advises a shaded, north-to-east facing spot.',
+  'hole-too-high-for-cavity':
+    'Checked against the species table: the hole sits close to the roof in the smallest cavity; the listing names the species it suits and we will deepen the cavity in the next revision.',
+  'admits-starlings': 'Sold for regions where starlings are native only; the listing says so.',
+  'admits-house-sparrows': 'The listing says which regions should avoid this entry size.',
+  perch: 'The perch is left off in every variant of this family.',
+};
+
+const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 'draft' }> = [
+  {
+    target: 'published',
+    body: {
+      code: 'HGB',
+      name: 'Hedgerow Gable',
+      description: 'Pitched-roof box for small hole-nesting birds of gardens and hedgerows, in three entry sizes.',
+      templateId: 'gable-box',
+      baseParams: { cavityDepthMm: 160, holeAboveFloorMm: 125 },
+      axes: [
+        { kind: 'param', key: 'entryHoleDiameterMm', values: [25, 28, 32] },
+        { kind: 'param', key: 'trimStyle', values: ['none', 'shingles'] },
+        { kind: 'attribute', key: 'colour', values: ['sand', 'moss-green'] },
+      ],
+      supportBudgetMm3: 12_000,
+      printerId: 'workhorse-220',
+      materialId: 'pla',
+      region: 'europe',
+    },
+  },
+  {
+    target: 'in_review',
+    body: {
+      code: 'CAF',
+      name: 'Copse A-frame',
+      description: 'Steep A-frame with shingle trim and a landing dowel on the build plate.',
+      templateId: 'a-frame',
+      baseParams: {},
+      axes: [
+        { kind: 'param', key: 'entryHoleDiameterMm', values: [28, 32] },
+        { kind: 'attribute', key: 'colour', values: ['bark-brown', 'sand'] },
+      ],
+      supportBudgetMm3: 10_000,
+      printerId: 'workhorse-220',
+      materialId: 'pla',
+      region: 'europe',
+    },
+  },
+  {
+    target: 'draft',
+    body: {
+      code: 'MGB',
+      name: 'Meadow Gable',
+      description: 'A brighter gable box with an optional UV clear coat, still being worked on.',
+      templateId: 'gable-box',
+      baseParams: { cavityDepthMm: 160, holeAboveFloorMm: 125 },
+      axes: [
+        { kind: 'param', key: 'entryHoleDiameterMm', values: [28, 32] },
+        { kind: 'attribute', key: 'finish', values: ['none', 'uv-clear-coat'] },
+        { kind: 'attribute', key: 'colour', values: ['white', 'sand'] },
+      ],
+      supportBudgetMm3: 12_000,
+      printerId: 'workhorse-220',
+      materialId: 'pla',
+      region: 'europe',
+    },
+  },
+];
+
+async function demoPerson(db: Db, email: string): Promise<Person> {
+  const [row] = await db.select().from(people).where(eq(people.email, email));
+  if (!row) throw new Error(`Demo person ${email} is not seeded yet`);
+  return { id: row.id, email: row.email, name: row.name, roles: row.roles };
+}
+
+/**
+ * Adds the demo families, computing and reviewing them as far as each one's target state.
+ * @param db - a database with the demo people and production defaults
+ * @param log - progress lines
+ */
+export async function seedFamilies(db: Db, log: (line: string) => void): Promise<void> {
+  const ctx: FamilyContext = { db, log, env: EnvSchema.parse({ NODE_ENV: 'development' }) };
+  const designer = await demoPerson(db, DEMO_PEOPLE.find((p) => p.roles.includes('designer'))!.email);
+  const manager = await demoPerson(db, DEMO_PEOPLE.find((p) => p.roles.includes('catalogue_manager'))!.email);
+  for (const { body, target } of FAMILIES) {
+    const started = performance.now();
+    const family = await createFamily(ctx, designer, FamilyCreateSchema.parse(body));
+    if (target !== 'draft') {
+      await computeRevision(db, await currentRevisionId(ctx, family.id), {
+        geometry: computeVariantGeometry,
+        isCancelled: () => false,
+      });
+      const computed = await acknowledgeForDemo(ctx, designer, family.id);
+      await transitionFamily(ctx, designer, family.id, 'submit');
+      if (target === 'published') {
+        await transitionFamily(ctx, manager, family.id, 'approve', { comment: 'Checked the matrix and the photos of the 28 mm sample.' });
+        await transitionFamily(ctx, manager, family.id, 'publish');
+      }
+      log(`  demo family ${body.code}: ${computed} variants computed, ${target} (${Math.round(performance.now() - started)} ms)`);
+    } else log(`  demo family ${body.code}: draft, not computed`);
+  }
+}
+
+/** Acknowledges every warning the gate asks for with the studio's text; returns the variant count. */
+async function acknowledgeForDemo(ctx: FamilyContext, designer: Person, id: string): Promise<number> {
+  const family = await getFamily(ctx, id, designer);
+  const acks = family.gate.warnings
+    .filter((warning) => warning.severity === 'warning')
+    .map((warning) => ({
+      code: warning.code,
+      text: DEMO_ACKNOWLEDGEMENTS[warning.code] ?? `Reviewed: ${warning.message}`,
+    }));
+  if (acks.length > 0) await acknowledgeWarnings(ctx, designer, id, { acknowledgements: acks });
+  return family.variantCount;
+}
+
+registerSeedStep({
+  name: 'demo-families',
+  demo: true,
+  async run({ db, log }) {
+    await seedFamilies(db, log);
+  },
+});

@@ -1,0 +1,99 @@
+import { buildPlateFit } from '../../shared/analysis/buildPlateFit';
+import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { variantVerdict } from '../../shared/families/variantVerdict';
+import { estimateProduction } from '../../shared/production/estimateProduction';
+import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
+import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
+import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/family';
+import type { Material, PrinterProfile } from '../../shared/schemas/production';
+import type { VariantGeometry } from './variantGeometry';
+
+/** Everything stored for one computed variant. */
+export interface VariantEvaluation {
+  report: VariantReport;
+  cost: VariantCost;
+  verdict: VariantVerdict;
+  reasons: string[];
+  birdFitWarnings: BirdFitWarning[];
+}
+
+/** What the evaluation needs beside the geometry. */
+export interface EvaluationContext {
+  printer: PrinterProfile;
+  material: Material;
+  supportBudgetMm3: number;
+  region: Region | null;
+}
+
+/**
+ * Turns measured geometry into a variant's report, cost, bird-fit warnings and verdict. Each body must fit the
+ * printer on its own (a box and its floor plug may go on separate plates); copies per plate counts whole units when
+ * all bodies fit one plate together, otherwise the copies of the largest body.
+ * @param geometry - what the worker measured
+ * @param context - printer, material, support budget and region
+ */
+export function evaluateVariant(geometry: VariantGeometry, context: EvaluationContext): VariantEvaluation {
+  const { printer, material } = context;
+  const plate = [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z];
+  const partFits = geometry.partSizesMm.map((size) => buildPlateFit(size, plate));
+  const together = buildPlateFit(geometry.bboxSizeMm, plate);
+  const fitsPrinter = partFits.every((fit) => fit.fits);
+  const copiesPerPlate = together.fits ? together.copiesPerPlate : fitsPrinter ? Math.min(...partFits.map((f) => f.copiesPerPlate)) : 0;
+  const heightMm = Math.max(...geometry.partSizesMm.map((size) => size[2]), 0);
+  const production = estimateProduction(
+    {
+      volumeMm3: geometry.volumeMm3,
+      surfaceAreaMm2: geometry.surfaceAreaMm2,
+      heightMm,
+      supportVolumeMm3: geometry.supportVolumeMm3,
+      bboxSizeMm: geometry.bboxSizeMm,
+      footprintMm2: geometry.footprintMm2,
+      upFacingAreaMm2: geometry.upFacingAreaMm2,
+      downFacingAreaMm2: geometry.downFacingAreaMm2,
+    },
+    printer,
+    material,
+    DEFAULT_SETTINGS,
+    DEFAULT_RATES,
+  );
+  const warnings: string[] = [];
+  if (fitsPrinter && !together.fits) warnings.push('the parts need separate build plates on this printer');
+  if (geometry.maxBridgeSpanMm > 10) warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
+  const birdFit = assessBirdFit(geometry.facts, context.region ? { region: context.region } : {});
+  const report: VariantReport = {
+    triangles: geometry.triangles,
+    volumeMm3: geometry.volumeMm3,
+    surfaceAreaMm2: geometry.surfaceAreaMm2,
+    watertight: geometry.watertight,
+    openEdges: geometry.openEdges,
+    nonManifoldEdges: geometry.nonManifoldEdges,
+    components: geometry.components,
+    partCount: geometry.partCount,
+    bboxSizeMm: geometry.bboxSizeMm,
+    overhangAreaMm2: geometry.overhangAreaMm2,
+    supportVolumeMm3: geometry.supportVolumeMm3,
+    maxBridgeSpanMm: geometry.maxBridgeSpanMm,
+    thinnestWallMm: geometry.thinnestWallMm,
+    printerId: printer.id,
+    fitsPrinter,
+    copiesPerPlate,
+    massG: production.massG,
+    filamentLengthM: production.filamentLengthM,
+    printTimeMin: production.printTimeMin,
+    facts: geometry.facts,
+    warnings,
+  };
+  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFit.warnings);
+  return {
+    report,
+    cost: {
+      currency: production.currency,
+      costCents: production.cost.totalCents,
+      breakdown: production.cost,
+      suggestedPriceCents: production.suggestedPriceCents,
+    },
+    verdict,
+    reasons,
+    birdFitWarnings: birdFit.warnings,
+  };
+}

@@ -1,0 +1,81 @@
+import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
+import type { NestBoxFacts } from '../../shared/schemas/nestbox';
+import { generate } from '../../templates/generate';
+import { partSizesMm } from './partSizes';
+
+/** Ray budgets of the family computation: the analysis defaults for support (it gates), fewer wall samples. */
+export const FAMILY_SUPPORT_RAYS = 200_000;
+/** Wall-thickness samples per variant (the wall figure is informative, not a gate). */
+export const FAMILY_WALL_SAMPLES = 4_000;
+
+/** What the worker measures for one parameter set: everything that depends on geometry alone. */
+export interface VariantGeometry {
+  templateVersion: number;
+  /** Complete parameters (defaults merged). */
+  params: Record<string, number | boolean | string>;
+  sha256: string;
+  facts: NestBoxFacts;
+  partCount: number;
+  /** Size of each printable body in build orientation, largest first. */
+  partSizesMm: Array<[number, number, number]>;
+  triangles: number;
+  volumeMm3: number;
+  surfaceAreaMm2: number;
+  upFacingAreaMm2: number;
+  downFacingAreaMm2: number;
+  footprintMm2: number;
+  bboxSizeMm: [number, number, number];
+  watertight: boolean;
+  openEdges: number;
+  nonManifoldEdges: number;
+  components: number;
+  overhangAreaMm2: number;
+  supportVolumeMm3: number;
+  maxBridgeSpanMm: number;
+  /** 5th percentile of sampled wall thickness (the minimum is dominated by knife edges at corners). */
+  thinnestWallMm: number | null;
+  timingsMs: { generate: number; analyse: number };
+}
+
+/**
+ * Builds one parameter set with the template and analyses the mesh as printed (+z up, templates already lay their
+ * parts out in build orientation).
+ * @param templateId - template id
+ * @param params - raw parameters (missing keys take defaults)
+ * @throws TemplateParamError / MeshValidationError from generate()
+ */
+export async function computeVariantGeometry(templateId: string, params: Record<string, unknown>): Promise<VariantGeometry> {
+  const started = performance.now();
+  const result = await generate(templateId, params);
+  const built = performance.now();
+  const { report } = analyzeGeometry(result.mesh, {
+    up: '+z',
+    supportMaxRays: FAMILY_SUPPORT_RAYS,
+    wallSamples: FAMILY_WALL_SAMPLES,
+  });
+  const analysed = performance.now();
+  return {
+    templateVersion: result.template.version,
+    params: result.params,
+    sha256: result.sha256,
+    facts: result.facts,
+    partCount: result.partCount,
+    partSizesMm: partSizesMm(result.mesh),
+    triangles: report.triangles,
+    volumeMm3: report.volumeMm3,
+    surfaceAreaMm2: report.surfaceAreaMm2,
+    upFacingAreaMm2: report.upFacingAreaMm2,
+    downFacingAreaMm2: report.downFacingAreaMm2,
+    footprintMm2: report.footprintMm2,
+    bboxSizeMm: report.bbox.sizeMm,
+    watertight: report.watertight,
+    openEdges: report.edges.openEdges,
+    nonManifoldEdges: report.edges.nonManifoldEdges,
+    components: report.components,
+    overhangAreaMm2: report.overhang.areaMm2,
+    supportVolumeMm3: report.supportVolumeMm3,
+    maxBridgeSpanMm: report.bridges.maxSpanMm,
+    thinnestWallMm: report.thinnestWall ? report.thinnestWall.p5Mm : null,
+    timingsMs: { generate: built - started, analyse: analysed - built },
+  };
+}

@@ -1,0 +1,180 @@
+/** `/api/families`: variant families, their computation, review workflow, photos, diff and audit log. */
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import {
+  AcknowledgementsCreateSchema,
+  FamilyCreateSchema,
+  FamilyListQuerySchema,
+  FamilyUpdateSchema,
+  PHOTO_MAX_BYTES,
+  ReturnDecisionSchema,
+  ReviewDecisionSchema,
+  RevisionDiffQuerySchema,
+  TransitionSchema,
+  VariantListQuerySchema,
+  type AcknowledgementsCreate,
+  type FamilyAction,
+  type FamilyListQuery,
+  type FamilyUpdate,
+  type ReturnDecision,
+  type ReviewDecision,
+  type VariantListQuery,
+} from '../../shared/schemas/family';
+import { FAMILY_TRANSITIONS } from '../../shared/families/familyWorkflow';
+import type { AppContext } from '../context';
+import { requireRole, signedInPerson } from '../auth/requireRole';
+import { badRequest, HttpError } from '../http/HttpError';
+import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
+import { familyJobs } from '../jobs/FamilyJobRunner';
+import * as families from '../services/familyService';
+import { addPhoto } from '../services/photoService';
+
+/** Route parameter `:id`. */
+const IdParamsSchema = z.object({ id: z.string().min(1).max(64) });
+
+/** Who reads families: designers build them, catalogue managers review them. */
+const READERS = ['designer', 'catalogue_manager'] as const;
+
+/** Multipart upload of one photo, kept in memory (at most PHOTO_MAX_BYTES) and checked by content afterwards. */
+const photoUpload: RequestHandler = (req, res, next) => {
+  multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 4 } }).single('photo')(
+    req,
+    res,
+    (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') {
+          return next(new HttpError(413, 'payload_too_large', `photo: the file is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB`));
+        }
+        return next(badRequest(`${err.field ?? 'photo'}: ${err.message}`));
+      }
+      next(err);
+    },
+  );
+};
+
+/**
+ * Builds the families router (mounted at `/api/families`).
+ * @param ctx - the application context
+ */
+export function familiesRouter(ctx: AppContext): Router {
+  const router = Router();
+  const readers = requireRole(...READERS);
+  const designers = requireRole('designer');
+  const managers = requireRole('catalogue_manager');
+  const idParams = validate({ params: IdParamsSchema });
+  const idOf = (res: Parameters<RequestHandler>[1]): string => parsedParams<{ id: string }>(res).id;
+
+  router.get('/', readers, validate({ query: FamilyListQuerySchema }), async (_req, res) => {
+    res.json({ families: await families.listFamilies(ctx, parsedQuery<FamilyListQuery>(res)) });
+  });
+
+  router.post('/', designers, validate({ body: FamilyCreateSchema }), async (_req, res) => {
+    const family = await families.createFamily(ctx, signedInPerson(res), parsedBody(res));
+    res.status(201).json({ family });
+  });
+
+  router.get('/:id', readers, idParams, async (_req, res) => {
+    res.json({ family: await families.getFamily(ctx, idOf(res), signedInPerson(res)) });
+  });
+
+  router.patch('/:id', designers, validate({ params: IdParamsSchema, body: FamilyUpdateSchema }), async (_req, res) => {
+    const family = await families.updateFamily(ctx, signedInPerson(res), idOf(res), parsedBody<FamilyUpdate>(res));
+    res.json({ family });
+  });
+
+  router.post('/:id/compute', designers, idParams, async (_req, res) => {
+    res.status(202).json(await families.startCompute(ctx, signedInPerson(res), idOf(res)));
+  });
+
+  router.post('/:id/cancel', designers, idParams, async (_req, res) => {
+    res.json(await families.cancelCompute(ctx, signedInPerson(res), idOf(res)));
+  });
+
+  router.get('/:id/progress', readers, idParams, async (req, res) => {
+    const id = idOf(res);
+    const row = { revisionId: await families.currentRevisionId(ctx, id) };
+    const jobs = familyJobs(ctx);
+    res.writeHead(200, {
+      'Content-Type': 'text/event-stream; charset=utf-8',
+      'Cache-Control': 'no-store',
+      Connection: 'keep-alive',
+      'X-Accel-Buffering': 'no',
+    });
+    const send = (event: 'progress' | 'done', data: unknown) => res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
+    let closed = false;
+    // Subscribe before reading the state so no event falls between the two.
+    const stop = jobs.subscribe(row.revisionId, (event, done) => {
+      if (closed) return;
+      send(done ? 'done' : 'progress', event);
+      if (done) finish();
+    });
+    const finish = () => {
+      if (closed) return;
+      closed = true;
+      stop();
+      res.end();
+    };
+    req.on('close', finish);
+    const now = await jobs.progressOf(row.revisionId);
+    if (closed) return;
+    send('progress', now);
+    if (!jobs.isActive(row.revisionId)) {
+      send('done', now);
+      finish();
+    }
+  });
+
+  router.get('/:id/variants', readers, validate({ params: IdParamsSchema, query: VariantListQuerySchema }), async (_req, res) => {
+    res.json(await families.listVariants(ctx, idOf(res), parsedQuery<VariantListQuery>(res)));
+  });
+
+  router.post(
+    '/:id/acknowledgements',
+    designers,
+    validate({ params: IdParamsSchema, body: AcknowledgementsCreateSchema }),
+    async (_req, res) => {
+      const family = await families.acknowledgeWarnings(ctx, signedInPerson(res), idOf(res), parsedBody<AcknowledgementsCreate>(res));
+      res.json({ family });
+    },
+  );
+
+  const step = (action: FamilyAction) => async (_req: unknown, res: Parameters<RequestHandler>[1]) => {
+    const body = parsedBody<ReviewDecision & Partial<ReturnDecision>>(res);
+    const comment = action === 'return' ? body.comments : body.comment;
+    const family = await families.transitionFamily(ctx, signedInPerson(res), idOf(res), action, { ...body, comment });
+    res.json({ family });
+  };
+  const bodies: Record<FamilyAction, z.ZodType> = {
+    submit: TransitionSchema,
+    approve: ReviewDecisionSchema,
+    return: ReturnDecisionSchema,
+    publish: TransitionSchema,
+    retire: TransitionSchema,
+  };
+  for (const action of Object.keys(FAMILY_TRANSITIONS) as FamilyAction[]) {
+    const guard = FAMILY_TRANSITIONS[action].role === 'designer' ? designers : managers;
+    router.post(`/:id/${action}`, guard, validate({ params: IdParamsSchema, body: bodies[action] }), step(action));
+  }
+
+  router.get('/:id/diff', readers, validate({ params: IdParamsSchema, query: RevisionDiffQuerySchema }), async (_req, res) => {
+    const { from, to } = parsedQuery<{ from: number; to: number }>(res);
+    res.json(await families.diffRevisions(ctx, idOf(res), from, to));
+  });
+
+  router.get('/:id/audit', readers, idParams, async (_req, res) => {
+    res.json(await families.familyAudit(ctx, idOf(res)));
+  });
+
+  router.post('/:id/photos', designers, idParams, photoUpload, async (req, res) => {
+    if (!req.file) throw badRequest('photo: attach one image file in the form field "photo"', [
+      { in: 'body', path: 'photo', message: 'required' },
+    ]);
+    const caption = typeof req.body?.caption === 'string' ? req.body.caption.trim().slice(0, 200) : '';
+    const photo = await addPhoto(ctx, signedInPerson(res), idOf(res), req.file.buffer, caption);
+    res.status(201).json({ photo });
+  });
+
+  return router;
+}

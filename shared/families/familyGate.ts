@@ -1,0 +1,95 @@
+import type { BirdFitWarning } from '../schemas/birdfit';
+import type {
+  Acknowledgement,
+  ComputeState,
+  FamilyGate,
+  GateBlocker,
+  GateWarning,
+  Variant,
+} from '../schemas/family';
+import { needsAcknowledgement } from './variantVerdict';
+
+/** What the gate reads of a revision. */
+export interface GateInput {
+  computeState: ComputeState;
+  supportBudgetMm3: number;
+  /** The pinned template version and the version the server builds now. */
+  templateVersion: number;
+  currentTemplateVersion: number;
+  variants: ReadonlyArray<Pick<Variant, 'sku' | 'status' | 'report' | 'birdFitWarnings' | 'error'>>;
+  acknowledgements: readonly Acknowledgement[];
+}
+
+/**
+ * The family gate: a family may be submitted only when every variant is computed, closed and manifold, fits the
+ * printer, stays within the support budget, and every bird-fit warning that needs it is acknowledged in writing.
+ * @param input - the revision's computation, variants and acknowledgements
+ * @returns ok, the blockers (with the SKUs concerned) and the warnings with their acknowledgements
+ */
+export function evaluateFamilyGate(input: GateInput): FamilyGate {
+  const blockers: GateBlocker[] = [];
+  const block = (code: GateBlocker['code'], message: string, skus: string[]): void => {
+    if (skus.length > 0 || code === 'not_computed' || code === 'stale_template') blockers.push({ code, message, skus });
+  };
+  if (input.templateVersion !== input.currentTemplateVersion) {
+    block(
+      'stale_template',
+      `the family pins template version ${input.templateVersion} but version ${input.currentTemplateVersion} is current; re-pin and compute again`,
+      [],
+    );
+  }
+  const pending = input.variants.filter((variant) => variant.status === 'pending').map((variant) => variant.sku);
+  if (input.computeState !== 'done' || pending.length > 0) {
+    blockers.push({
+      code: 'not_computed',
+      message: `${pending.length} of ${input.variants.length} variants are not computed yet; compute the family`,
+      skus: pending,
+    });
+  }
+  const failed = input.variants.filter((variant) => variant.status === 'failed');
+  block('generation_failed', 'the template could not build these variants', failed.map((variant) => variant.sku));
+  const done = input.variants.filter((variant) => variant.status === 'done' && variant.report);
+  block(
+    'not_closed',
+    'the mesh is not closed (open edges)',
+    done.filter((v) => !v.report!.watertight || v.report!.openEdges > 0).map((v) => v.sku),
+  );
+  block('not_manifold', 'the mesh is not manifold', done.filter((v) => v.report!.nonManifoldEdges > 0).map((v) => v.sku));
+  block('does_not_fit', 'a part does not fit the printer', done.filter((v) => !v.report!.fitsPrinter).map((v) => v.sku));
+  block(
+    'over_support_budget',
+    `support volume is over the family budget of ${Math.round(input.supportBudgetMm3)} mm³`,
+    done.filter((v) => v.report!.supportVolumeMm3 > input.supportBudgetMm3).map((v) => v.sku),
+  );
+
+  const byCode = new Map<BirdFitWarning['code'], GateWarning>();
+  for (const variant of done) {
+    for (const warning of variant.birdFitWarnings) {
+      if (warning.severity === 'info') continue;
+      let entry = byCode.get(warning.code);
+      if (!entry) {
+        entry = {
+          code: warning.code,
+          severity: warning.severity,
+          message: warning.message,
+          source: warning.source,
+          skus: [],
+          acknowledgement: input.acknowledgements.find((ack) => ack.code === warning.code) ?? null,
+        };
+        byCode.set(warning.code, entry);
+      }
+      if (warning.severity === 'warning') entry.severity = 'warning';
+      if (!entry.skus.includes(variant.sku)) entry.skus.push(variant.sku);
+    }
+  }
+  const warnings = [...byCode.values()];
+  const unacknowledged = warnings.filter((warning) => needsAcknowledgement(warning) && !warning.acknowledgement);
+  if (unacknowledged.length > 0) {
+    blockers.push({
+      code: 'birdfit_unacknowledged',
+      message: `bird-fit warnings need a written acknowledgement: ${unacknowledged.map((w) => w.code).join(', ')}`,
+      skus: [...new Set(unacknowledged.flatMap((warning) => warning.skus))],
+    });
+  }
+  return { ok: blockers.length === 0, blockers, warnings };
+}

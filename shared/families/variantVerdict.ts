@@ -1,0 +1,41 @@
+import type { BirdFitWarning } from '../schemas/birdfit';
+import type { VariantReport, VariantVerdict } from '../schemas/family';
+
+/** Bird-fit severities that must be acknowledged in writing before a family can be submitted. */
+export const ACK_REQUIRED_SEVERITIES: ReadonlyArray<BirdFitWarning['severity']> = ['warning'];
+
+/**
+ * Whether a bird-fit warning needs a written acknowledgement.
+ * @param warning - a warning from assessBirdFit
+ */
+export function needsAcknowledgement(warning: Pick<BirdFitWarning, 'severity'>): boolean {
+  return ACK_REQUIRED_SEVERITIES.includes(warning.severity);
+}
+
+/**
+ * The verdict of one computed variant: `fail` when the mesh is open or non-manifold, does not fit the printer or
+ * needs more support than the family's budget; `warn` when bird-fit warnings need acknowledging; otherwise `pass`.
+ * @param report - the variant's print-readiness summary
+ * @param supportBudgetMm3 - the family's support budget
+ * @param warnings - the variant's bird-fit warnings
+ * @returns the verdict and every reason for it
+ */
+export function variantVerdict(
+  report: Pick<VariantReport, 'watertight' | 'openEdges' | 'nonManifoldEdges' | 'fitsPrinter' | 'printerId' | 'supportVolumeMm3'>,
+  supportBudgetMm3: number,
+  warnings: readonly Pick<BirdFitWarning, 'code' | 'severity'>[],
+): { verdict: VariantVerdict; reasons: string[] } {
+  const reasons: string[] = [];
+  if (!report.watertight || report.openEdges > 0) reasons.push(`mesh is not closed (${report.openEdges} open edges)`);
+  if (report.nonManifoldEdges > 0) reasons.push(`mesh is not manifold (${report.nonManifoldEdges} non-manifold edges)`);
+  if (!report.fitsPrinter) reasons.push(`a part does not fit the build volume of ${report.printerId}`);
+  if (report.supportVolumeMm3 > supportBudgetMm3) {
+    reasons.push(
+      `support ${Math.round(report.supportVolumeMm3)} mm³ is over the family budget of ${Math.round(supportBudgetMm3)} mm³`,
+    );
+  }
+  if (reasons.length > 0) return { verdict: 'fail', reasons };
+  const toAck = warnings.filter(needsAcknowledgement).map((warning) => warning.code);
+  if (toAck.length > 0) return { verdict: 'warn', reasons: [`bird-fit warnings to acknowledge: ${toAck.join(', ')}`] };
+  return { verdict: 'pass', reasons: [] };
+}
