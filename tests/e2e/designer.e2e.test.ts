@@ -199,6 +199,17 @@ describe('designer configurator', () => {
     const digest = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
     expect(digest(browserStl)).toBe(digest(serverStl));
 
+    // The page's own "from server" button shows the server's hash beside the preview's, marked as the same mesh.
+    const [serverDownload] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByTestId('export-server-stl').click(),
+    ]);
+    expect(serverDownload.suggestedFilename()).toMatch(/\.stl$/);
+    await page.getByTestId('server-hash').waitFor();
+    expect((await page.getByTestId('server-hash').textContent())!.trim()).toBe(hash);
+    await expect(page.locator('.editor__hash').textContent()).resolves.toContain('same mesh');
+    await page.screenshot({ path: `${SHOTS}/editor-export.png` });
+
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 180_000);
