@@ -69,7 +69,9 @@ export const barkTrunk: Template<typeof parameters> = {
   build(p) {
     const t = p.wallThicknessMm;
     const Ri = p.cavityDiameterMm / 2;
-    const Ro = Ri + t + p.barkDepthMm;
+    // 2 mm of solid beyond the wall, so the back cut always crosses the outside at an angle (a tangent cut leaves
+    // slivers) and the furrows never thin the wall.
+    const Ro = Ri + t + 2 + p.barkDepthMm;
     const storeyMm = p.cavityDepthMm + Ri + t;
     const heightMm = t + storeyMm * p.storeys;
     const r = p.entryHoleDiameterMm / 2;

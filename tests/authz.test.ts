@@ -89,6 +89,14 @@ const ROUTES: AuthzRow[] = [
     body: (role: Role | null) => ({ name: `Authz renamed ${role ?? 'nobody'}` }),
   },
   { method: 'delete', route: '/api/presets/:id', path: designerPresetPath, allowed: ['designer'] },
+  // Templates: any signed-in person reads them; exports (print files) are for designers.
+  { method: 'get', route: '/api/templates', allowed: 'signed-in' },
+  {
+    method: 'post',
+    route: '/api/exports',
+    allowed: ['designer'],
+    body: { templateId: 'gable-box', params: { entryHoleDiameterMm: 28 }, format: 'stl' },
+  },
   // Families: designers build, catalogue managers review; the state-changing rows get a family in the right state.
   { method: 'get', route: '/api/families', allowed: ['designer', 'catalogue_manager'] },
   {

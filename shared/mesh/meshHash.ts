@@ -5,8 +5,8 @@ export const MESH_HASH_STEPS_PER_MM = 1000;
 
 /**
  * The canonical bytes a mesh hash is taken over: a little-endian header (vertex count, triangle count), the positions
- * quantised to whole micrometres as int32, then the triangle indices as uint32. Float noise below 1 µm does not
- * change the hash; any change of topology or shape above it does.
+ * quantised to whole micrometres as int32, then the triangle indices as uint32. The hash follows the shape to 1 µm
+ * and the topology exactly, not the float formatting of any one runtime.
  * @param mesh - the mesh to serialise
  */
 export function canonicalMeshBytes(mesh: IndexedMesh): Uint8Array<ArrayBuffer> {

@@ -1,0 +1,46 @@
+/**
+ * Property test: random parameter sets inside the declared ranges always give a closed, 2-manifold mesh with the
+ * expected number of bodies (manifold-3d), resting on the build plate. Runs are bounded to keep the suite fast.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { TEMPLATES, describeParameters, generate } from '../templates/index';
+import type { AnyTemplate } from '../templates/types';
+import { manifoldReport } from './templates.meshCheck';
+
+const RUNS_PER_TEMPLATE = 20;
+
+/** An arbitrary over a template's whole parameter space, read from its own description. */
+function paramsArbitrary(template: AnyTemplate): fc.Arbitrary<Record<string, unknown>> {
+  const fields: Record<string, fc.Arbitrary<unknown>> = {};
+  for (const p of describeParameters(template)) {
+    if (p.kind === 'boolean') fields[p.key] = fc.boolean();
+    else if (p.kind === 'choice') fields[p.key] = fc.constantFrom(...(p.options ?? []));
+    else if (p.step === 1 && Number.isInteger(p.min) && Number.isInteger(p.max)) {
+      fields[p.key] = fc.integer({ min: p.min as number, max: p.max as number });
+    } else {
+      fields[p.key] = fc.double({ min: p.min as number, max: p.max as number, noNaN: true, noDefaultInfinity: true });
+    }
+  }
+  return fc.record(fields);
+}
+
+describe.each(TEMPLATES.map((t) => [t.id, t] as const))('template %s over random parameters', (_id, template) => {
+  it(`stays closed and manifold with the expected bodies (${RUNS_PER_TEMPLATE} runs)`, async () => {
+    await fc.assert(
+      fc.asyncProperty(paramsArbitrary(template), async (params) => {
+        const result = await generate(template.id, params);
+        const report = await manifoldReport(result.mesh);
+        const expectedBodies = template.id === 'gable-box' || result.params.cleaningAccess ? 2 : 1;
+        expect(report.status).toBe('NoError');
+        expect(report.bodies).toBe(expectedBodies);
+        expect(Math.abs(report.volumeMm3 - result.volumeMm3) / report.volumeMm3).toBeLessThan(1e-4);
+        let minZ = Infinity;
+        for (let i = 2; i < result.mesh.positions.length; i += 3) minZ = Math.min(minZ, result.mesh.positions[i]);
+        expect(minZ).toBeCloseTo(0, 3);
+      }),
+      // endOnFailure: report the counterexample at once (shrinking a 1 s build takes minutes)
+      { numRuns: RUNS_PER_TEMPLATE, seed: 20261201, endOnFailure: true },
+    );
+  }, 240_000);
+});
