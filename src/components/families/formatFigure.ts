@@ -55,3 +55,16 @@ export function formatAxisValue(value: unknown): string {
 export function formatWhen(iso: string): string {
   return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 }
+
+/**
+ * An axis value with its unit read from the key's suffix (`entryHoleDiameterMm` 32 -> `32 mm`).
+ * @param key - the axis key
+ * @param value - the value on that axis
+ */
+export function formatAxisEntry(key: string, value: unknown): string {
+  const text = formatAxisValue(value);
+  if (typeof value !== 'number') return text;
+  if (key.endsWith('Mm')) return `${text} mm`;
+  if (key.endsWith('Deg')) return `${text}°`;
+  return text;
+}

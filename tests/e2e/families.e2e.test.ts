@@ -1,0 +1,237 @@
+/**
+ * Variant families in Chromium, end to end through the real server: a designer builds a family of six variants
+ * (entry hole 28 / 32 mm × three colours), computes it and waits for the progress bar to finish, acknowledges any
+ * bird-fit warnings in writing, uploads a photo of a sample print and submits; a catalogue manager finds it in the
+ * review queue, approves and publishes it; sales finds its variants in the catalogue; a designer who tries to
+ * publish through the API gets 403 and never sees a publish button. Screenshots go to /tmp/nestwright-e2e.
+ *
+ * The workflow rules checked here (who may publish, which state allows what) are the product's own decisions
+ * (PRODUCT.md roles, issue 5): no outside source. Entry holes of 28 and 32 mm are common small-cavity sizes
+ * (source: RSPB via trade-facts §1b — 25 mm blue tit, 28 mm great tit, 32 mm house sparrow).
+ */
+import { mkdirSync } from 'node:fs';
+import sharp from 'sharp';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { startE2E, type E2E } from './harness';
+
+const SHOTS = '/tmp/nestwright-e2e';
+const CODE = 'HTE';
+const FAMILY_NAME = 'Hedgerow browser-test family';
+let e2e: E2E;
+
+beforeAll(async () => {
+  mkdirSync(SHOTS, { recursive: true });
+  e2e = await startE2E({ viewport: { width: 1440, height: 960 } });
+}, 240_000);
+
+afterAll(async () => {
+  await e2e?.close();
+});
+
+/** A small PNG of a "sample print": a bark-brown box shape on an eggshell ground, made with sharp. */
+async function samplePhotoPng(): Promise<Buffer> {
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="320" height="240">
+    <rect width="320" height="240" fill="#f5f0e4"/>
+    <polygon points="100,90 160,40 220,90" fill="#6a4a32"/>
+    <rect x="110" y="90" width="100" height="120" fill="#8a6649"/>
+    <circle cx="160" cy="130" r="14" fill="#25231e"/>
+  </svg>`;
+  return sharp(Buffer.from(svg)).png().toBuffer();
+}
+
+/** Text of an element found by test id, trimmed. */
+async function textOf(page: Page, testId: string): Promise<string> {
+  return ((await page.getByTestId(testId).first().textContent()) ?? '').trim();
+}
+
+describe('variant families: build, review, publish, catalogue', () => {
+  let familyId = '';
+
+  it('a designer builds a six-variant family, computes it, adds a photo and submits it', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto('/families');
+    await expect(page.getByTestId('no-families').count()).resolves.toBeGreaterThanOrEqual(0);
+    await page.getByTestId('new-family').click();
+    await page.waitForURL('**/families/new');
+
+    await page.locator('#family-name').fill(FAMILY_NAME);
+    await page.locator('#family-code').fill(CODE);
+
+    // Parameter axis: entry hole 28 and 32 mm, typed and added as chips.
+    await page.getByTestId('add-param-axis').click();
+    const entryAxis = page.getByTestId('axis-entryHoleDiameterMm');
+    await expect(entryAxis.count()).resolves.toBe(1);
+    for (const mm of [28, 32]) {
+      await page.locator('#axis-input-entryHoleDiameterMm').fill(String(mm));
+      await page.getByTestId('axis-add-entryHoleDiameterMm').click();
+      await page.getByTestId(`axis-value-entryHoleDiameterMm-${mm}`).waitFor();
+    }
+    // A value outside the template's range is refused on the spot with the range in the message.
+    await page.locator('#axis-input-entryHoleDiameterMm').fill('500');
+    await page.getByTestId('axis-add-entryHoleDiameterMm').click();
+    await expect(entryAxis.getByRole('alert').textContent()).resolves.toMatch(/above the highest/);
+    await page.locator('#axis-input-entryHoleDiameterMm').fill('');
+
+    // Colour axis: three colours -> 2 × 3 = 6 variants.
+    await page.getByTestId('add-colour-axis').click();
+    for (const colour of ['sand', 'moss-green', 'white']) await page.getByTestId(`colour-${colour}`).click();
+    await expect(textOf(page, 'variant-count')).resolves.toMatch(/^6\s*variants/);
+    await expect(textOf(page, 'variant-count')).resolves.toContain(`FH-${CODE}-28-SAND`);
+
+    // A generous support budget: this test is about the workflow, not about the support estimate.
+    await page.locator('#support-budget').fill('400');
+    await page.locator('#support-budget').blur();
+    await page.screenshot({ path: `${SHOTS}/family-editor.png`, fullPage: true });
+
+    await page.getByTestId('save-family').click();
+    await page
+      .waitForURL((url) => /^\/families\/[^/]+$/.test(url.pathname) && !url.pathname.endsWith('/new'), { timeout: 15_000 })
+      .catch(async (err: unknown) => {
+        await page.screenshot({ path: `${SHOTS}/family-save-failed.png`, fullPage: true });
+        const shown = (await page.getByTestId('save-error').count()) ? await textOf(page, 'save-error') : 'no error shown';
+        throw new Error(`the family was not saved: ${shown} (${String(err)})`);
+      });
+    familyId = new URL(page.url()).pathname.split('/').pop()!;
+    expect(familyId).not.toBe('new');
+
+    // Compute: the progress bar runs to 6 / 6 through the server-sent events.
+    await page.getByTestId('start-compute').click();
+    await page.waitForFunction(
+      () => document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'running' ||
+        document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'done',
+      undefined,
+      { timeout: 20_000 },
+    );
+    await page.screenshot({ path: `${SHOTS}/family-computing.png`, fullPage: true });
+    await page.waitForFunction(
+      () => document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'done',
+      undefined,
+      { timeout: 150_000 },
+    );
+    await expect(textOf(page, 'compute-count')).resolves.toBe('6 / 6 variants');
+    await expect(page.getByTestId('compute-progress').getAttribute('aria-valuenow')).resolves.toBe('6');
+
+    // The matrix lists the six SKUs of the scheme FH-<code>-<hole>-<colour>.
+    const skus = page.getByTestId('variant-sku');
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid="variant-sku"]').length === 6, undefined, { timeout: 15_000 });
+    const skuTexts = (await skus.allTextContents()).map((s) => s.trim()).sort();
+    expect(skuTexts).toEqual(
+      ['28', '32'].flatMap((mm) => ['MOSS', 'SAND', 'WHIT'].map((c) => `FH-${CODE}-${mm}-${c}`)).sort(),
+    );
+
+    // Bird-fit warnings that need it are acknowledged in writing, one text per warning.
+    const acks = page.locator('textarea[id^="ack-"]');
+    const ackCount = await acks.count();
+    for (let i = 0; i < ackCount; i++) {
+      await acks.nth(i).fill('Sold with a printed note: mount 2–4 m high, no perch, clean out each autumn; checked with the studio ecologist.');
+    }
+    if (ackCount) {
+      await page.getByTestId('save-acks').click();
+      await page.waitForFunction(() => !document.querySelector('[data-testid="save-acks"]')?.closest('button')?.classList.contains('n-button--loading'));
+    }
+    await page.waitForFunction(() => document.querySelector('[data-testid="gate-panel"]')?.getAttribute('data-ok') === 'true', undefined, {
+      timeout: 15_000,
+    }).catch(async (err: unknown) => {
+      throw new Error(`gate stays blocked: ${await textOf(page, 'gate-panel')} (${String(err)})`);
+    });
+
+    // Photo of a sample print: uploaded through the upload area, thumbnail shown from the server.
+    const png = await samplePhotoPng();
+    await page.getByTestId('photo-gallery').locator('input[type="file"]').setInputFiles({
+      name: 'sample-print.png',
+      mimeType: 'image/png',
+      buffer: png,
+    });
+    const thumb = page.getByTestId('photo').first().locator('img');
+    await thumb.waitFor({ timeout: 20_000 });
+    await page.waitForFunction(() => {
+      const img = document.querySelector('[data-testid="photo"] img') as HTMLImageElement | null;
+      return !!img && img.complete && img.naturalWidth > 0;
+    });
+
+    // A designer never sees the catalogue manager's buttons.
+    expect(await page.getByTestId('action-publish').count()).toBe(0);
+    expect(await page.getByTestId('action-approve').count()).toBe(0);
+
+    await page.getByTestId('action-submit').click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('In review'));
+    await page.screenshot({ path: `${SHOTS}/family-submitted.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 240_000);
+
+  it('a catalogue manager finds it in the review queue, approves and publishes it', async () => {
+    expect(familyId).not.toBe('');
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'catalogue_manager');
+    await page.goto('/review');
+    const card = page.getByTestId('queue-in_review').getByTestId(`review-${CODE}`);
+    await card.waitFor();
+    await expect(card.textContent()).resolves.toContain(FAMILY_NAME);
+    await page.screenshot({ path: `${SHOTS}/review-queue.png`, fullPage: true });
+    await card.click();
+    await page.waitForURL(`**/review/${familyId}`);
+
+    // Every variant's report is open, and the designer's photo is there.
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid^="variant-report-"]').length === 6, undefined, { timeout: 15_000 });
+    await page.getByTestId('photo').first().locator('img').waitFor();
+    expect(await page.getByTestId('action-submit').count()).toBe(0);
+    await page.screenshot({ path: `${SHOTS}/review-family.png`, fullPage: true });
+
+    await page.getByTestId('action-approve').click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Approved'));
+    await page.getByTestId('action-publish').click();
+    await page.getByRole('button', { name: 'Publish', exact: true }).click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'));
+    await page.screenshot({ path: `${SHOTS}/review-published.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 120_000);
+
+  it('sales finds the published variants in the catalogue', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'sales');
+    await page.goto('/catalogue');
+    await page.locator('#catalogue-search').fill(CODE);
+    await page.waitForFunction(
+      (code) => {
+        const skus = [...document.querySelectorAll('[data-testid="catalogue-sku"]')].map((el) => el.textContent ?? '');
+        return skus.length === 6 && skus.every((sku) => sku.startsWith(`FH-${code}-`));
+      },
+      CODE,
+      { timeout: 15_000 },
+    );
+    const sku = `FH-${CODE}-32-MOSS`;
+    const row = page.getByTestId(`catalogue-row-${sku}`);
+    await expect(row.textContent()).resolves.toContain(FAMILY_NAME);
+    // The row shows the price the catalogue API gives for that SKU, as money in its currency.
+    const listed = await page.request.get(`/api/catalogue?q=${sku}`);
+    expect(listed.status()).toBe(200);
+    const { variants } = (await listed.json()) as { variants: { sku: string; priceCents: number; currency: string }[] };
+    const variant = variants.find((item) => item.sku === sku)!;
+    expect(variant.priceCents).toBeGreaterThan(0);
+    const money = new Intl.NumberFormat('en', { style: 'currency', currency: variant.currency }).format(variant.priceCents / 100);
+    await expect(row.textContent()).resolves.toContain(money);
+    await page.screenshot({ path: `${SHOTS}/catalogue.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
+
+  it('a designer who tries to publish through the API gets 403 and sees no publish button', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    const answer = await page.request.post(`/api/families/${familyId}/publish`, { data: {}, headers: { Origin: e2e.baseUrl } });
+    expect(answer.status()).toBe(403);
+    await page.goto(`/families/${familyId}`);
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'));
+    expect(await page.getByTestId('action-publish').count()).toBe(0);
+    expect(await page.getByTestId('action-retire').count()).toBe(0);
+    // The review area is not the designer's: the router shows the forbidden page.
+    await page.goto(`/review/${familyId}`);
+    await page.waitForURL(/\/forbidden/);
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
+});
