@@ -21,6 +21,7 @@ import { listRoutes } from './setup/listRoutes';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
 import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
+import { box, geomToMesh, toBinaryStl } from './meshFixtures';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -180,6 +181,13 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/photos/:id', path: photoPath(''), allowed: 'signed-in' },
   { method: 'get', route: '/api/photos/:id/thumb', path: photoPath('/thumb'), allowed: 'signed-in' },
   { method: 'get', route: '/api/mail/messages', allowed: ['admin'] },
+  // Print-readiness analysis of an uploaded mesh: designers.
+  {
+    method: 'post',
+    route: '/api/analyses',
+    allowed: ['designer'],
+    attach: { field: 'file', filename: 'cube.stl', bytes: async () => Buffer.from(toBinaryStl(geomToMesh(box([0, 0, 0], [20, 20, 20])))) },
+  },
   // Sales: spec sheets, price lists, quotes (sales and catalogue managers); settings (read: + admin, write: admin).
   {
     method: 'get',

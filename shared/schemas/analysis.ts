@@ -167,3 +167,14 @@ export const AnalysisReportSchema = GeometryReportSchema.extend({
 });
 /** The full report (see {@link AnalysisReportSchema}). */
 export type AnalysisReport = z.infer<typeof AnalysisReportSchema>;
+
+/** The options of an analysis request (multipart form fields arrive as text, so numbers are coerced). */
+export const AnalysisRequestSchema = z.object({
+  up: z.union([AxisUpSchema, z.literal('auto')]).default('+z'),
+  printerId: z.string().min(1).max(64).optional(),
+  materialId: z.string().min(1).max(64).optional(),
+  infillPct: z.coerce.number().min(0).max(100).optional(),
+  overhangDeg: z.coerce.number().min(0).max(89).optional(),
+});
+/** An analysis request (see {@link AnalysisRequestSchema}). */
+export type AnalysisRequest = z.infer<typeof AnalysisRequestSchema>;
