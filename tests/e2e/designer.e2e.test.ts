@@ -118,6 +118,37 @@ describe('designer configurator', () => {
     120_000,
   );
 
+  it('renames and deletes a preset from the designs screen, with a confirmation', async () => {
+    const template = TEMPLATES[0];
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    const created = await page.request.post('/api/presets', {
+      data: { templateId: template.id, name: 'Card to rename', params: {} },
+      headers: { Origin: e2e.baseUrl },
+    });
+    expect(created.status()).toBe(201);
+    const id = ((await created.json()) as { id: string }).id;
+    await page.goto('/designs');
+    const card = page.getByTestId(`preset-card-${id}`);
+    await expect(card.textContent()).resolves.toContain('Card to rename');
+
+    await card.getByRole('button', { name: 'More actions for Card to rename' }).click();
+    await page.getByText('Rename…').click();
+    await page.getByLabel('Preset name').fill('Card renamed');
+    await page.getByRole('button', { name: 'Rename', exact: true }).click();
+    await page.getByText('Renamed to “Card renamed”.').waitFor();
+    await expect(card.textContent()).resolves.toContain('Card renamed');
+
+    await card.getByRole('button', { name: 'More actions for Card renamed' }).click();
+    await page.getByText('Delete…').click();
+    await page.getByRole('button', { name: 'Delete', exact: true }).click();
+    await page.getByText('Deleted “Card renamed”.').waitFor();
+    expect(await card.count()).toBe(0);
+    expect((await page.request.get(`/api/presets/${id}`)).status()).toBe(404);
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  });
+
   it('saves a preset, reloads it, and downloads an STL that is manifold and identical to the server export', async () => {
     const template = TEMPLATES[0];
     const page = await e2e.newPage();
