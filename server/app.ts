@@ -15,9 +15,12 @@ import { familiesRouter } from './routes/families';
 import { catalogueRouter } from './routes/catalogue';
 import { photosRouter } from './routes/photos';
 import { mailRouter } from './routes/mail';
-import { analysesRouter } from './routes/analyses';
 import { exportsRouter } from './routes/exports';
 import { templatesRouter } from './routes/templates';
+import { specSheetsRouter } from './routes/specSheets';
+import { priceListRouter } from './routes/priceList';
+import { quotesRouter } from './routes/quotes';
+import { settingsRouter } from './routes/settings';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -56,9 +59,13 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/catalogue', catalogueRouter(ctx));
   app.use('/api/photos', photosRouter(ctx));
   app.use('/api/mail', mailRouter(ctx));
-  app.use('/api/analyses', analysesRouter(ctx));
   app.use('/api/templates', templatesRouter());
   app.use('/api/exports', exportsRouter(ctx));
+
+  app.use('/api', specSheetsRouter(ctx));
+  app.use('/api', priceListRouter(ctx));
+  app.use('/api/quotes', quotesRouter(ctx));
+  app.use('/api/settings', settingsRouter(ctx));
 
   // Anything else under /api is a 404 in the error shape (keep this after every API router).
   app.use('/api', (req) => {

@@ -9,6 +9,9 @@ import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } 
 import { estimateProduction } from '../shared/production/estimateProduction';
 import type { AxisValue, CatalogueVariant } from '../shared/schemas/family';
 import { generate } from '../templates/index';
+import type { Db } from '../server/db/client';
+import { families, familyRevisions, familyVariants } from '../server/db/schema';
+import { demoPersonId } from '../server/db/seedDemo';
 
 /** What differs between fixture variants. */
 export interface FixtureSpec {
@@ -97,4 +100,103 @@ export async function catalogueVariantFixture(spec: FixtureSpec): Promise<Catalo
     photos: [],
     publishedAt: '2026-11-30T10:00:00.000Z',
   };
+}
+
+/**
+ * Writes variants into the family tables as one published family (revision 1, state published, every variant done),
+ * so the catalogue service lists them. Returns the family id.
+ * @param db - the test database
+ * @param variants - fixture variants (their family code and name are used)
+ * @param ownerId - the designer who owns the family
+ */
+export async function publishFixtureFamily(db: Db, variants: CatalogueVariant[], ownerId: string): Promise<string> {
+  const first = variants[0];
+  const [family] = await db
+    .insert(families)
+    .values({ code: first.family.code, ownerId, currentRevision: 1, publishedRevision: 1 })
+    .returning();
+  const [revision] = await db
+    .insert(familyRevisions)
+    .values({
+      familyId: family.id,
+      number: 1,
+      state: 'published',
+      name: first.family.name,
+      description: first.family.description,
+      templateId: first.templateId,
+      templateVersion: first.templateVersion,
+      baseParams: {},
+      axes: [],
+      supportBudgetMm3: 1_000_000,
+      printerId: first.report.printerId,
+      materialId: first.attributes.material,
+      computeState: 'done',
+      publishedAt: new Date(first.publishedAt),
+    })
+    .returning();
+  await db.insert(familyVariants).values(
+    variants.map((variant, index) => ({
+      revisionId: revision.id,
+      index,
+      sku: variant.sku,
+      variantKey: variant.variantKey,
+      axisValues: variant.axisValues,
+      params: variant.params,
+      attributes: variant.attributes,
+      status: 'done' as const,
+      sha256: variant.sha256,
+      report: variant.report,
+      cost: variant.cost,
+      verdict: variant.verdict,
+      birdFitWarnings: variant.birdFitWarnings,
+    })),
+  );
+  return family.id;
+}
+
+const seeded = new WeakMap<object, Promise<SalesFixture>>();
+
+/** What {@link ensureSalesFixture} put in a test database. */
+export interface SalesFixture {
+  familyId: string;
+  variants: CatalogueVariant[];
+}
+
+/** SKUs of the fixture family (a gable box with 28 and 32 mm entries, sand and moss green). */
+export const FIXTURE_SKUS = ['FH-TSG-28-SAND', 'FH-TSG-32-MOSS'] as const;
+
+/**
+ * Publishes the fixture family once per database (later calls return the same promise).
+ * @param db - the test database
+ */
+export function ensureSalesFixture(db: Db): Promise<SalesFixture> {
+  let pending = seeded.get(db);
+  if (!pending) {
+    pending = (async () => {
+      const variants = [
+        await catalogueVariantFixture({
+          sku: FIXTURE_SKUS[0],
+          templateId: 'gable-box',
+          familyName: 'Hedgerow Gable, "test" edition',
+          axisValues: { entryHoleDiameterMm: 28, colour: 'sand' },
+          params: { entryHoleDiameterMm: 28, cavityDepthMm: 200 },
+          colour: 'sand',
+        }),
+        await catalogueVariantFixture({
+          sku: FIXTURE_SKUS[1],
+          templateId: 'gable-box',
+          familyName: 'Hedgerow Gable, "test" edition',
+          axisValues: { entryHoleDiameterMm: 32, colour: 'moss-green' },
+          params: { entryHoleDiameterMm: 32, cavityDepthMm: 200 },
+          colour: 'moss-green',
+        }),
+      ];
+      for (const v of variants) v.family.code = 'TSG';
+      const familyId = await publishFixtureFamily(db, variants, await demoPersonId(db, 'designer'));
+      for (const v of variants) v.family.id = familyId;
+      return { familyId, variants };
+    })();
+    seeded.set(db, pending);
+  }
+  return pending;
 }

@@ -85,7 +85,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
     material: material?.name ?? variant.attributes.material.toUpperCase(),
     colour: { name: colour.name, hex: colour.hex },
     massG: variant.report.massG,
-    backFit: backFit(variant.params, o.widthMm),
+    backFit: backFit(variant.templateId, variant.params, o.widthMm),
     priceText: `${money(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
     species,
     sources: sources.map(pdfText),
@@ -129,10 +129,16 @@ function scientificName(speciesId: string): string | undefined {
 
 /**
  * Which trunks, poles or posts the back fits, from the template's parameters.
+ * @param templateId - the variant's template
  * @param params - the variant's complete parameters
  * @param widthMm - overall width of the body
  */
-export function backFit(params: Record<string, unknown>, widthMm: number): string {
+export function backFit(templateId: string, params: Record<string, unknown>, widthMm: number): string {
+  if (templateId === 'round-pod') {
+    return params.hangingHole === false
+      ? 'No back to fit and no hanging eye: hold the pod with a bracket of your own.'
+      : 'No back to fit: the pod hangs by wire from its eye; hang it out of reach of predators.';
+  }
   if (typeof params.mountRadiusMm === 'number' && params.flatBack !== true) {
     return (
       `Concave back shaped for a trunk or pole of ${mmIn(2 * params.mountRadiusMm)} diameter. ` +

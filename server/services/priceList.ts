@@ -1,0 +1,110 @@
+/** The price list of published variants, as rows, as CSV (RFC 4180) and as an .xlsx workbook. */
+import { stringify } from 'csv-stringify/sync';
+import ExcelJS from 'exceljs';
+import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
+import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { PriceListRow, SalesSettings } from '../../shared/schemas/sales';
+import { shippingBox } from '../../shared/shipping/shippingBox';
+import { productName, STUDIO_NAME } from './specSheet';
+
+/** Column titles of the CSV and the sheet, in order, with units in the titles. */
+export const PRICE_LIST_COLUMNS = [
+  'SKU',
+  'Product',
+  'Family',
+  'Material',
+  'Colour',
+  'Entry hole (mm)',
+  'Entry hole (in)',
+  'Mass (g)',
+  'Box L (mm)',
+  'Box W (mm)',
+  'Box H (mm)',
+  'Shipped weight (g)',
+  'Currency',
+  'Unit price',
+] as const;
+
+/**
+ * One price-list row per variant. The shipping box is sized from the report's bounding box (build orientation; the
+ * box is the same whichever way up the part lies).
+ * @param variants - published variants
+ * @param settings - sales settings (packaging rules)
+ */
+export function priceListRows(variants: CatalogueVariant[], settings: SalesSettings): PriceListRow[] {
+  return variants.map((variant) => {
+    const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+    const colour = material?.colours.find((c) => c.id === variant.attributes.colour);
+    const box = shippingBox(variant.report.bboxSizeMm, variant.report.massG, settings.packaging);
+    return {
+      sku: variant.sku,
+      productName: productName(variant),
+      familyName: variant.family.name,
+      material: material?.name ?? variant.attributes.material,
+      colour: colour?.name ?? variant.attributes.colour ?? '',
+      entryHoleDiameterMm: variant.report.facts.entryHoleDiameterMm,
+      massG: variant.report.massG,
+      boxOuterMm: box.outerMm,
+      shippedMassG: box.actualMassG,
+      currency: variant.currency,
+      unitPriceCents: variant.priceCents,
+    };
+  });
+}
+
+/** The cells of one row, in {@link PRICE_LIST_COLUMNS} order (numbers stay numbers). */
+function cells(row: PriceListRow): Array<string | number> {
+  return [
+    row.sku,
+    row.productName,
+    row.familyName,
+    row.material,
+    row.colour,
+    round(row.entryHoleDiameterMm, 1),
+    round(row.entryHoleDiameterMm / 25.4, 2),
+    Math.round(row.massG),
+    ...row.boxOuterMm.map((mm) => Math.round(mm)),
+    Math.round(row.shippedMassG),
+    row.currency,
+    round(row.unitPriceCents / 100, 2),
+  ];
+}
+
+/**
+ * The price list as CSV: a header row, then one row per variant; fields with commas, quotes or line breaks are
+ * quoted (csv-stringify). Prices are in currency units with two decimals.
+ * @param rows - price-list rows
+ */
+export function priceListCsv(rows: PriceListRow[]): string {
+  const priceColumn = PRICE_LIST_COLUMNS.length - 1;
+  const records = rows.map((row) =>
+    cells(row).map((cell, i) => (typeof cell === 'number' ? (i === priceColumn ? cell.toFixed(2) : String(cell)) : cell)),
+  );
+  return stringify([[...PRICE_LIST_COLUMNS], ...records], { record_delimiter: 'windows' });
+}
+
+/**
+ * The price list as an .xlsx workbook (exceljs): a frozen bold header with a filter, and number formats.
+ * @param rows - price-list rows
+ * @param issuedOn - date shown in the sheet's title row
+ */
+export async function priceListXlsx(rows: PriceListRow[], issuedOn = new Date()): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = STUDIO_NAME;
+  workbook.created = issuedOn;
+  const sheet = workbook.addWorksheet('Price list', { views: [{ state: 'frozen', ySplit: 1 }] });
+  sheet.columns = PRICE_LIST_COLUMNS.map((title) => ({ header: title, key: title, width: Math.max(12, title.length + 2) }));
+  sheet.getColumn(2).width = 44;
+  sheet.getColumn(1).width = 24;
+  for (const row of rows) sheet.addRow(cells(row));
+  sheet.getRow(1).font = { bold: true };
+  sheet.getColumn(PRICE_LIST_COLUMNS.length).numFmt = '#,##0.00';
+  sheet.getColumn(7).numFmt = '0.00';
+  sheet.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: PRICE_LIST_COLUMNS.length } };
+  return Buffer.from(await workbook.xlsx.writeBuffer());
+}
+
+function round(value: number, digits: number): number {
+  const f = 10 ** digits;
+  return Math.round(value * f) / f;
+}

@@ -1,0 +1,136 @@
+/**
+ * Spec sheets read back with Debian's pdftotext: SKU, entry hole in mm and inches, cautions, care, species with
+ * sources, shipping weights under the configured divisors; fonts embedded from the app's @fontsource packages;
+ * overall dimensions equal to the drawing (the drawing itself is checked against admesh in drawing.test.ts).
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { orthographicDrawing } from '../shared/drawing/orthographicDrawing';
+import { productMesh } from '../server/services/specSheetMesh';
+import { ensureSalesFixture, FIXTURE_SKUS, type SalesFixture } from './salesFixtures';
+import { makeTestApp, type TestApp } from './setup/testApp';
+
+let t: TestApp;
+let fixture: SalesFixture;
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  fixture = await ensureSalesFixture(t.ctx.db);
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+function binary(res: unknown, done: (err: Error | null, body: Buffer) => void): void {
+  const stream = res as NodeJS.ReadableStream;
+  const chunks: Buffer[] = [];
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => done(null, Buffer.concat(chunks)));
+}
+
+/** Writes the PDF to a temporary file and returns its path. */
+function savePdf(bytes: Buffer): string {
+  const file = join(mkdtempSync(join(tmpdir(), 'specsheet-')), 'sheet.pdf');
+  writeFileSync(file, bytes);
+  return file;
+}
+
+const run = (cmd: string, args: string[]) => execFileSync(cmd, args, { encoding: 'utf8' });
+/** pdftotext output with line breaks folded to spaces, so wrapped phrases still match. */
+const flat = (text: string) => text.replace(/\s+/g, ' ');
+
+describe('variant spec sheet', () => {
+  let file: string;
+  let text: string;
+
+  beforeAll(async () => {
+    const sales = await t.agent('sales');
+    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[0]}/spec-sheet.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(res.headers['content-disposition']).toContain(`spec-sheet-${FIXTURE_SKUS[0]}.pdf`);
+    file = savePdf(res.body as Buffer);
+    text = flat(run('pdftotext', ['-raw', file, '-']));
+  }, 60_000);
+
+  it('holds the SKU and the entry hole in millimetres and inches', () => {
+    expect(text).toContain(FIXTURE_SKUS[0]);
+    // 28 mm = 1.10 in (1 in = 25.4 mm)
+    expect(text).toContain('28 mm (1.10 in)');
+  });
+
+  it('holds the hole height, material and colour, mass, back fit and price', () => {
+    const facts = fixture.variants[0].report.facts;
+    expect(text).toContain(`${Math.round(facts.holeAboveFloorMm)} mm (${(facts.holeAboveFloorMm / 25.4).toFixed(2)} in)`);
+    expect(text).toContain('PLA, Sand');
+    expect(text).toContain(`${Math.round(fixture.variants[0].report.massG)} g`);
+    expect(text).toMatch(/Flat back/);
+    expect(text).toMatch(/€\d+\.\d{2} per unit/);
+  });
+
+  it('holds the cautions (heat, perches, mounting height, predator guards, local rules) and the care', () => {
+    for (const title of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.']) expect(text).toContain(title);
+    expect(text).toContain('41.7 °C'); // Audubon (2024) via trade-facts §1d: > 107 °F (41.7 °C) is lethal to nestlings
+    expect(text).toMatch(/perch under the entry/); // USFWS "For the Birds" via trade-facts §1c
+    expect(text).toMatch(/outside only/); // NestWatch FAQ via trade-facts §1c: paint the exterior only
+    expect(text).toMatch(/once a year/);
+  });
+
+  it('names the species it suits with the source of the guidance', () => {
+    // source: RSPB via trade-facts §1b — great tit hole 28 mm, so a 28 mm box suits it
+    expect(text).toContain('Great tit (Parus major)');
+    expect(text).toMatch(/\[1\] .*RSPB|\[2\] .*RSPB/);
+  });
+
+  it('gives the shipping box with actual and dimensional weight under each divisor and its date', () => {
+    expect(text).toMatch(/Box, outside \(L × W × H\) \d+ × \d+ × \d+ mm \([\d.]+ × [\d.]+ × [\d.]+ in\)/);
+    expect(text).toContain('139 in³/lb (2017-01-01)'); // UPS, trade-facts §5
+    expect(text).toContain('5000 cm³/kg'); // metric, trade-facts §5
+    expect(text).toMatch(/Actual weight [\d.]+ (g|kg) \([\d.]+ lb\)/);
+  });
+
+  it('gives overall dimensions equal to the drawing of the same parameters', async () => {
+    const { mesh } = await productMesh('gable-box', fixture.variants[0].params);
+    const o = orthographicDrawing(mesh).overallMm;
+    const triple = `${o.widthMm.toFixed(0)} × ${o.depthMm.toFixed(0)} × ${o.heightMm.toFixed(0)} mm`;
+    expect(text).toContain(triple);
+    expect(text).toContain(`${o.widthMm.toFixed(0)} mm · ${(o.widthMm / 25.4).toFixed(2)} in`); // dimension line
+  });
+
+  it('embeds the fonts the app ships, and no others', () => {
+    const fonts = run('pdffonts', [file]);
+    expect(fonts).toMatch(/SourceSans3/);
+    expect(fonts).toMatch(/Fraunces/);
+    expect(fonts).not.toMatch(/Helvetica/);
+    for (const line of fonts.split('\n').slice(2).filter(Boolean)) expect(line).toMatch(/ yes /); // embedded
+  });
+
+  it('renders to PNG (pdftoppm) with two pages', () => {
+    const out = join(tmpdir(), 'nestwright-specsheet');
+    mkdirSync(out, { recursive: true });
+    run('pdftoppm', ['-png', '-r', '60', file, join(out, 'page')]);
+    expect(run('pdfinfo', [file])).toMatch(/Pages:\s+2/);
+  });
+});
+
+describe('family spec sheet and errors', () => {
+  it('puts every published variant of the family in one PDF, two pages each', async () => {
+    const manager = await t.agent('catalogue_manager');
+    const res = await manager.get(`/api/families/${fixture.familyId}/spec-sheet.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const file = savePdf(res.body as Buffer);
+    expect(run('pdfinfo', [file])).toMatch(new RegExp(`Pages:\\s+${2 * fixture.variants.length}\\b`));
+    const text = flat(run('pdftotext', ['-raw', file, '-']));
+    for (const sku of FIXTURE_SKUS) expect(text).toContain(sku);
+    expect(text).toContain('32 mm (1.26 in)'); // 32 / 25.4 = 1.26
+  }, 60_000);
+
+  it('answers 404 for an unknown SKU or family', async () => {
+    const sales = await t.agent('sales');
+    expect((await sales.get('/api/variants/FH-NOPE-1/spec-sheet.pdf')).status).toBe(404);
+    expect((await sales.get('/api/families/no-such-family/spec-sheet.pdf')).status).toBe(404);
+  });
+});
