@@ -1,6 +1,7 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
 import type { Role } from '../../shared/schemas/auth';
 import { roleGuard } from './roleGuard';
+import { useSessionStore } from '../stores/session';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -59,10 +60,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['designer'], title: 'New family' },
   },
   {
+    // E-mails link here for everyone: a catalogue manager who is not a designer gets the review page instead.
     path: '/families/:id',
     name: 'family',
     component: () => import('../views/FamilyDetailView.vue'),
-    meta: { roles: ['designer'], title: 'Family' },
+    meta: { roles: ['designer', 'catalogue_manager'], title: 'Family' },
+    beforeEnter: (to) =>
+      useSessionStore().hasRole('designer') ? true : { name: 'family-review', params: to.params, replace: true },
   },
   {
     path: '/families/:id/edit',

@@ -13,7 +13,7 @@ import { mkdirSync } from 'node:fs';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startE2E, type E2E } from './harness';
+import { demoPerson, startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
 const CODE = 'HTE';
@@ -43,6 +43,63 @@ async function samplePhotoPng(): Promise<Buffer> {
 /** Text of an element found by test id, trimmed. */
 async function textOf(page: Page, testId: string): Promise<string> {
   return ((await page.getByTestId(testId).first().textContent()) ?? '').trim();
+}
+
+/** JSON body of an API answer, failing the test with the server's message when the status is not the wanted one. */
+async function expectJson<T>(answer: import('playwright-core').APIResponse, status: number): Promise<T> {
+  expect(answer.status(), await answer.text()).toBe(status);
+  return (await answer.json()) as T;
+}
+
+interface FamilyAnswer {
+  family: {
+    id: string;
+    state: string;
+    revision: number;
+    compute: { state: string };
+    gate: { ok: boolean; warnings: { code: string; acknowledgement: unknown }[] };
+  };
+}
+
+/**
+ * Creates, computes, acknowledges and submits a small family through the API as the signed-in designer of `page`
+ * (the browser test of the screens is above; this only prepares a family in review for the send-back check).
+ */
+async function submitFamilyThroughApi(page: Page, code: string, name: string): Promise<string> {
+  const headers = { Origin: e2e.baseUrl };
+  const created = await expectJson<FamilyAnswer>(
+    await page.request.post('/api/families', {
+      headers,
+      data: {
+        code,
+        name,
+        templateId: 'gable-box',
+        axes: [{ kind: 'param', key: 'entryHoleDiameterMm', values: [28, 32] }],
+        supportBudgetMm3: 20_000,
+      },
+    }),
+    201,
+  );
+  const id = created.family.id;
+  await expectJson(await page.request.post(`/api/families/${id}/compute`, { headers, data: {} }), 202);
+  let family = created.family;
+  for (let tries = 0; tries < 240 && family.compute.state !== 'done'; tries++) {
+    await new Promise((resolve) => setTimeout(resolve, 500));
+    family = (await expectJson<FamilyAnswer>(await page.request.get(`/api/families/${id}`), 200)).family;
+    expect(['queued', 'running', 'done']).toContain(family.compute.state);
+  }
+  const open = family.gate.warnings.filter((w) => !w.acknowledgement);
+  if (open.length) {
+    await expectJson(
+      await page.request.post(`/api/families/${id}/acknowledgements`, {
+        headers,
+        data: { acknowledgements: open.map((w) => ({ code: w.code, text: 'Accepted for this test family; the listing carries the caution.' })) },
+      }),
+      200,
+    );
+  }
+  await expectJson(await page.request.post(`/api/families/${id}/submit`, { headers, data: {} }), 200);
+  return id;
 }
 
 describe('variant families: build, review, publish, catalogue', () => {
@@ -232,6 +289,107 @@ describe('variant families: build, review, publish, catalogue', () => {
     // The review area is not the designer's: the router shows the forbidden page.
     await page.goto(`/review/${familyId}`);
     await page.waitForURL(/\/forbidden/);
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
+  it('editing the published family opens revision 2 as a draft; the diff names the change; the catalogue keeps revision 1', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto(`/families/${familyId}`);
+    await page.getByTestId('edit-family').click();
+    await page.waitForURL(`**/families/${familyId}/edit`);
+    await page.locator('#axis-input-entryHoleDiameterMm').fill('25');
+    await page.getByTestId('axis-add-entryHoleDiameterMm').click();
+    await expect(textOf(page, 'variant-count')).resolves.toMatch(/^9\s*variants/);
+    await page.getByTestId('save-family').click();
+    await page.waitForURL((url) => url.pathname === `/families/${familyId}`);
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'));
+    const diff = page.getByTestId('revision-diff');
+    await page.waitForFunction(() => /Variants: 6 → 9/.test(document.querySelector('[data-testid="revision-diff"]')?.textContent ?? ''));
+    await expect(diff.textContent()).resolves.toContain('+25');
+    await page.screenshot({ path: `${SHOTS}/family-revision-2.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+
+    // Sales still sees the six published variants of revision 1, none with the new 25 mm hole.
+    const sales = await e2e.newPage();
+    await e2e.signInAs(sales, 'sales');
+    const listed = await expectJson<{ variants: { sku: string; revision: number }[] }>(await sales.request.get(`/api/catalogue?q=${CODE}`), 200);
+    expect(listed.variants.map((v) => v.sku).filter((sku) => sku.startsWith(`FH-${CODE}-`))).toHaveLength(6);
+    expect(listed.variants.every((v) => v.revision === 1)).toBe(true);
+    await sales.context().close();
+  }, 90_000);
+
+  it('a catalogue manager can send a family back only with comments, and the designer reads them', async () => {
+    const designer = await e2e.newPage();
+    await e2e.signInAs(designer, 'designer');
+    const returnedId = await submitFamilyThroughApi(designer, 'RET', 'Send-back test family');
+
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'catalogue_manager');
+    await page.goto(`/review/${returnedId}`);
+    await page.getByTestId('action-return').click();
+    // The send-back button stays disabled until comments are written.
+    await expect(page.getByTestId('confirm-return').isDisabled()).resolves.toBe(true);
+    const comments = 'Please add a drainage note to the listing and a photo of the 32 mm sample.';
+    await page.locator('#return-comments').fill(comments);
+    await page.getByTestId('confirm-return').click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'));
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+
+    await designer.goto(`/families/${returnedId}`);
+    await designer.getByTestId('review-comments').waitFor();
+    await expect(designer.getByTestId('review-comments').textContent()).resolves.toContain(comments);
+    await designer.screenshot({ path: `${SHOTS}/family-sent-back.png`, fullPage: true });
+    expect(e2e.problems(designer)).toEqual([]);
+    await designer.context().close();
+  }, 240_000);
+
+  it('the editor refuses more than 500 variants with a message naming the count', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto('/families/new');
+    await page.getByTestId('add-param-axis').click();
+    // 11 entry holes × 10 floor widths × 5 colours = 550 variants.
+    for (let mm = 25; mm <= 45; mm += 2) {
+      await page.locator('#axis-input-entryHoleDiameterMm').fill(String(mm));
+      await page.getByTestId('axis-add-entryHoleDiameterMm').click();
+    }
+    await page.getByTestId('add-param-axis').click();
+    const second = page.locator('[data-testid^="axis-"][aria-label^="Axis:"]').nth(1);
+    const key = ((await second.getAttribute('data-testid')) ?? '').replace(/^axis-/, '');
+    const input = page.locator(`#axis-input-${key}`);
+    const [low] = ((await input.getAttribute('placeholder')) ?? '').split(/[–\s]/).map(Number);
+    for (let i = 0; i < 10; i++) {
+      await input.fill(String(low + i));
+      await page.getByTestId(`axis-add-${key}`).click();
+    }
+    await page.getByTestId('add-colour-axis').click();
+    for (const colour of ['white', 'sand', 'moss-green', 'bark-brown', 'black']) await page.getByTestId(`colour-${colour}`).click();
+    await expect(textOf(page, 'variant-count')).resolves.toMatch(/^550\s*variants/);
+    await expect(textOf(page, 'variant-limit')).resolves.toContain('at most 500 variants; these axes make 550');
+    await expect(page.getByTestId('save-family').isDisabled()).resolves.toBe(true);
+    await page.screenshot({ path: `${SHOTS}/family-too-many.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
+
+  it('an admin reads the captured e-mail that told reviewers about the submission', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'admin');
+    const reviewer = demoPerson('catalogue_manager');
+    // Mail goes out through the queue: look again for a while until the message has arrived.
+    let found = false;
+    for (let tries = 0; tries < 20 && !found; tries++) {
+      await page.goto('/admin/mail');
+      await page.getByRole('heading', { name: /Received/ }).waitFor();
+      const texts = await page.getByTestId('mail-message').allTextContents();
+      found = texts.some((text) => text.includes(FAMILY_NAME) && text.includes(reviewer.email));
+      if (!found) await new Promise((resolve) => setTimeout(resolve, 500));
+    }
+    expect(found).toBe(true);
+    await page.screenshot({ path: `${SHOTS}/admin-mail.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 60_000);
