@@ -31,6 +31,8 @@ export interface ExportResult {
 }
 
 interface Waiter {
+  /** The thread the request was sent to: only its failure fails the request. */
+  worker: Worker;
   resolve: (result: ExportResult) => void;
   reject: (err: Error) => void;
   timer: ReturnType<typeof setTimeout>;
@@ -54,18 +56,19 @@ export class ExportWorker {
    * @param templateId - template id
    * @param params - raw parameters (checked again in the worker)
    * @param format - `stl` or `3mf`
+   * @param timeLimitMs - the limit for this request (default: the worker's)
    */
-  run(templateId: string, params: unknown, format: ExportFormat): Promise<ExportResult> {
+  run(templateId: string, params: unknown, format: ExportFormat, timeLimitMs = this.timeLimitMs): Promise<ExportResult> {
     const worker = this.start();
     const requestId = this.nextId++;
     return new Promise((resolve, reject) => {
       const timer = setTimeout(() => {
         this.waiting.delete(requestId);
-        reject(new ExportError('timeout', `generation took longer than ${this.timeLimitMs / 1000} s and was stopped`));
+        reject(new ExportError('timeout', `generation took longer than ${timeLimitMs / 1000} s and was stopped`));
         // Other requests queued on this thread fail too; the next call starts a new thread.
         void this.restart();
-      }, this.timeLimitMs);
-      this.waiting.set(requestId, { resolve, reject, timer });
+      }, timeLimitMs);
+      this.waiting.set(requestId, { worker, resolve, reject, timer });
       worker.postMessage({ requestId, templateId, params, format } satisfies ExportWorkerRequest);
     });
   }
@@ -78,8 +81,9 @@ export class ExportWorker {
   private async restart(reason = new ExportError('failed', 'the export worker was restarted')): Promise<void> {
     const worker = this.worker;
     this.worker = undefined;
-    this.failAll(reason);
-    if (worker) await worker.terminate();
+    if (!worker) return;
+    this.failAll(worker, reason);
+    await worker.terminate();
   }
 
   private start(): Worker {
@@ -98,22 +102,23 @@ export class ExportWorker {
       else waiter.reject(new ExportError(message.kind, message.error, message.field));
     });
     worker.on('error', (err) => {
-      this.failAll(new ExportError('failed', `the export worker failed: ${err.message}`));
+      this.failAll(worker, new ExportError('failed', `the export worker failed: ${err.message}`));
       if (this.worker === worker) this.worker = undefined;
     });
     worker.on('exit', () => {
-      this.failAll(new ExportError('failed', 'the export worker stopped'));
+      this.failAll(worker, new ExportError('failed', 'the export worker stopped'));
       if (this.worker === worker) this.worker = undefined;
     });
     this.worker = worker;
     return worker;
   }
 
-  private failAll(err: Error): void {
-    for (const waiter of this.waiting.values()) {
+  private failAll(worker: Worker, err: Error): void {
+    for (const [requestId, waiter] of this.waiting) {
+      if (waiter.worker !== worker) continue;
       clearTimeout(waiter.timer);
+      this.waiting.delete(requestId);
       waiter.reject(err);
     }
-    this.waiting.clear();
   }
 }

@@ -1,0 +1,130 @@
+/**
+ * `POST /api/exports` and `GET /api/templates` through the real app: files with their hash headers, the server
+ * path giving the same mesh hash as the in-process (browser) path, 400s naming the field and its range, and a
+ * time-limited worker that stops a slow build while the server keeps answering.
+ */
+import { unzipSync, strFromU8 } from 'fflate';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { HttpError } from '../server/http/HttpError';
+import { exportDesign } from '../server/services/exportDesign';
+import { ExportError, ExportWorker } from '../server/workers/ExportWorker';
+import { generate } from '../templates/index';
+import { makeTestApp, type TestApp, type TestAgent } from './setup/testApp';
+
+let t: TestApp;
+let designer: TestAgent;
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  designer = await t.agent('designer');
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+/** supertest buffers binary bodies only with a parser. */
+function binary(res: NodeJS.ReadableStream, done: (err: Error | null, body: unknown) => void): void {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+}
+
+describe('POST /api/exports', () => {
+  it('returns a binary STL whose hash equals the in-process (browser) generation of the same parameters', async () => {
+    const params = { entryHoleDiameterMm: 28, trimStyle: 'boards' };
+    const res = await designer.post('/api/exports').send({ templateId: 'gable-box', params, format: 'stl' }).buffer(true).parse(binary as never);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toContain('model/stl');
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="gable-box-v1-[0-9a-f]{8}\.stl"$/);
+    const local = await generate('gable-box', params);
+    expect(res.headers['x-mesh-sha256']).toBe(local.sha256);
+    expect(Number(res.headers['x-mesh-triangles'])).toBe(local.triangles);
+    // source: Bourke via trade-facts §6 — 84 + 50·N bytes
+    expect((res.body as Buffer).byteLength).toBe(84 + 50 * local.triangles);
+  }, 60_000);
+
+  it('returns a 3MF package in millimetres', async () => {
+    const res = await designer.post('/api/exports').send({ templateId: 'round-pod', params: {}, format: '3mf' }).buffer(true).parse(binary as never);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toContain('model/3mf');
+    const model = strFromU8(unzipSync(new Uint8Array(res.body as Buffer))['3D/3dmodel.model']);
+    expect(model).toMatch(/<model unit="millimeter"/);
+    expect([...model.matchAll(/<triangle /g)].length).toBe(Number(res.headers['x-mesh-triangles']));
+  }, 60_000);
+
+  it.each([
+    [{ templateId: 'dovecote', params: {}, format: 'stl' }, 'templateId', /unknown template "dovecote"/],
+    [{ templateId: 'a-frame', params: { chimney: true }, format: 'stl' }, 'params.chimney', /chimney is not a parameter of a-frame/],
+    [{ templateId: 'a-frame', params: { entryHoleDiameterMm: 80 }, format: 'stl' }, 'params.entryHoleDiameterMm', /^entryHoleDiameterMm must be between 22 and 65 mm$/],
+    [{ templateId: 'bark-trunk', params: { storeys: 3 }, format: 'stl' }, 'params.storeys', /^storeys must be between 1 and 2$/],
+    [{ templateId: 'gable-box', params: { trimStyle: 'thatch' }, format: 'stl' }, 'params.trimStyle', /^trimStyle must be one of none, shingles, boards$/],
+    [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^format:/],
+  ])('answers 400 naming the field and its allowed range: %o', async (body, path, message) => {
+    const res = await designer.post('/api/exports').send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_request');
+    expect(res.body.error.message).toMatch(message);
+    expect(res.body.error.details[0].path).toBe(path);
+  });
+
+  it('keeps answering other requests while an export is being generated', async () => {
+    const slow = designer.post('/api/exports').send({ templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' }).buffer(true).parse(binary as never);
+    const exportDone = slow.then(() => performance.now());
+    // give the request a moment to reach the worker, then ask something else
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    const health = await designer.get('/api/health');
+    const healthAt = performance.now();
+    expect(health.status).toBe(200);
+    expect((await slow).status).toBe(200);
+    expect(healthAt).toBeLessThan(await exportDone);
+  }, 60_000);
+});
+
+describe('export time limit', () => {
+  it('stops a build over the limit with 504, and the same worker then serves the next export', async () => {
+    const worker = new ExportWorker(40);
+    try {
+      const err = await exportDesign(worker, { templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' }).catch((e: unknown) => e);
+      expect(err).toBeInstanceOf(HttpError);
+      expect((err as HttpError).status).toBe(504);
+      expect((err as HttpError).code).toBe('generation_timeout');
+      expect((err as HttpError).message).toMatch(/longer than 0.04 s/);
+      // the stopped thread is replaced on the next call
+      const ok = await worker.run('gable-box', {}, 'stl', 30_000);
+      expect(ok.summary.triangles).toBeGreaterThan(100);
+    } finally {
+      await worker.close();
+    }
+  }, 90_000);
+
+  it('reports a failing build in the worker as a typed error, not a crash', async () => {
+    const worker = new ExportWorker(30_000);
+    try {
+      const err = await worker.run('no-such-template', {}, 'stl').catch((e: unknown) => e);
+      expect(err).toBeInstanceOf(ExportError);
+      expect((err as ExportError).kind).toBe('params');
+      // the same thread still serves the next request
+      const ok = await worker.run('a-frame', { cleaningAccess: false }, '3mf');
+      expect(ok.summary.partCount).toBe(1);
+    } finally {
+      await worker.close();
+    }
+  }, 60_000);
+});
+
+describe('GET /api/templates', () => {
+  it('lists every template with its parameters for any signed-in person', async () => {
+    const sales = await t.agent('sales');
+    const res = await sales.get('/api/templates');
+    expect(res.status).toBe(200);
+    const ids = res.body.templates.map((template: { id: string }) => template.id);
+    expect(ids).toEqual(['gable-box', 'a-frame', 'round-pod', 'bark-trunk']);
+    const gable = res.body.templates[0];
+    const ridge = gable.parameters.find((p: { key: string }) => p.key === 'ridgeFlatMm');
+    // source: issue 3 — ridge strip default 6.35 mm
+    expect(ridge).toMatchObject({ unit: 'mm', kind: 'number', default: 6.35 });
+    const pitch = gable.parameters.find((p: { key: string }) => p.key === 'roofPitchDeg');
+    // source: trade-facts §3 — 45° self-supporting limit enforced by the range
+    expect(pitch.min).toBe(45);
+  });
+});
