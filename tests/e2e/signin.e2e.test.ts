@@ -204,6 +204,27 @@ describe('sign-in, home screen and sign-out', () => {
     const row = page.getByRole('row').filter({ hasText: 'wren@fernhollow.test' });
     expect(await row.textContent()).toContain('Sales');
 
+    // Server-side refusals are shown at the field they concern.
+    await page.getByRole('button', { name: 'Add a person' }).click();
+    await page.getByRole('dialog').getByLabel('Name').fill('Second Wren');
+    await page.getByRole('dialog').getByLabel('E-mail').fill('wren@fernhollow.test');
+    await page.getByRole('dialog').getByLabel('Initial password').fill('wren-password-2');
+    await page.getByRole('dialog').getByRole('checkbox', { name: 'Sales' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Add person' }).click();
+    await page.getByRole('dialog').getByText('A person with this e-mail already exists.').waitFor();
+    await page.getByRole('dialog').getByRole('button', { name: 'Cancel' }).click();
+    await page.getByRole('dialog').waitFor({ state: 'detached' });
+
+    const admin = demoPerson('admin');
+    await page.getByRole('button', { name: `Edit ${admin.name}` }).click();
+    await page.getByRole('dialog').getByRole('checkbox', { name: 'Designer' }).click();
+    await page.getByRole('dialog').getByRole('checkbox', { name: 'Admin' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Save roles' }).click();
+    await page.getByRole('dialog').getByText('The studio needs at least one admin').waitFor();
+    await settle(page);
+    await page.screenshot({ path: `${SHOTS}/admin-last-admin.png` });
+    await page.getByRole('dialog').getByRole('button', { name: 'Cancel' }).click();
+
     // The new person can sign in with the initial password and sees both roles' home.
     const wren = await e2e.newPage();
     await e2e.signIn(wren, 'wren@fernhollow.test', 'wren-password-1');
