@@ -56,4 +56,16 @@ describe('searchOrientation', () => {
     expect(['face -y down', 'face +y down']).toContain(s.best.label);
     expect(s.candidates.find((c) => c.label === 'face -z down')!.reason).toMatch(/same support, 20\.0 mm taller/);
   });
+
+  it('ranks a hollow box standing on a corner last although its cavity then needs no support', () => {
+    // on a corner every inner face is 35° from vertical (< 45°, no support) but the part rests on a point
+    const hollow = manifoldToMesh(wasm.Manifold.cube([50, 50, 50]).subtract(wasm.Manifold.cube([44, 44, 44]).translate([3, 3, 3])));
+    const s = searchOrientation(hollow);
+    expect(s.best.kind).toBe('face');
+    expect(s.best.label).toBe('face -z down'); // all faces tie: the part stays as modelled
+    const corner = s.candidates.find((c) => c.kind === 'corner')!;
+    expect(corner.supportVolumeMm3).toBe(0);
+    expect(corner.reason).toMatch(/unstable/);
+    expect(s.candidates.slice(-8).every((c) => c.kind === 'corner' || c.kind === 'edge')).toBe(true);
+  });
 });

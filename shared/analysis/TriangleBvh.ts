@@ -21,6 +21,7 @@ export class TriangleBvh {
   /** Per node: left child (or first item for a leaf), right child (or -count for a leaf). */
   private readonly links: Int32Array;
   private nodeCount = 0;
+  private readonly stack = new Int32Array(128);
 
   /** @param mesh - the mesh to index */
   constructor(mesh: IndexedMesh) {
@@ -133,7 +134,7 @@ export class TriangleBvh {
   ): RayHit | null {
     if (this.nodeCount === 0) return null;
     const ix = 1 / dx, iy = 1 / dy, iz = 1 / dz;
-    const stack = new Int32Array(128);
+    const stack = this.stack;
     let top = 0;
     stack[top++] = 0;
     let best = Infinity;

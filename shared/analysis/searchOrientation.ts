@@ -16,13 +16,19 @@ type Direction = [number, number, number];
 
 const METHOD =
   'Each of 26 directions of the part (6 faces, 12 edges, 8 corners of its bounding cube) is put on the plate in ' +
-  'turn. Candidates are ranked by support volume; supports within 0.5 % of the part volume (or 10 mm³) count as ' +
-  'equal and are ranked by height (within 0.5 mm equal), then by smaller plate footprint (more copies per ' +
-  'plate), then by larger bed contact (adhesion).';
+  'turn. A candidate that rests on less than 1 % of its footprint (and under 25 mm²), such as a box on a corner, ' +
+  'is unstable and ranks after every stable one. Candidates are ranked by support volume; supports within 0.5 % of ' +
+  'the part volume (or 10 mm³) count as equal and are ranked by height (within 0.5 mm equal), then by smaller ' +
+  'plate footprint (more copies per plate), then by larger bed contact (adhesion).';
+
+/** Rests on too little of the plate to stay put without a brim or support (common practice, no source). */
+function unstable(c: { bedContactAreaMm2: number; footprintMm2: number }): boolean {
+  return c.bedContactAreaMm2 < Math.min(25, 0.01 * c.footprintMm2);
+}
 
 /**
- * Scores at least 26 candidate build orientations by support volume, then height, then plate footprint, and returns
- * the best with every score and a reason.
+ * Scores 26 candidate build orientations by support volume, then height, then plate footprint, and returns
+ * the best with every score and a reason. Orientations that stand on a point or an edge rank last (see METHOD).
  * @param mesh - the part in model coordinates
  * @param options - overhang threshold and ray budget
  * @returns the best orientation, all candidates best first, and the method
@@ -52,6 +58,7 @@ export function searchOrientation(mesh: IndexedMesh, options: OrientationSearchO
   }
   const supportTol = Math.max(10, 0.005 * partVolume);
   const compare = (a: (typeof scored)[number], b: (typeof scored)[number]): number => {
+    if (unstable(a) !== unstable(b)) return unstable(a) ? 1 : -1;
     if (Math.abs(a.supportVolumeMm3 - b.supportVolumeMm3) > supportTol) return a.supportVolumeMm3 - b.supportVolumeMm3;
     if (Math.abs(a.heightMm - b.heightMm) > 0.5) return a.heightMm - b.heightMm;
     if (Math.abs(a.footprintMm2 - b.footprintMm2) > 0.01 * Math.max(a.footprintMm2, b.footprintMm2)) {
@@ -80,9 +87,10 @@ function candidateDirections(): { down: Direction; kind: OrientationCandidate['k
       }
     }
   }
-  // faces first, so ties go to the plainest orientation
+  // faces first and the part as modelled (-z down) first of all, so ties go to the plainest orientation
   const order = { face: 0, edge: 1, corner: 2 };
-  return out.sort((a, b) => order[a.kind] - order[b.kind]);
+  const asModelled = (d: Direction): number => (d[0] === 0 && d[1] === 0 && d[2] === -1 ? 0 : 1);
+  return out.sort((a, b) => order[a.kind] - order[b.kind] || asModelled(a.down) - asModelled(b.down));
 }
 
 /** For a face direction, the axis rotation whose up is the opposite face (keeps the part square to the plate). */
@@ -114,6 +122,9 @@ function reasonAgainst(
   best: Omit<OrientationCandidate, 'rank' | 'reason'>,
   supportTol: number,
 ): string {
+  if (unstable(c) && !unstable(best)) {
+    return `rests on only ${c.bedContactAreaMm2.toFixed(1)} mm² of the plate: unstable without a brim or support`;
+  }
   const extra = c.supportVolumeMm3 - best.supportVolumeMm3;
   if (Math.abs(extra) > supportTol) return `${cm3(extra)} more support than the best`;
   const taller = c.heightMm - best.heightMm;

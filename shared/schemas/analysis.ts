@@ -170,7 +170,7 @@ export type AnalysisReport = z.infer<typeof AnalysisReportSchema>;
 
 /** The options of an analysis request (multipart form fields arrive as text, so numbers are coerced). */
 export const AnalysisRequestSchema = z.object({
-  up: z.union([AxisUpSchema, z.literal('auto')]).default('+z'),
+  up: z.enum([...AxisUpSchema.options, 'auto']).default('+z'),
   printerId: z.string().min(1).max(64).optional(),
   materialId: z.string().min(1).max(64).optional(),
   infillPct: z.coerce.number().min(0).max(100).optional(),

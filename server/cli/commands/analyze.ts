@@ -1,0 +1,144 @@
+/**
+ * `npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] [--infill PCT]
+ * [--json]`: the print-readiness report of an STL or 3MF file.
+ */
+import { readFile } from 'node:fs/promises';
+import { basename } from 'node:path';
+import { parseArgs } from 'node:util';
+import { MeshFormatError } from '../../../shared/mesh/MeshFormatError';
+import { parseMeshFile } from '../../../shared/mesh/parseMeshFile';
+import { analyzeMesh } from '../../../shared/analysis/analyzeMesh';
+import { AnalysisRequestSchema, type AnalysisReport } from '../../../shared/schemas/analysis';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../../shared/production/defaults';
+
+/** One line for the command list. */
+export const summary = 'Print-readiness report of an STL or 3MF file (geometry, support, orientation, cost)';
+
+const USAGE =
+  'Usage: npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] ' +
+  '[--infill PCT] [--overhang DEG] [--json]\n' +
+  `Printers: ${DEFAULT_PRINTERS.map((p) => p.id).join(', ')}\nMaterials: ${DEFAULT_MATERIALS.map((m) => m.id).join(', ')}\n`;
+
+/**
+ * Reads the file, analyses it with the built-in printers and materials and prints the report (a table, or JSON).
+ * @param argv - command-line arguments after the command name
+ * @returns 0 on success, 1 for a file that is not a readable mesh, 2 for bad arguments
+ */
+export async function run(argv: string[]): Promise<number> {
+  let values;
+  try {
+    ({ values } = parseArgs({
+      args: argv,
+      options: {
+        in: { type: 'string' },
+        up: { type: 'string', default: '+z' },
+        printer: { type: 'string' },
+        material: { type: 'string' },
+        infill: { type: 'string' },
+        overhang: { type: 'string' },
+        json: { type: 'boolean', default: false },
+      },
+    }));
+  } catch (err) {
+    process.stderr.write(`${(err as Error).message}\n${USAGE}`);
+    return 2;
+  }
+  if (!values.in) {
+    process.stderr.write(USAGE);
+    return 2;
+  }
+  const request = AnalysisRequestSchema.safeParse({
+    up: values.up,
+    printerId: values.printer,
+    materialId: values.material,
+    infillPct: values.infill,
+    overhangDeg: values.overhang,
+  });
+  if (!request.success) {
+    const issue = request.error.issues[0];
+    process.stderr.write(`--${String(issue.path[0] ?? '')}: ${issue.message}\n${USAGE}`);
+    return 2;
+  }
+  const printer = request.data.printerId ? DEFAULT_PRINTERS.find((p) => p.id === request.data.printerId) : DEFAULT_PRINTERS[0];
+  const material = request.data.materialId
+    ? DEFAULT_MATERIALS.find((m) => m.id === request.data.materialId)
+    : DEFAULT_MATERIALS[0];
+  if (!printer || !material) {
+    process.stderr.write(`Unknown ${printer ? 'material' : 'printer'}.\n${USAGE}`);
+    return 2;
+  }
+  const bytes = new Uint8Array(await readFile(values.in));
+  let mesh;
+  try {
+    mesh = parseMeshFile(bytes, basename(values.in));
+  } catch (err) {
+    if (err instanceof MeshFormatError) {
+      process.stderr.write(`${basename(values.in)}: ${err.message} (${err.reason})\n`);
+      return 1;
+    }
+    throw err;
+  }
+  const settings =
+    request.data.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.data.infillPct };
+  const { report } = analyzeMesh(mesh, {
+    up: request.data.up,
+    printer,
+    material,
+    settings,
+    rates: DEFAULT_RATES,
+    overhangDeg: request.data.overhangDeg,
+  });
+  process.stdout.write(values.json ? `${JSON.stringify(report, null, 2)}\n` : formatReport(report, basename(values.in)));
+  return 0;
+}
+
+const mm = (v: number, digits = 1): string => `${v.toFixed(digits)} mm`;
+const cm3 = (v: number): string => `${(v / 1000).toFixed(1)} cm³`;
+const cm2 = (v: number): string => `${(v / 100).toFixed(1)} cm²`;
+const money = (cents: number, currency: string): string => `${(cents / 100).toFixed(2)} ${currency}`;
+
+/**
+ * The report as an aligned two-column table for people.
+ * @param r - the report
+ * @param name - the file name
+ */
+export function formatReport(r: AnalysisReport, name: string): string {
+  const p = r.production;
+  const rows: [string, string][] = [
+    ['File', name],
+    ['Orientation', r.orientationSearch ? `auto: ${r.orientationSearch.best.label}` : String(typeof r.up === 'string' ? `${r.up} up` : 'rotation')],
+    ['Triangles', String(r.triangles)],
+    ['Size (x × y × z)', r.bbox.sizeMm.map((v) => v.toFixed(1)).join(' × ') + ' mm'],
+    ['Volume', cm3(r.volumeMm3)],
+    ['Surface area', cm2(r.surfaceAreaMm2)],
+    ['Watertight', r.watertight ? 'yes' : `no (${r.edges.openEdges} open, ${r.edges.nonManifoldEdges} non-manifold, ${r.edges.misorientedEdges} misoriented edges)`],
+    ['Shells', String(r.components)],
+    [`Overhang > ${r.overhang.thresholdDeg}°`, `${cm2(r.overhang.areaMm2)} (${r.overhang.faceCount} faces)`],
+    ['Support volume', `${cm3(r.supportVolumeMm3)} (ray pitch ${mm(r.supportSamplePitchMm, 2)})`],
+    ['Bed contact', cm2(r.bedContactAreaMm2)],
+    ['Bridges', r.bridges.regions.length ? r.bridges.regions.map((b) => `${b.spanMm.toFixed(1)} mm ${b.status}`).join(', ') : 'none'],
+    ['Thinnest wall', r.thinnestWall ? `${mm(r.thinnestWall.minMm, 2)} (5th percentile ${mm(r.thinnestWall.p5Mm, 2)})` : 'not measured (open mesh)'],
+    ['Printer', `${r.buildPlate.printerId} (${r.buildPlate.buildVolumeMm.join(' × ')} mm)`],
+    ['Fits / copies per plate', r.buildPlate.fits ? `yes / ${r.buildPlate.copiesPerPlate}` : 'no'],
+    ['Material', r.materialId],
+    ['Mass', `${p.massG.toFixed(0)} g`],
+    ['Filament', `${p.filamentLengthM.toFixed(1)} m`],
+    ['Print time', `${Math.floor(p.printTimeMin / 60)} h ${Math.round(p.printTimeMin % 60)} min`],
+    ['Energy', `${p.energyKwh.toFixed(2)} kWh`],
+    ['Cost per unit', money(p.cost.totalCents, p.currency)],
+    ['  material', money(p.cost.materialCents, p.currency)],
+    ['  machine time', money(p.cost.machineTimeCents, p.currency)],
+    ['  energy', money(p.cost.energyCents, p.currency)],
+    ['  support removal', money(p.cost.supportLabourCents, p.currency)],
+    ['  handling', money(p.cost.handlingLabourCents, p.currency)],
+    ['  packaging', money(p.cost.packagingCents, p.currency)],
+    ['  failure allowance', money(p.cost.failureAllowanceCents, p.currency)],
+  ];
+  if (r.orientationSearch) {
+    for (const c of r.orientationSearch.candidates.slice(0, 5)) rows.push([`  #${c.rank} ${c.label}`, c.reason]);
+  }
+  const width = Math.max(...rows.map(([k]) => k.length));
+  const lines = rows.map(([k, v]) => `${k.padEnd(width)}  ${v}`);
+  if (r.warnings.length) lines.push('', 'Warnings:', ...r.warnings.map((w) => `- ${w}`));
+  return `${lines.join('\n')}\n`;
+}
