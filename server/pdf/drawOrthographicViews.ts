@@ -10,9 +10,9 @@ const PT_PER_MM = 72 / 25.4;
 /** Room for a dimension line and its text beside a view, points. */
 const DIM_ROOM = 34;
 const GAP = 26;
-const INK = '#1f2a24';
-const HIDDEN = '#9aa59f';
-const DIM = '#2f5d50';
+const INK = '#25231e';
+const HIDDEN = '#a39d8e';
+const DIM = '#2f5230';
 
 /** The area to draw into, points. */
 export interface DrawingBox {
@@ -58,7 +58,7 @@ export function drawOrthographicViews(doc: PDFKit.PDFDocument, drawing: Orthogra
   verticalDim(doc, frontOrigin.x - 12, frontOrigin.y - front.heightMm * s, frontOrigin.y, drawing.overallMm.heightMm);
   horizontalDim(doc, sideOrigin.x, sideOrigin.x + side.widthMm * s, sideOrigin.y + 12, drawing.overallMm.depthMm);
 
-  doc.font(FONT.body).fontSize(7.5).fillColor('#5b6660');
+  doc.font(FONT.body).fontSize(7.5).fillColor('#6c675b');
   doc.text(`Scale 1:${scaleN} on A4 at 100 %. Third-angle projection. Hidden edges dashed.`, box.x, box.y + box.height - 10, {
     width: box.width,
     align: 'right',
@@ -76,7 +76,7 @@ function drawView(doc: PDFKit.PDFDocument, view: OrthographicView, origin: { x: 
   doc.undash().lineWidth(0.7).strokeColor(INK);
   strokeSegments(doc, view.visible, px, py);
   doc.restore();
-  doc.font(FONT.bodySemibold).fontSize(7).fillColor('#5b6660');
+  doc.font(FONT.bodySemibold).fontSize(7).fillColor('#6c675b');
   doc.text(label, origin.x, origin.y - view.heightMm * s - 11, { lineBreak: false, characterSpacing: 0.8 });
 }
 

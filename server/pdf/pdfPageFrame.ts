@@ -7,7 +7,7 @@ export const PAGE = { width: 595.28, height: 841.89, margin: 42 } as const;
 export const CONTENT_WIDTH = PAGE.width - 2 * PAGE.margin;
 
 /** Colours of the documents (our own palette: ink, moss, muted). */
-export const INK = { text: '#1f2a24', muted: '#5b6660', accent: '#2f5d50', rule: '#c9d2cc', band: '#eef2ee' } as const;
+export const INK = { text: '#25231e', muted: '#6c675b', accent: '#2f5230', rule: '#ddd5c3', band: '#f5f0e4' } as const;
 
 /**
  * Writes the studio line and the document kind at the top of the current page.

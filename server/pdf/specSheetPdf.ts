@@ -108,7 +108,7 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   const top = afterTitle + 36;
   const pictureW = 200;
   const pictureH = 180;
-  doc.rect(x, top, pictureW, pictureH).fill('#f7f8f6');
+  doc.rect(x, top, pictureW, pictureH).fill('#fcfaf4');
   doc.image(s.picturePng, x + 8, top + 8, { fit: [pictureW - 16, pictureH - 24], align: 'center', valign: 'center' });
   doc.font(FONT.body).fontSize(7).fillColor(INK.muted).text(s.pictureCaption, x + 6, top + pictureH - 12, { width: pictureW - 12, lineBreak: false });
 

@@ -6,6 +6,7 @@ import IconFamilies from '../components/icons/IconFamilies.vue';
 import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
 import IconReview from '../components/icons/IconReview.vue';
+import IconQuotes from '../components/sales/IconQuotes.vue';
 
 /** One area of the product: a nav entry and a home-screen card. */
 export interface Area {
@@ -59,6 +60,14 @@ export const AREAS: readonly Area[] = [
     path: '/catalogue',
     roles: ['sales', 'catalogue_manager', 'designer'],
     icon: IconCatalogue,
+  },
+  {
+    id: 'quotes',
+    label: 'Quotes',
+    description: "Price wholesale orders against the farm's lead time; download spec sheets and price lists.",
+    path: '/quotes',
+    roles: ['sales', 'catalogue_manager'],
+    icon: IconQuotes,
   },
   {
     id: 'people',

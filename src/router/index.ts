@@ -93,6 +93,18 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['sales', 'catalogue_manager', 'designer'], title: 'Catalogue' },
   },
   {
+    path: '/quotes',
+    name: 'quotes',
+    component: () => import('../views/QuotesView.vue'),
+    meta: { roles: ['sales', 'catalogue_manager'], title: 'Quotes' },
+  },
+  {
+    path: '/quotes/:id',
+    name: 'quote-detail',
+    component: () => import('../views/QuoteDetailView.vue'),
+    meta: { roles: ['sales', 'catalogue_manager'], title: 'Quote' },
+  },
+  {
     path: '/admin/mail',
     name: 'admin-mail',
     component: () => import('../views/AdminMailView.vue'),
