@@ -7,7 +7,7 @@
 import { mkdtemp, readdir, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import sharp from 'sharp';
+import sharp, { type Metadata } from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PHOTO_MAX_BYTES, PHOTO_NORMAL_PX, PHOTO_THUMB_PX } from '../shared/schemas/family';
 import { detectPhotoType } from '../server/services/photoService';
@@ -29,7 +29,7 @@ afterAll(async () => {
   await rm(dataDir, { recursive: true, force: true });
 });
 
-async function fetchImage(agentRole: 'sales' | 'designer', url: string): Promise<sharp.Metadata & { status: number; type: string }> {
+async function fetchImage(agentRole: 'sales' | 'designer', url: string): Promise<Metadata & { status: number; type: string }> {
   const res = await (await t.agent(agentRole)).get(url).buffer(true).parse((response, done) => {
     const chunks: Buffer[] = [];
     response.on('data', (chunk: Buffer) => chunks.push(chunk));
