@@ -30,38 +30,41 @@ export class TriangleBvh {
     const triangles = (mesh.indices.length / 3) | 0;
     this.order = new Uint32Array(triangles);
     for (let i = 0; i < triangles; i++) this.order[i] = i;
+    // per-triangle bounds (min x,y,z, max x,y,z) and centroids, so the build never goes back to the index buffer
+    const boxes = new Float32Array(triangles * 6);
     const centroids = new Float32Array(triangles * 3);
     const p = mesh.positions;
     const idx = mesh.indices;
     for (let t = 0; t < triangles; t++) {
+      const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
       for (let d = 0; d < 3; d++) {
-        centroids[t * 3 + d] = (p[idx[t * 3] * 3 + d] + p[idx[t * 3 + 1] * 3 + d] + p[idx[t * 3 + 2] * 3 + d]) / 3;
+        const va = p[a + d], vb = p[b + d], vc = p[c + d];
+        const lo = va < vb ? (va < vc ? va : vc) : vb < vc ? vb : vc;
+        const hi = va > vb ? (va > vc ? va : vc) : vb > vc ? vb : vc;
+        boxes[t * 6 + d] = lo;
+        boxes[t * 6 + 3 + d] = hi;
+        centroids[t * 3 + d] = (lo + hi) / 2;
       }
     }
     const maxNodes = Math.max(1, 2 * Math.ceil(triangles / LEAF_SIZE) * 2);
     this.bounds = new Float32Array(maxNodes * 6);
     this.links = new Int32Array(maxNodes * 2);
-    if (triangles > 0) this.build(0, triangles, centroids);
+    if (triangles > 0) this.build(0, triangles, centroids, boxes);
   }
 
-  private build(first: number, end: number, centroids: Float32Array): number {
+  private build(first: number, end: number, centroids: Float32Array, boxes: Float32Array): number {
     const node = this.nodeCount++;
-    const p = this.positions;
-    const idx = this.indices;
     let mnx = Infinity, mny = Infinity, mnz = Infinity, mxx = -Infinity, mxy = -Infinity, mxz = -Infinity;
     let cmnx = Infinity, cmny = Infinity, cmnz = Infinity, cmxx = -Infinity, cmxy = -Infinity, cmxz = -Infinity;
     for (let i = first; i < end; i++) {
       const t = this.order[i];
-      for (let k = 0; k < 3; k++) {
-        const v = idx[t * 3 + k] * 3;
-        const x = p[v], y = p[v + 1], z = p[v + 2];
-        if (x < mnx) mnx = x;
-        if (y < mny) mny = y;
-        if (z < mnz) mnz = z;
-        if (x > mxx) mxx = x;
-        if (y > mxy) mxy = y;
-        if (z > mxz) mxz = z;
-      }
+      const o = t * 6;
+      if (boxes[o] < mnx) mnx = boxes[o];
+      if (boxes[o + 1] < mny) mny = boxes[o + 1];
+      if (boxes[o + 2] < mnz) mnz = boxes[o + 2];
+      if (boxes[o + 3] > mxx) mxx = boxes[o + 3];
+      if (boxes[o + 4] > mxy) mxy = boxes[o + 4];
+      if (boxes[o + 5] > mxz) mxz = boxes[o + 5];
       const cx = centroids[t * 3], cy = centroids[t * 3 + 1], cz = centroids[t * 3 + 2];
       if (cx < cmnx) cmnx = cx;
       if (cy < cmny) cmny = cy;
@@ -70,7 +73,13 @@ export class TriangleBvh {
       if (cy > cmxy) cmxy = cy;
       if (cz > cmxz) cmxz = cz;
     }
-    this.bounds.set([mnx, mny, mnz, mxx, mxy, mxz], node * 6);
+    const b = node * 6;
+    this.bounds[b] = mnx;
+    this.bounds[b + 1] = mny;
+    this.bounds[b + 2] = mnz;
+    this.bounds[b + 3] = mxx;
+    this.bounds[b + 4] = mxy;
+    this.bounds[b + 5] = mxz;
     const count = end - first;
     const ex = cmxx - cmnx, ey = cmxy - cmny, ez = cmxz - cmnz;
     if (count <= LEAF_SIZE || Math.max(ex, ey, ez) === 0) {
@@ -81,8 +90,8 @@ export class TriangleBvh {
     const axis = ex >= ey && ex >= ez ? 0 : ey >= ez ? 1 : 2;
     const mid = (first + end) >> 1;
     this.select(first, end, mid, axis, centroids);
-    const left = this.build(first, mid, centroids);
-    const right = this.build(mid, end, centroids);
+    const left = this.build(first, mid, centroids, boxes);
+    const right = this.build(mid, end, centroids, boxes);
     this.links[node * 2] = left;
     this.links[node * 2 + 1] = right;
     return node;

@@ -20,71 +20,65 @@ export interface MeshTopology {
 }
 
 /**
- * Counts open, non-manifold and misoriented edges with a hash table keyed on vertex pairs, finds the face across
- * each edge, and counts connected parts with a union-find over vertices.
+ * Counts open, non-manifold and misoriented edges by bucketing each edge under its lower vertex (a counting sort, no
+ * hashing), finds the face across each edge, and counts connected parts with a union-find over vertices.
  * @param mesh - a welded indexed mesh
  * @returns the topology
  */
 export function meshTopology(mesh: IndexedMesh): MeshTopology {
   const idx = mesh.indices;
   const triangles = (idx.length / 3) | 0;
-  const edgeSlots = triangles * 3;
-  let size = 1024;
-  while (size < edgeSlots * 2) size *= 2;
-  const mask = size - 1;
-  const keyLo = new Uint32Array(size).fill(0xffffffff);
-  const keyHi = new Uint32Array(size);
-  const forward = new Uint16Array(size); // uses lo -> hi
-  const backward = new Uint16Array(size); // uses hi -> lo
-  const firstUse = new Int32Array(size); // face * 3 + k of the first use
-  const neighbours = new Int32Array(edgeSlots).fill(-1);
-  for (let t = 0; t < triangles; t++) {
-    for (let k = 0; k < 3; k++) {
-      const a = idx[t * 3 + k];
-      const b = idx[t * 3 + ((k + 1) % 3)];
-      const lo = a < b ? a : b;
-      const hi = a < b ? b : a;
-      let slot = (Math.imul(lo, 0x9e3779b1) ^ Math.imul(hi, 0x85ebca77)) & mask;
-      while (keyLo[slot] !== 0xffffffff && (keyLo[slot] !== lo || keyHi[slot] !== hi)) slot = (slot + 1) & mask;
-      if (keyLo[slot] === 0xffffffff) {
-        keyLo[slot] = lo;
-        keyHi[slot] = hi;
-        firstUse[slot] = t * 3 + k;
-      } else if (forward[slot] + backward[slot] === 1) {
-        const other = firstUse[slot];
-        neighbours[other] = t;
-        neighbours[t * 3 + k] = (other / 3) | 0;
-      } else {
-        neighbours[firstUse[slot]] = -1; // a third use: nothing across this edge is reliable
-      }
-      if (a === lo) forward[slot] = Math.min(forward[slot] + 1, 0xffff);
-      else backward[slot] = Math.min(backward[slot] + 1, 0xffff);
-    }
+  const vertexCount = (mesh.positions.length / 3) | 0;
+  const uses = triangles * 3;
+  // Bucket every edge use under its lower vertex (counting sort), then match uses inside each small bucket.
+  const start = new Uint32Array(vertexCount + 1);
+  for (let u = 0; u < uses; u++) {
+    const a = idx[u];
+    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    start[(a < b ? a : b) + 1]++;
   }
+  for (let v = 0; v < vertexCount; v++) start[v + 1] += start[v];
+  const fill = start.slice(0, vertexCount);
+  const useOf = new Uint32Array(uses);
+  for (let u = 0; u < uses; u++) {
+    const a = idx[u];
+    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    useOf[fill[a < b ? a : b]++] = u;
+  }
+  const neighbours = new Int32Array(uses).fill(-1);
+  const done = new Uint8Array(uses);
   let openEdges = 0;
   let nonManifoldEdges = 0;
   let misorientedEdges = 0;
-  for (let s = 0; s < size; s++) {
-    if (keyLo[s] === 0xffffffff) continue;
-    const uses = forward[s] + backward[s];
-    if (uses === 1) openEdges++;
-    else if (uses > 2) nonManifoldEdges++;
-    else if (forward[s] !== 1) misorientedEdges++;
-  }
-  // Faces beside a non-manifold edge keep no neighbour there (the table above cleared the first; clear the rest).
-  for (let t = 0; t < triangles; t++) {
-    for (let k = 0; k < 3; k++) {
-      const n = neighbours[t * 3 + k];
-      if (n < 0) continue;
-      const a = idx[t * 3 + k];
-      const b = idx[t * 3 + ((k + 1) % 3)];
-      let back = false;
-      for (let j = 0; j < 3; j++) {
-        const c = idx[n * 3 + j];
-        const d = idx[n * 3 + ((j + 1) % 3)];
-        if ((c === a && d === b) || (c === b && d === a)) back = neighbours[n * 3 + j] === t;
+  const hiOf = (u: number): number => {
+    const a = idx[u];
+    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    return a < b ? b : a;
+  };
+  const forwardOf = (u: number): boolean => idx[u] < idx[u - (u % 3) + ((u % 3) + 1) % 3];
+  for (let v = 0; v < vertexCount; v++) {
+    const end = start[v + 1];
+    for (let i = start[v]; i < end; i++) {
+      if (done[i]) continue;
+      const first = useOf[i];
+      const hi = hiOf(first);
+      let count = 1;
+      let forward = forwardOf(first) ? 1 : 0;
+      let second = -1;
+      for (let j = i + 1; j < end; j++) {
+        if (done[j] || hiOf(useOf[j]) !== hi) continue;
+        done[j] = 1;
+        count++;
+        if (forwardOf(useOf[j])) forward++;
+        if (second < 0) second = useOf[j];
       }
-      if (!back) neighbours[t * 3 + k] = -1;
+      if (count === 1) openEdges++;
+      else if (count > 2) nonManifoldEdges++;
+      else {
+        if (forward !== 1) misorientedEdges++;
+        neighbours[first] = (second / 3) | 0;
+        neighbours[second] = (first / 3) | 0;
+      }
     }
   }
   return {
