@@ -23,6 +23,8 @@ export interface BootOptions {
   env?: Env;
   /** Built client to serve (dist/client); omitted = API only. */
   clientDir?: string;
+  /** An HTTP server to answer on (dev mode shares it with Vite's hot-reload socket); a new one by default. */
+  httpServer?: Server;
   /** Adds middleware after the API and before listening (dev mode mounts Vite here). */
   extend?: (app: Express, ctx: AppContext) => Promise<void> | void;
 }
@@ -58,7 +60,8 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
 
   const app = createApp(ctx, { clientDir: options.clientDir });
   await options.extend?.(app, ctx);
-  const server = createServer(app);
+  const server = options.httpServer ?? createServer();
+  server.on('request', app);
   await listen(server, options.port ?? env.PORT);
   const { port } = server.address() as AddressInfo;
   stage(`listening on port ${port}`);

@@ -1,5 +1,6 @@
 /** `npm run dev`: the API and the Vite dev server (hot reload) on one port. */
 import { readFile } from 'node:fs/promises';
+import { createServer as createHttpServer } from 'node:http';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { boot } from './boot';
@@ -8,12 +9,15 @@ import { loadEnv } from './env';
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const env = loadEnv({ NODE_ENV: 'development', ...process.env });
 const { createServer } = await import('vite');
-const vite = await createServer({ root, server: { middlewareMode: true }, appType: 'custom' });
+// One port: Vite's hot-reload WebSocket shares the HTTP server that serves the API and the pages.
+const httpServer = createHttpServer();
+const vite = await createServer({ root, server: { middlewareMode: true, hmr: { server: httpServer } }, appType: 'custom' });
 
 const server = await boot({
   env,
   dataDir: env.DATA_DIR,
   port: env.PORT,
+  httpServer,
   extend(app) {
     app.use(vite.middlewares);
     // SPA fallback: every other GET gets index.html through Vite's transforms (HMR client, module graph).
