@@ -351,7 +351,7 @@ describe('variant families: build, review, publish, catalogue', () => {
     await e2e.signInAs(page, 'designer');
     await page.goto('/families/new');
     await page.getByTestId('add-param-axis').click();
-    // 11 entry holes × 10 floor widths × 5 colours = 550 variants.
+    // 11 entry holes × 10 values of a second parameter × 5 colours = 550 variants.
     for (let mm = 25; mm <= 45; mm += 2) {
       await page.locator('#axis-input-entryHoleDiameterMm').fill(String(mm));
       await page.getByTestId('axis-add-entryHoleDiameterMm').click();
