@@ -112,15 +112,22 @@ export async function renderSpecSheets(variants: CatalogueVariant[], options: Sp
  * @param variant - the variant
  */
 export function productName(variant: CatalogueVariant): string {
-  const parts = Object.entries(variant.axisValues).map(([key, value]) => axisLabel(key, value));
+  // Entry hole first, other shape axes next, colour, material and finish last.
+  const rank = (key: string) => (key === 'entryHoleDiameterMm' ? 0 : ['colour', 'material', 'finish'].includes(key) ? 2 : 1);
+  const parts = Object.entries(variant.axisValues)
+    .sort(([a], [b]) => rank(a) - rank(b))
+    .map(([key, value]) => axisLabel(key, value));
   return parts.length > 0 ? `${variant.family.name}, ${parts.join(', ')}` : variant.family.name;
 }
 
 function axisLabel(key: string, value: unknown): string {
+  const words = (k: string) => k.replace(/(Mm|Deg|Pct|Style)$/, '').replace(/([A-Z])/g, ' $1').toLowerCase();
   if (key === 'entryHoleDiameterMm' && typeof value === 'number') return `${value} mm entry`;
-  if (typeof value === 'boolean') return `${value ? 'with' : 'no'} ${key.replace(/([A-Z])/g, ' $1').toLowerCase()}`;
-  if (typeof value === 'string') return value.replace(/-/g, ' ');
-  return `${key.replace(/Mm$/, '').replace(/([A-Z])/g, ' $1').toLowerCase()} ${String(value)}${key.endsWith('Mm') ? ' mm' : ''}`;
+  if (typeof value === 'boolean') return `${value ? 'with' : 'no'} ${words(key)}`;
+  if (key === 'colour' || key === 'material' || key === 'finish') return String(value).replace(/-/g, ' ');
+  if (typeof value === 'string') return value === 'none' ? `no ${words(key)}` : `${value.replace(/-/g, ' ')} ${words(key)}`;
+  const unit = key.endsWith('Mm') ? ' mm' : key.endsWith('Deg') ? '°' : key.endsWith('Pct') ? ' %' : '';
+  return `${words(key)} ${String(value)}${unit}`;
 }
 
 function scientificName(speciesId: string): string | undefined {
