@@ -1,12 +1,11 @@
 /** Builds the Express app (no listening): the API under /api and, when built, the client with an SPA fallback. */
 import express, { type Express, type RequestHandler } from 'express';
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
 import { sessionMiddleware } from './auth/sessionMiddleware';
 import type { AppContext } from './context';
 import { errorHandler } from './http/errorHandler';
 import { notFound } from './http/HttpError';
 import { originCheck } from './http/originCheck';
+import { serveClient } from './http/serveClient';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
@@ -72,18 +71,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
     throw notFound(`No API route ${req.method} ${req.originalUrl.split('?')[0]}.`);
   });
 
-  if (options.clientDir && existsSync(join(options.clientDir, 'index.html'))) {
-    const indexHtml = join(options.clientDir, 'index.html');
-    app.use(express.static(options.clientDir, { index: false }));
-    app.use((req, res, next) => {
-      if (req.method !== 'GET' && req.method !== 'HEAD') {
-        next();
-        return;
-      }
-      res.set('Cache-Control', 'no-cache');
-      res.sendFile(indexHtml);
-    });
-  }
+  if (options.clientDir) app.use(serveClient(options.clientDir));
 
   app.use(
     errorHandler((err) => ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`)),
