@@ -163,8 +163,9 @@ export const barkTrunk: Template<typeof parameters> = {
       heightMm,
       barkDepthMm: p.barkDepthMm,
       seed: p.barkSeed,
-      segments: SEGMENTS * 2,
-      rowMm: 3,
+      // 160 × 4 mm rows: the furrows stay crisp at about 40 % fewer triangles than 192 × 3 mm (measured).
+      segments: 160,
+      rowMm: 4,
     });
     const body = trunk.add(...additions).subtract(...cuts);
     const parts = [{ name: 'body', geometry: toGeom3(body) }];
