@@ -1,6 +1,8 @@
 /** Starts and stops what the family features run beside the HTTP server: e-mail and the computation worker. */
 import type { Server } from 'node:http';
+import { inArray } from 'drizzle-orm';
 import type { AppContext } from '../context';
+import { familyRevisions } from '../db/schema';
 import { familyJobs } from '../jobs/FamilyJobRunner';
 import { startMail, stopMail, type StartMailOptions } from './mailService';
 
@@ -12,6 +14,13 @@ import { startMail, stopMail, type StartMailOptions } from './mailService';
  * @param options - mail settings (process.env by default)
  */
 export async function startFamilyServices(ctx: AppContext, server: Server, options: StartMailOptions = {}): Promise<void> {
+  // A computation cut off by a restart cannot resume: say so instead of showing it running forever.
+  const interrupted = await ctx.db
+    .update(familyRevisions)
+    .set({ computeState: 'failed', computeError: 'the server restarted during the computation; compute again', computeFinishedAt: new Date() })
+    .where(inArray(familyRevisions.computeState, ['queued', 'running']))
+    .returning({ id: familyRevisions.id });
+  if (interrupted.length > 0) ctx.log(`  families: ${interrupted.length} interrupted computation(s) marked failed`);
   const mail = await startMail(ctx, options);
   ctx.log(`  mail: ${mail.smtp ? `fake SMTP server on port ${mail.port}` : `delivering to port ${mail.port}`}`);
   server.once('close', () => {

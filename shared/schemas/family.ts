@@ -611,7 +611,7 @@ export const AuditListResponseSchema = z.object({ events: z.array(FamilyAuditEve
 /** Answer of `GET /api/families/:id/audit`. */
 export type AuditListResponse = z.infer<typeof AuditListResponseSchema>;
 
-/** A published variant with everything a spec sheet, price list or quote needs. */
+/** A published variant with everything a spec sheet, price list or quote needs (bird-facing facts in `report.facts`). */
 export const CatalogueVariantSchema = VariantSchema.pick({
   sku: true,
   variantKey: true,
