@@ -5,9 +5,13 @@
  * practice caps an address at 254 characters.
  */
 import express from 'express';
+import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiErrorSchema } from '../shared/schemas/error';
+import { createApp } from '../server/app';
 import { errorHandler } from '../server/http/errorHandler';
 import { makeTestApp, type TestAgent, type TestApp } from './setup/testApp';
 
@@ -126,5 +130,32 @@ describe('not found and failures', () => {
     expect(errorOf(res)).toEqual({ code: 'internal', message: expect.any(String) });
     expect(res.text).not.toMatch(/secret|\.ts:|at /);
     expect(logged).toHaveLength(1);
+  });
+});
+
+describe('serving the built client', () => {
+  it('serves files, index.html for pages, 404 for missing files, and keeps /api in the error shape', async () => {
+    const clientDir = await mkdtemp(join(tmpdir(), 'nestwright-client-'));
+    try {
+      await mkdir(join(clientDir, 'assets'));
+      await writeFile(join(clientDir, 'index.html'), '<!doctype html><title>Nestwright</title>');
+      await writeFile(join(clientDir, 'assets', 'main-abc123.js'), 'console.log(1)');
+      const app = createApp(t.ctx, { clientDir });
+      for (const page of ['/', '/designs/42', '/admin/people']) {
+        const res = await supertest(app).get(page);
+        expect(res.status, page).toBe(200);
+        expect(res.text).toContain('<title>Nestwright</title>');
+        expect(res.headers['cache-control']).toBe('no-cache');
+      }
+      const asset = await supertest(app).get('/assets/main-abc123.js');
+      expect(asset.status).toBe(200);
+      expect(asset.headers['cache-control']).toContain('immutable');
+      expect((await supertest(app).get('/assets/missing-000.js')).status).toBe(404);
+      const api = await supertest(app).get('/api/nothing-here');
+      expect(api.status).toBe(404);
+      expect(errorOf(api).code).toBe('not_found');
+    } finally {
+      await rm(clientDir, { recursive: true, force: true });
+    }
   });
 });
