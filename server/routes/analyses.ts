@@ -6,7 +6,8 @@ import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { HttpError, badRequest } from '../http/HttpError';
 import { parsedBody, validate } from '../http/validate';
-import { ANALYSIS_MAX_UPLOAD_BYTES, analyzeUpload, defaultCatalogue, type AnalysisCatalogue } from '../services/analysis';
+import { ANALYSIS_MAX_UPLOAD_BYTES, analysisOptions, analyzeUpload, defaultCatalogue, type AnalysisCatalogue } from '../services/analysis';
+import { AnalysisWorker } from '../services/analysisWorker';
 import { loadMaterials, loadPrinters } from '../services/familyProduction';
 
 /** Multipart upload of one mesh file in memory; a file over the limit is a bad mesh (400), like any other. */
@@ -32,10 +33,12 @@ const meshUpload: RequestHandler = (req, res, next) => {
 /**
  * Builds the analyses router (mounted at `/api/analyses`): designers post a mesh file (multipart field `file`) with
  * optional fields up (+z…-y or auto), printerId, materialId, infillPct and overhangDeg, and get the report.
- * Printers and materials come from the database, or the built-in defaults when it holds none.
+ * Printers and materials come from the database, or the built-in defaults when it holds none. The file is parsed
+ * and analysed in a worker thread, so a large mesh does not hold up other requests.
  * @param ctx - the application context
  */
 export function analysesRouter(ctx: AppContext): Router {
+  const worker = new AnalysisWorker();
   const router = Router();
   router.post('/', requireRole('designer'), meshUpload, validate({ body: AnalysisRequestSchema }), async (req, res) => {
     if (!req.file) throw badRequest('file: attach the STL or 3MF file in the multipart field "file"');
@@ -46,8 +49,9 @@ export function analysesRouter(ctx: AppContext): Router {
       printers: printers.size ? printers : defaults.printers,
       materials: materials.size ? materials : defaults.materials,
     };
+    const options = analysisOptions(request, catalogue);
     const bytes = new Uint8Array(req.file.buffer.buffer, req.file.buffer.byteOffset, req.file.buffer.byteLength);
-    res.json(analyzeUpload(bytes, req.file.originalname, request, catalogue));
+    res.json(await analyzeUpload(worker, bytes, req.file.originalname, options));
   });
   return router;
 }

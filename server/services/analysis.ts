@@ -1,11 +1,10 @@
-/** Analysis of uploaded mesh files: parse, pick the printer and material, run the shared engine. */
-import { analyzeMesh } from '../../shared/analysis/analyzeMesh';
-import { MeshFormatError } from '../../shared/mesh/MeshFormatError';
-import { parseMeshFile } from '../../shared/mesh/parseMeshFile';
+/** Analysis of uploaded mesh files: pick the printer and material, then parse and analyse in a worker thread. */
+import type { AnalyzeMeshOptions } from '../../shared/analysis/analyzeMesh';
 import type { AnalysisReport, AnalysisRequest } from '../../shared/schemas/analysis';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import { HttpError, badRequest } from '../http/HttpError';
+import { AnalysisError, type AnalysisWorker } from './analysisWorker';
 
 /** Largest upload the API analyses (about 1.3 M triangles of binary STL): keeps one request to a few seconds. */
 export const ANALYSIS_MAX_UPLOAD_BYTES = 64 * 1024 * 1024;
@@ -25,38 +24,46 @@ export function defaultCatalogue(): AnalysisCatalogue {
 }
 
 /**
- * Parses an uploaded mesh file and returns the full print-readiness report.
- * @param bytes - the file
- * @param filename - the uploaded name (for messages)
- * @param request - orientation, printer, material, infill
- * @param catalogue - printers and materials to choose from (the first of each is the default)
- * @throws HttpError 400 `bad_mesh` (details.reason) for a file that is not a readable mesh, 400 `bad_request` for an
- *   unknown printer or material
+ * The engine options for a request: the chosen (or first) printer and material, default settings with the requested
+ * infill, and the default rates.
+ * @param request - orientation, printer, material, infill, overhang threshold
+ * @param catalogue - printers and materials to choose from
+ * @throws HttpError 400 for an unknown printer or material
  */
-export function analyzeUpload(
-  bytes: Uint8Array,
-  filename: string | undefined,
-  request: AnalysisRequest,
-  catalogue: AnalysisCatalogue,
-): AnalysisReport {
-  const printer = pick(catalogue.printers, request.printerId, 'printerId');
-  const material = pick(catalogue.materials, request.materialId, 'materialId');
-  let mesh;
-  try {
-    mesh = parseMeshFile(bytes, filename);
-  } catch (err) {
-    if (err instanceof MeshFormatError) throw new HttpError(400, 'bad_mesh', err.message, { reason: err.reason });
-    throw err;
-  }
-  const settings = request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct };
-  return analyzeMesh(mesh, {
+export function analysisOptions(request: AnalysisRequest, catalogue: AnalysisCatalogue): AnalyzeMeshOptions {
+  return {
     up: request.up,
-    printer,
-    material,
-    settings,
+    printer: pick(catalogue.printers, request.printerId, 'printerId'),
+    material: pick(catalogue.materials, request.materialId, 'materialId'),
+    settings: request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct },
     rates: DEFAULT_RATES,
     overhangDeg: request.overhangDeg,
-  }).report;
+  };
+}
+
+/**
+ * Parses an uploaded mesh file and returns the full print-readiness report, computed in the worker thread.
+ * @param worker - the analysis worker
+ * @param bytes - the file
+ * @param filename - the uploaded name (for messages)
+ * @param options - from {@link analysisOptions}
+ * @throws HttpError 400 `bad_mesh` (details.reason) for a file that is not a readable mesh, 504 when over time
+ */
+export async function analyzeUpload(
+  worker: AnalysisWorker,
+  bytes: Uint8Array,
+  filename: string | undefined,
+  options: AnalyzeMeshOptions,
+): Promise<AnalysisReport> {
+  try {
+    return await worker.run(bytes, filename, options);
+  } catch (err) {
+    if (err instanceof AnalysisError && err.kind === 'mesh') {
+      throw new HttpError(400, 'bad_mesh', err.message, { reason: err.reason });
+    }
+    if (err instanceof AnalysisError && err.kind === 'timeout') throw new HttpError(504, 'analysis_timeout', err.message);
+    throw err;
+  }
 }
 
 function pick<T>(items: Map<string, T>, id: string | undefined, field: string): T {
