@@ -109,7 +109,9 @@ describe('variant families: build, review, publish, catalogue', () => {
     const page = await e2e.newPage();
     await e2e.signInAs(page, 'designer');
     await page.goto('/families');
-    await expect(page.getByTestId('no-families').count()).resolves.toBeGreaterThanOrEqual(0);
+    await page.getByTestId('new-family').waitFor();
+    await page.waitForFunction(() => !document.querySelector('.n-data-table .n-base-loading'));
+    await page.screenshot({ path: `${SHOTS}/families-list.png`, fullPage: true });
     await page.getByTestId('new-family').click();
     await page.waitForURL('**/families/new');
 
@@ -194,6 +196,13 @@ describe('variant families: build, review, publish, catalogue', () => {
     }).catch(async (err: unknown) => {
       throw new Error(`gate stays blocked: ${await textOf(page, 'gate-panel')} (${String(err)})`);
     });
+
+    // A text file named like a PNG is refused by its content, and the page says so.
+    const fileInput = page.getByTestId('photo-gallery').locator('input[type="file"]');
+    await fileInput.setInputFiles({ name: 'not-a-photo.png', mimeType: 'image/png', buffer: Buffer.from('just some words, no pixels') });
+    await page.getByTestId('photo-error').waitFor();
+    await expect(textOf(page, 'photo-error')).resolves.toContain('not-a-photo.png');
+    expect(await page.getByTestId('photo').count()).toBe(0);
 
     // Photo of a sample print: uploaded through the upload area, thumbnail shown from the server.
     const png = await samplePhotoPng();
@@ -393,4 +402,43 @@ describe('variant families: build, review, publish, catalogue', () => {
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 60_000);
+  it('a running computation can be cancelled from the progress panel', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    // 8 entry holes × 3 trims = 24 different meshes: long enough to cancel part-way.
+    const created = await expectJson<FamilyAnswer>(
+      await page.request.post('/api/families', {
+        headers: { Origin: e2e.baseUrl },
+        data: {
+          code: 'CAN',
+          name: 'Cancel test family',
+          templateId: 'gable-box',
+          axes: [
+            { kind: 'param', key: 'entryHoleDiameterMm', values: [25, 26, 27, 28, 29, 30, 31, 32] },
+            { kind: 'param', key: 'trimStyle', values: ['none', 'shingles', 'boards'] },
+          ],
+          supportBudgetMm3: 20_000,
+        },
+      }),
+      201,
+    );
+    await page.goto(`/families/${created.family.id}`);
+    await page.getByTestId('start-compute').click();
+    await page.getByTestId('cancel-compute').click();
+    await page.waitForFunction(
+      () => document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'cancelled',
+      undefined,
+      { timeout: 30_000 },
+    );
+    const [done, total] = (await textOf(page, 'compute-count')).split(/\D+/).filter(Boolean).map(Number);
+    expect(total).toBe(24);
+    expect(done).toBeLessThan(24);
+    await expect(textOf(page, 'compute-state')).resolves.toMatch(/Cancelled/);
+    // The gate says the family is not fully computed, and submitting is not offered as possible.
+    await expect(page.getByTestId('gate-status').textContent()).resolves.toContain('Blocked');
+    await expect(page.getByTestId('action-submit').isDisabled()).resolves.toBe(true);
+    await page.screenshot({ path: `${SHOTS}/family-cancelled.png`, fullPage: true });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 90_000);
 });
