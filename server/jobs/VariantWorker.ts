@@ -42,6 +42,8 @@ export class VariantWorker {
     // inside vitest alike (loader flags in a worker's execArgv are not honoured on Node 20).
     const bootstrap = `import('tsx/esm/api').then(({ tsImport }) => tsImport(${JSON.stringify(WORKER_URL.href)}, ${JSON.stringify(import.meta.url)}))`;
     const worker = new Worker(bootstrap, { eval: true });
+    // The thread alone never keeps the process alive: the HTTP server or a waiting caller does.
+    worker.unref();
     worker.on('message', (message: VariantWorkerResponse) => {
       const waiter = this.waiting.get(message.requestId);
       if (!waiter) return;
