@@ -22,6 +22,7 @@ export class VariantWorker {
   compute(templateId: string, params: Record<string, unknown>): Promise<VariantGeometry> {
     const worker = this.start();
     const requestId = this.nextId++;
+    worker.ref();
     return new Promise((resolve, reject) => {
       this.waiting.set(requestId, { resolve, reject });
       worker.postMessage({ requestId, templateId, params } satisfies VariantWorkerRequest);
@@ -42,12 +43,13 @@ export class VariantWorker {
     // inside vitest alike (loader flags in a worker's execArgv are not honoured on Node 20).
     const bootstrap = `import('tsx/esm/api').then(({ tsImport }) => tsImport(${JSON.stringify(WORKER_URL.href)}, ${JSON.stringify(import.meta.url)}))`;
     const worker = new Worker(bootstrap, { eval: true });
-    // The thread alone never keeps the process alive: the HTTP server or a waiting caller does.
+    // An idle thread never keeps the process alive; one with work in hand does (see compute()).
     worker.unref();
     worker.on('message', (message: VariantWorkerResponse) => {
       const waiter = this.waiting.get(message.requestId);
       if (!waiter) return;
       this.waiting.delete(message.requestId);
+      if (this.waiting.size === 0) worker.unref();
       if (message.ok) waiter.resolve(message.geometry);
       else waiter.reject(new Error(message.error));
     });
