@@ -32,28 +32,40 @@ class StandInWorker {
   }
 }
 
-function okAnswer(requestId: number, sha256: string): GeometryResponse {
+const FACTS = {
+  entryHoleDiameterMm: 32,
+  floorWidthMm: 120,
+  floorDepthMm: 120,
+  cavityDepthMm: 160,
+  holeAboveFloorMm: 130,
+  wallThicknessMm: 3,
+  hasPerch: false,
+  drainageHoleCount: 4,
+  ventilationAreaMm2: 360,
+  cleaningAccess: true,
+  chambers: 1,
+};
+
+function meshAnswer(requestId: number, sha256: string): GeometryResponse {
   return {
     requestId,
     ok: true,
+    stage: 'mesh',
     templateVersion: 1,
     mesh: { positions: new Float32Array(9), indices: new Uint32Array([0, 1, 2]) },
-    overhangMask: null,
-    facts: {
-      entryHoleDiameterMm: 32,
-      floorWidthMm: 120,
-      floorDepthMm: 120,
-      cavityDepthMm: 160,
-      holeAboveFloorMm: 130,
-      wallThicknessMm: 3,
-      hasPerch: false,
-      drainageHoleCount: 4,
-      ventilationAreaMm2: 360,
-      cleaningAccess: true,
-      chambers: 1,
-    },
+    facts: FACTS,
+    sha256,
+    buildMs: 5,
+  };
+}
+
+function figuresAnswer(requestId: number, volumeMm3: number): GeometryResponse {
+  return {
+    requestId,
+    ok: true,
+    stage: 'figures',
     figures: {
-      volumeMm3: 1,
+      volumeMm3,
       surfaceAreaMm2: 1,
       boundingBoxMm: [1, 1, 1],
       triangleCount: 1,
@@ -65,8 +77,8 @@ function okAnswer(requestId: number, sha256: string): GeometryResponse {
       birdFit: null,
       unavailable: [],
     },
-    sha256,
-    timingsMs: { build: 1, analysis: 1, total: 2 },
+    overhangMask: new Uint8Array(1),
+    analysisMs: 3,
   };
 }
 
@@ -80,7 +92,7 @@ afterEach(() => {
 });
 
 describe('useGeometryWorker', () => {
-  it('keeps one build in flight, sends only the latest queued request and drops stale answers', () => {
+  it('waits for one mesh at a time, sends only the latest queued request and drops stale answers', () => {
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;
     geometry.request('gable-box', { entryHoleDiameterMm: 28 }, 'workhorse-220');
@@ -92,19 +104,48 @@ describe('useGeometryWorker', () => {
     expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([28]);
     expect(geometry.busy.value).toBe(true);
 
-    // The first answer is stale (two newer requests exist): dropped; the latest queued request goes next.
-    worker.answer(okAnswer(worker.posted[0].requestId, 'a'.repeat(64)));
+    // The first mesh is stale (two newer requests exist): dropped; the latest queued request goes next.
+    const [first] = worker.posted;
+    worker.answer(meshAnswer(first.requestId, 'a'.repeat(64)));
     expect(geometry.result.value).toBeNull();
     expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([28, 32]);
+    worker.answer({ requestId: first.requestId, ok: true, stage: 'skipped' });
     expect(geometry.busy.value).toBe(true);
 
-    worker.answer(okAnswer(worker.posted[1].requestId, 'b'.repeat(64)));
+    // The latest mesh shows at once; the design stays busy until its figures arrive.
+    const latest = worker.posted[1];
+    worker.answer(meshAnswer(latest.requestId, 'b'.repeat(64)));
     expect(geometry.result.value?.sha256).toBe('b'.repeat(64));
+    expect(geometry.result.value?.figuresCurrent).toBe(false);
+    expect(geometry.busy.value).toBe(true);
+    worker.answer(figuresAnswer(latest.requestId, 1234));
+    expect(geometry.result.value?.figures?.volumeMm3).toBe(1234);
+    expect(geometry.result.value?.figuresCurrent).toBe(true);
+    expect(geometry.result.value?.overhangMask).toHaveLength(1);
     expect(geometry.busy.value).toBe(false);
     expect(geometry.error.value).toBeNull();
 
     scope.stop();
     expect(worker.terminated).toBe(true);
+  });
+
+  it('keeps the previous figures (marked not current) while a newer mesh waits for its analysis', () => {
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('gable-box', {}, 'workhorse-220');
+    const worker = StandInWorker.created[0];
+    worker.answer(meshAnswer(worker.posted[0].requestId, 'c'.repeat(64)));
+    worker.answer(figuresAnswer(worker.posted[0].requestId, 100));
+    geometry.request('gable-box', { entryHoleDiameterMm: 40 }, 'workhorse-220');
+    worker.answer(meshAnswer(worker.posted[1].requestId, 'd'.repeat(64)));
+    expect(geometry.result.value?.sha256).toBe('d'.repeat(64));
+    expect(geometry.result.value?.figures?.volumeMm3).toBe(100);
+    expect(geometry.result.value?.figuresCurrent).toBe(false);
+    expect(geometry.result.value?.overhangMask).toBeNull();
+    // Figures of an older request never overwrite the newer mesh's.
+    worker.answer(figuresAnswer(worker.posted[0].requestId, 999));
+    expect(geometry.result.value?.figures?.volumeMm3).toBe(100);
+    scope.stop();
   });
 
   it('shows a parameter error with its field, and clears it on the next good build', () => {
@@ -123,7 +164,7 @@ describe('useGeometryWorker', () => {
     expect(geometry.busy.value).toBe(false);
 
     geometry.request('gable-box', { entryHoleDiameterMm: 32 }, 'workhorse-220');
-    worker.answer(okAnswer(worker.posted[1].requestId, 'c'.repeat(64)));
+    worker.answer(meshAnswer(worker.posted[1].requestId, 'e'.repeat(64)));
     expect(geometry.error.value).toBeNull();
     expect(geometry.errorField.value).toBeNull();
     scope.stop();

@@ -1,21 +1,39 @@
 import { onScopeDispose, ref, shallowRef } from 'vue';
+import type { IndexedMesh } from '../../shared/schemas/mesh';
+import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import type { Region } from '../../shared/schemas/birdfit';
-import type { GeometryRequest, GeometryResponse } from '../workers/geometryProtocol';
+import type { DesignFigures, GeometryRequest, GeometryResponse } from '../workers/geometryProtocol';
 
-/** Longest a single build may take before the worker is restarted and the design shows an error. */
+/** Longest the worker may stay silent on a request before it is restarted and the design shows an error. */
 const BUILD_TIME_LIMIT_MS = 30_000;
 
-/** A successful worker answer. */
-export type GeometryResult = Extract<GeometryResponse, { ok: true }>;
+/** The design as the editor shows it: the latest mesh and, once analysed, its figures. */
+export interface GeometryResult {
+  requestId: number;
+  templateVersion: number;
+  mesh: IndexedMesh;
+  facts: NestBoxFacts;
+  /** sha256 of the mesh content, hex. */
+  sha256: string;
+  /** Figures of this mesh; until they arrive, the previous design's figures (see `figuresCurrent`). */
+  figures: DesignFigures | null;
+  /** Whether `figures` belong to this mesh. */
+  figuresCurrent: boolean;
+  /** Per-triangle overhang flags of this mesh, or null until analysed. */
+  overhangMask: Uint8Array | null;
+  timingsMs: { build: number; analysis: number | null };
+}
 
 /**
- * Runs template builds in a Web Worker so the page never freezes. Only one build is in flight; while it runs, newer
- * requests replace each other and only the latest is sent next (latest request wins, stale answers are dropped).
- * @returns the latest result, busy flag, error text and `request(templateId, params, printerId)`
+ * Runs template builds in a Web Worker so the page never freezes. At most one request waits for its mesh at a time;
+ * newer requests replace queued ones (latest request wins) and answers to older requests are dropped. The mesh
+ * arrives first and the figures follow, so the preview updates before the analysis is done.
+ * @returns the latest result, busy flag, error text and field, and `request(templateId, params, printerId, region)`
  */
 export function useGeometryWorker() {
-  /** The latest answer (mesh arrays are transferred, so keep them out of deep reactivity). */
+  /** The latest design (mesh arrays are transferred: keep them out of deep reactivity). */
   const result = shallowRef<GeometryResult | null>(null);
+  /** True until the latest request's figures (or its error) have arrived. */
   const busy = ref(false);
   const error = ref<string | null>(null);
   const errorField = ref<string | null>(null);
@@ -23,7 +41,8 @@ export function useGeometryWorker() {
   let worker: Worker | null = null;
   let nextId = 1;
   let latestId = 0;
-  let inFlight: GeometryRequest | null = null;
+  /** The request sent whose mesh has not arrived yet. */
+  let awaitingMesh: number | null = null;
   let queued: GeometryRequest | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
 
@@ -32,18 +51,23 @@ export function useGeometryWorker() {
     created.onmessage = (event: MessageEvent<GeometryResponse>) => settle(event.data);
     created.onerror = (event) => {
       event.preventDefault();
-      fail(`The geometry worker stopped: ${event.message || 'unknown error'}`);
       restart();
+      fail(`The geometry worker stopped: ${event.message || 'unknown error'}`);
+      pump();
     };
     return created;
+  }
+
+  function stopTimer(): void {
+    if (timer) clearTimeout(timer);
+    timer = null;
   }
 
   function restart(): void {
     worker?.terminate();
     worker = null;
-    inFlight = null;
-    if (timer) clearTimeout(timer);
-    timer = null;
+    awaitingMesh = null;
+    stopTimer();
   }
 
   function fail(message: string, field: string | null = null): void {
@@ -52,12 +76,10 @@ export function useGeometryWorker() {
     busy.value = queued !== null;
   }
 
-  function send(request: GeometryRequest): void {
-    worker ??= start();
-    inFlight = request;
-    busy.value = true;
-    worker.postMessage(request);
-    if (timer) clearTimeout(timer);
+  /** (Re)arms the time limit while the worker owes an answer about the latest request. */
+  function armTimer(): void {
+    stopTimer();
+    if (!busy.value) return;
     timer = setTimeout(() => {
       restart();
       fail(`Building the model took longer than ${BUILD_TIME_LIMIT_MS / 1000} s and was stopped. Try other values.`);
@@ -66,26 +88,47 @@ export function useGeometryWorker() {
   }
 
   function pump(): void {
-    if (inFlight || !queued) return;
+    if (awaitingMesh !== null || !queued) return;
     const next = queued;
     queued = null;
-    send(next);
+    worker ??= start();
+    awaitingMesh = next.requestId;
+    busy.value = true;
+    worker.postMessage(next);
+    armTimer();
   }
 
   function settle(response: GeometryResponse): void {
-    if (timer) clearTimeout(timer);
-    timer = null;
-    inFlight = null;
-    if (response.requestId === latestId) {
-      if (response.ok) {
-        result.value = response;
-        error.value = null;
-        errorField.value = null;
-      } else {
-        fail(response.message, response.field ?? null);
-      }
+    if (awaitingMesh === response.requestId && (!response.ok || response.stage === 'mesh')) awaitingMesh = null;
+    const latest = response.requestId === latestId;
+    if (!response.ok) {
+      if (latest) fail(response.message, response.field ?? null);
+    } else if (response.stage === 'mesh' && latest) {
+      const previous = result.value;
+      result.value = {
+        requestId: response.requestId,
+        templateVersion: response.templateVersion,
+        mesh: response.mesh,
+        facts: response.facts,
+        sha256: response.sha256,
+        figures: previous?.figures ?? null,
+        figuresCurrent: false,
+        overhangMask: null,
+        timingsMs: { build: response.buildMs, analysis: null },
+      };
+      error.value = null;
+      errorField.value = null;
+    } else if (response.stage === 'figures' && latest && result.value?.requestId === response.requestId) {
+      result.value = {
+        ...result.value,
+        figures: response.figures,
+        figuresCurrent: true,
+        overhangMask: response.overhangMask,
+        timingsMs: { ...result.value.timingsMs, analysis: response.analysisMs },
+      };
+      busy.value = queued !== null;
     }
-    busy.value = queued !== null;
+    armTimer();
     pump();
   }
 

@@ -1,7 +1,8 @@
 /// <reference lib="webworker" />
 /**
- * The geometry worker: builds a template (the same generate() the server export uses), analyses the mesh and
- * answers with transferable typed arrays, so the page never freezes while a design is rebuilt.
+ * The geometry worker: builds a template (the same generate() the server export uses), posts the mesh at once, then
+ * analyses it and posts the figures. Requests are handled one at a time in arrival order; when a newer request is
+ * already waiting, the analysis of the older one is skipped. Meshes travel as transferable typed arrays.
  */
 import { generate } from '../../templates/generate';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
@@ -9,42 +10,68 @@ import type { GeometryRequest, GeometryResponse } from './geometryProtocol';
 import { computeDesignFigures } from './computeDesignFigures';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
+let newestRequestId = 0;
+let queue: Promise<void> = Promise.resolve();
 
-async function handle(request: GeometryRequest): Promise<GeometryResponse> {
+function post(response: GeometryResponse, transfer: ArrayBufferLike[] = []): void {
+  // A Set: two views on one buffer must be listed once or postMessage throws.
+  scope.postMessage(response, [...new Set(transfer)] as Transferable[]);
+}
+
+function fail(requestId: number, err: unknown): void {
+  if (err instanceof TemplateParamError) post({ requestId, ok: false, field: err.field, message: err.message });
+  else post({ requestId, ok: false, message: `The model could not be built: ${err instanceof Error ? err.message : String(err)}` });
+}
+
+/** Lets queued messages arrive (they update newestRequestId) before deciding whether to analyse. */
+function yieldToMessages(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, 0));
+}
+
+async function handle(request: GeometryRequest): Promise<void> {
+  const { requestId } = request;
   const started = performance.now();
+  let result;
   try {
-    const result = await generate(request.templateId, request.params);
-    const built = performance.now();
-    const { figures, overhangMask } = computeDesignFigures(result, request.printerId, request.region);
-    const finished = performance.now();
-    return {
-      requestId: request.requestId,
-      ok: true,
-      templateVersion: result.template.version,
-      mesh: result.mesh,
-      overhangMask,
-      facts: result.facts,
-      figures,
-      sha256: result.sha256,
-      timingsMs: { build: built - started, analysis: finished - built, total: finished - started },
-    };
+    result = await generate(request.templateId, request.params);
   } catch (err) {
-    if (err instanceof TemplateParamError) {
-      return { requestId: request.requestId, ok: false, field: err.field, message: err.message };
-    }
-    const message = err instanceof Error ? err.message : String(err);
-    return { requestId: request.requestId, ok: false, message: `The model could not be built: ${message}` };
+    fail(requestId, err);
+    return;
+  }
+  // Send copies so the worker keeps its own arrays for the analysis.
+  const mesh = { positions: result.mesh.positions.slice(), indices: result.mesh.indices.slice() };
+  post(
+    {
+      requestId,
+      ok: true,
+      stage: 'mesh',
+      templateVersion: result.template.version,
+      mesh,
+      facts: result.facts,
+      sha256: result.sha256,
+      buildMs: performance.now() - started,
+    },
+    [mesh.positions.buffer, mesh.indices.buffer],
+  );
+  await yieldToMessages();
+  if (newestRequestId > requestId) {
+    post({ requestId, ok: true, stage: 'skipped' });
+    return;
+  }
+  try {
+    const analysisStarted = performance.now();
+    const { figures, overhangMask } = computeDesignFigures(result, request.printerId, request.region);
+    post(
+      { requestId, ok: true, stage: 'figures', figures, overhangMask, analysisMs: performance.now() - analysisStarted },
+      overhangMask ? [overhangMask.buffer] : [],
+    );
+  } catch (err) {
+    post({ requestId, ok: false, message: `The figures could not be computed: ${err instanceof Error ? err.message : String(err)}` });
   }
 }
 
-scope.onmessage = async (event: MessageEvent<GeometryRequest>) => {
-  const response = await handle(event.data);
-  // A Set: two views on one buffer must be listed once or postMessage throws.
-  const transfer = new Set<Transferable>();
-  if (response.ok) {
-    transfer.add(response.mesh.positions.buffer);
-    transfer.add(response.mesh.indices.buffer);
-    if (response.overhangMask) transfer.add(response.overhangMask.buffer);
-  }
-  scope.postMessage(response, [...transfer]);
+scope.onmessage = (event: MessageEvent<GeometryRequest>) => {
+  const request = event.data;
+  newestRequestId = Math.max(newestRequestId, request.requestId);
+  queue = queue.then(() => handle(request));
 };

@@ -34,22 +34,35 @@ export interface DesignFigures {
   unavailable: string[];
 }
 
-/** The worker's answer to one request. */
+/**
+ * The worker answers each request in two steps so the preview appears before the figures are computed:
+ * `mesh` (built, hashed) then `figures` (analysis), or `skipped` when a newer request arrived before the analysis
+ * began, or an error (`ok: false`) at either step.
+ */
 export type GeometryResponse =
   | {
       requestId: number;
       ok: true;
+      stage: 'mesh';
       templateVersion: number;
       mesh: IndexedMesh;
-      /** Per-triangle overhang flags (1 = beyond the self-supporting angle), or null. */
-      overhangMask: Uint8Array | null;
       facts: NestBoxFacts;
-      figures: DesignFigures;
       /** sha256 of the exported mesh content, hex. */
       sha256: string;
-      /** Milliseconds spent building, analysing and hashing. */
-      timingsMs: { build: number; analysis: number; total: number };
+      /** Milliseconds spent building, validating and hashing. */
+      buildMs: number;
     }
+  | {
+      requestId: number;
+      ok: true;
+      stage: 'figures';
+      figures: DesignFigures;
+      /** Per-triangle overhang flags (1 = beyond the self-supporting angle), or null. */
+      overhangMask: Uint8Array | null;
+      /** Milliseconds spent on the analysis. */
+      analysisMs: number;
+    }
+  | { requestId: number; ok: true; stage: 'skipped' }
   | {
       requestId: number;
       ok: false;
