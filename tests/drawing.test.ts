@@ -65,7 +65,7 @@ describe('orthographicDrawing', () => {
     }
   });
 
-  it('draws a round hole through the front wall as a visible circle of its diameter, and hides the back edges of a blind pocket', () => {
+  it('draws a round hole through the front wall as a visible circle of its diameter, hidden in the top view', () => {
     const { subtract } = jscad.booleans;
     const { cylinder } = jscad.primitives;
     const { rotateX } = jscad.transforms;

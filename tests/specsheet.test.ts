@@ -8,7 +8,10 @@ import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { orthographicDrawing } from '../shared/drawing/orthographicDrawing';
+import { woffToSfnt } from '../server/pdf/woffToSfnt';
 import { productMesh } from '../server/services/specSheetMesh';
 import { ensureSalesFixture, FIXTURE_SKUS, type SalesFixture } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
@@ -132,5 +135,29 @@ describe('family spec sheet and errors', () => {
     const sales = await t.agent('sales');
     expect((await sales.get('/api/variants/FH-NOPE-1/spec-sheet.pdf')).status).toBe(404);
     expect((await sales.get('/api/families/no-such-family/spec-sheet.pdf')).status).toBe(404);
+  });
+});
+
+describe('woffToSfnt', () => {
+  // fontkit (pdfkit's font reader, an outside library) opens both the WOFF and the unwrapped font; they must agree.
+  const require = createRequire(import.meta.url);
+  const fontkit = require('fontkit') as {
+    create(bytes: Buffer): { numGlyphs: number; postscriptName: string; type: string; glyphForCodePoint(cp: number): { advanceWidth: number } };
+  };
+  it.each([
+    '@fontsource/source-sans-3/files/source-sans-3-latin-400-normal.woff',
+    '@fontsource/fraunces/files/fraunces-latin-600-normal.woff',
+    '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-400-normal.woff',
+  ])('%s unwraps to the same font', (file) => {
+    const woff = readFileSync(require.resolve(file));
+    const packed = fontkit.create(woff);
+    const plain = fontkit.create(woffToSfnt(woff));
+    expect(packed.type).toBe('WOFF');
+    expect(plain.type).toBe('TTF');
+    expect(plain.numGlyphs).toBe(packed.numGlyphs);
+    expect(plain.postscriptName).toBe(packed.postscriptName);
+    for (const ch of 'SKU 32 mm (1.26 in) €×³') {
+      expect(plain.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth).toBe(packed.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth);
+    }
   });
 });
