@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import jscad from '@jscad/modeling';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import { measureMesh } from '../shared/analysis/measureMesh';
@@ -228,6 +229,20 @@ describe('build orientation and plate', () => {
     expect(up.minMm[2]).toBeCloseTo(0, 6);
     expect(up.volumeMm3).toBeCloseTo(6000, 3);
     expect(measureMesh(orientMesh(mesh, '-y')).maxMm[2]).toBeCloseTo(20, 5);
+  });
+
+  it('keeps volume, area and the lowest point on the plate for any box in any named orientation (property)', () => {
+    const dim = fc.double({ min: 1, max: 200, noNaN: true });
+    fc.assert(
+      fc.property(dim, dim, dim, fc.constantFrom('+z', '-z', '+x', '-x', '+y', '-y') as fc.Arbitrary<'+z'>, (a, b, c, up) => {
+        const oriented = measureMesh(orientMesh(geomToMesh(box([3, -7, 11], [3 + a, -7 + b, 11 + c])), up));
+        // analytic: a·b·c and 2(ab + bc + ca), float32 vertices: relative tolerance
+        expect(oriented.volumeMm3 / (a * b * c)).toBeCloseTo(1, 4);
+        expect(oriented.surfaceAreaMm2 / (2 * (a * b + b * c + c * a))).toBeCloseTo(1, 4);
+        expect(oriented.minMm[2]).toBeCloseTo(0, 4);
+      }),
+      { numRuns: 60 },
+    );
   });
 
   it('grid-packs copies with a spacing and turns them when that fits more', () => {

@@ -59,6 +59,9 @@ describe('parseStl', () => {
     const inf = good.slice();
     new DataView(inf.buffer).setFloat32(84 + 12, Number.POSITIVE_INFINITY, true);
     expect(reasonOf(() => parseStl(inf))).toBe('non_finite');
+    const flat = new Uint8Array(84 + 50); // one triangle whose corners are all the origin
+    new DataView(flat.buffer).setUint32(80, 1, true);
+    expect(reasonOf(() => parseStl(flat))).toBe('empty');
     const huge = new Uint8Array(84 + 50);
     new DataView(huge.buffer).setUint32(80, 6_000_000, true);
     expect(reasonOf(() => parseStl(huge))).toBe('too_large');

@@ -23,9 +23,9 @@ export function parseStl(bytes: Uint8Array): IndexedMesh {
   if (bytes.length >= HEADER_BYTES + 4) {
     const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     const declared = view.getUint32(HEADER_BYTES, true);
-    if (HEADER_BYTES + 4 + FACET_BYTES * declared === bytes.length) return weldVertices(readBinary(view, declared));
+    if (HEADER_BYTES + 4 + FACET_BYTES * declared === bytes.length) return nonEmpty(weldVertices(readBinary(view, declared)));
   }
-  if (looksLikeAsciiStl(bytes)) return weldVertices(readAscii(bytes));
+  if (looksLikeAsciiStl(bytes)) return nonEmpty(weldVertices(readAscii(bytes)));
   if (!looksBinary(bytes)) throw new MeshFormatError('not_a_mesh', 'The file is text but not an ASCII STL.');
   if (bytes.length < HEADER_BYTES + 4) {
     throw new MeshFormatError('truncated', `The file is ${bytes.length} bytes, shorter than a binary STL header (84).`);
@@ -46,6 +46,13 @@ export function parseStl(bytes: Uint8Array): IndexedMesh {
     'triangle_count',
     `The file declares ${declared} triangles (${expected} bytes) but is ${bytes.length} bytes long.`,
   );
+}
+
+function nonEmpty(mesh: IndexedMesh): IndexedMesh {
+  if (mesh.indices.length === 0) {
+    throw new MeshFormatError('empty', 'Every triangle in the file is degenerate (two or more corners coincide).');
+  }
+  return mesh;
 }
 
 function readBinary(view: DataView, count: number): Float32Array {
