@@ -58,7 +58,7 @@ export default async function bench(): Promise<void> {
     for (const template of TEMPLATES) {
       await worker.run(template.id, {}, 'stl');
       const exports = await timeRuns(EXPORT_RUNS, (i) => worker.run(template.id, { entryHoleDiameterMm: 31 + i * 0.5 }, 'stl'));
-      console.log(line(`server export ${template.id}`, exports, ' (cpu = main thread only)'));
+      console.log(line(`server export ${template.id}`, exports, ' (cpu = whole process, worker included)'));
     }
   } finally {
     await worker.close();

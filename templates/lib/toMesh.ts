@@ -1,5 +1,6 @@
 import jscad from '@jscad/modeling';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
+import type Geom3 from '@jscad/modeling/src/geometries/geom3/type';
 import type { TemplatePart } from '../types';
 
 /** A mesh that is not closed and 2-manifold with consistent winding; the message says where it fails. */
@@ -14,16 +15,37 @@ export class MeshValidationError extends Error {
 /**
  * Converts the parts of a template into one neutral {@link IndexedMesh}: polygons are fan-triangulated, exactly equal
  * vertices welded (per part, so touching parts stay separate bodies), and the result checked: every directed edge
- * must occur exactly once and its reverse exactly once (closed, 2-manifold, consistently wound).
+ * must occur exactly once and its reverse exactly once (closed, 2-manifold, consistently wound). Parts built by the
+ * manifold kernel pass at once; geometry from JSCAD booleans, which can leave T-junctions, is first repaired with
+ * JSCAD's `generalize({ snap, triangulate })` (it inserts the missing vertices) and checked again.
  * @param parts - the template's parts, already in build orientation
- * @throws MeshValidationError when the mesh is not closed and manifold
+ * @throws MeshValidationError when the mesh is not closed and manifold even after repair
  */
 export function toMesh(parts: TemplatePart[]): IndexedMesh {
+  const mesh = weldParts(parts.map((part) => part.geometry));
+  try {
+    assertClosedManifold(mesh);
+    return mesh;
+  } catch (err) {
+    if (!(err instanceof MeshValidationError)) throw err;
+  }
+  const repaired = weldParts(parts.map((part) => generalize({ snap: true, triangulate: true }, part.geometry)));
+  assertClosedManifold(repaired);
+  return repaired;
+}
+
+// The package's typings declare this module export as a default that is not there; the runtime export is the function.
+const generalize = jscad.modifiers.generalize as unknown as (
+  options: { snap: boolean; triangulate: boolean },
+  geometry: Geom3,
+) => Geom3;
+
+function weldParts(geometries: Geom3[]): IndexedMesh {
   const positions: number[] = [];
   const indices: number[] = [];
-  for (const part of parts) {
+  for (const geometry of geometries) {
     const weld = new VertexWeld(positions);
-    for (const polygon of jscad.geometries.geom3.toPolygons(part.geometry)) {
+    for (const polygon of jscad.geometries.geom3.toPolygons(geometry)) {
       const ring = polygon.vertices.map((point) => weld.index(point[0], point[1], point[2]));
       for (let i = 1; i + 1 < ring.length; i++) {
         if (ring[0] === ring[i] || ring[i] === ring[i + 1] || ring[0] === ring[i + 1]) continue;
@@ -31,9 +53,7 @@ export function toMesh(parts: TemplatePart[]): IndexedMesh {
       }
     }
   }
-  const mesh: IndexedMesh = { positions: new Float32Array(positions), indices: new Uint32Array(indices) };
-  assertClosedManifold(mesh);
-  return mesh;
+  return { positions: new Float32Array(positions), indices: new Uint32Array(indices) };
 }
 
 /**
