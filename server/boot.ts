@@ -62,7 +62,12 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   await options.extend?.(app, ctx);
   const server = options.httpServer ?? createServer();
   server.on('request', app);
-  await listen(server, options.port ?? env.PORT);
+  try {
+    await listen(server, options.port ?? env.PORT);
+  } catch (err) {
+    await pg.close();
+    throw err;
+  }
   const { port } = server.address() as AddressInfo;
   stage(`listening on port ${port}`);
   await startFamilyServices(ctx, server);
