@@ -17,7 +17,9 @@ const server = await boot({ env, dataDir: env.DATA_DIR, port: env.PORT, clientDi
     process.exit(1);
   },
 );
-console.log(`  server ready (${Math.round(performance.now() - started)} ms)`);
+console.log(
+  `  server ready (${Math.round(performance.now() - started)} ms; ${Math.round(performance.now())} ms since the process started)`,
+);
 console.log(`Nestwright is ready at ${server.url}`);
 
 let stopping = false;

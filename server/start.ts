@@ -17,7 +17,7 @@ function newestSourceMtimeMs(paths: string[]): number {
     const stat = statSync(path);
     if (stat.isDirectory()) {
       for (const entry of readdirSync(path)) if (entry !== 'node_modules') visit(join(path, entry));
-    } else newest = Math.max(newest, stat.mtimeMs);
+    } else if (!path.endsWith('.md')) newest = Math.max(newest, stat.mtimeMs);
   };
   paths.forEach(visit);
   return newest;
