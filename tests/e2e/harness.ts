@@ -1,7 +1,11 @@
 /**
- * Browser-test harness shared by every `tests/e2e/*.e2e.test.ts`: builds the client when dist/client is missing or
- * older than its sources, boots the real server on a free port with a new seeded in-memory database, and drives
- * Debian's Chromium through playwright-core. Each page gets its own browser context (its own cookies).
+ * Browser-test harness shared by every `tests/e2e/*.e2e.test.ts`: builds the client once for the current state of its
+ * sources, boots the real server on a free port with a new seeded in-memory database, and drives Debian's Chromium
+ * through playwright-core. Each page gets its own browser context (its own cookies).
+ *
+ * The client is built into `dist/e2e/<newest source mtime>/`, not dist/client: several people run browser tests and
+ * `npm start` in one tree at once, and a rebuild of a shared folder (vite empties it first) would pull the assets
+ * from under a server another run is still testing against.
  *
  * ```ts
  * let e2e: E2E;
@@ -10,7 +14,7 @@
  * it('...', async () => { const page = await e2e.newPage(); await e2e.signInAs(page, 'designer'); ... });
  * ```
  */
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
@@ -20,14 +24,16 @@ import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/db/seedDemo';
 
 /** Repository root. */
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
-/** Where `vite build` writes the client (vite.config.ts build.outDir). */
-export const CLIENT_DIR = join(ROOT, 'dist/client');
-/** Everything that goes into the client bundle; a newer file here makes dist/client stale. */
+/** Builds of the client for browser tests, one folder per state of the sources. */
+export const E2E_BUILDS_DIR = join(ROOT, 'dist/e2e');
+/** Everything that goes into the client bundle; a newer file here needs a new build. */
 const CLIENT_SOURCES = ['src', 'shared', 'templates', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'];
-/** Lock so that e2e files running in parallel workers build the client only once. */
-const BUILD_LOCK = join(ROOT, 'dist/.client-build.lock');
-/** A lock older than this is left over from a crashed run. */
+/** Lock so that e2e files running in parallel (in one run or in several) build one state only once. */
+const BUILD_LOCK = join(E2E_BUILDS_DIR, '.build.lock');
+/** A lock older than this is left over from a crashed run (a build takes 30-60 s on a busy 2-core machine). */
 const STALE_LOCK_MS = 5 * 60_000;
+/** Builds older than this are removed when a new one is made (no test run lasts that long). */
+const OLD_BUILD_MS = 2 * 60 * 60_000;
 
 /** Chromium flags for headless runs on a shared CI machine (common.md). */
 export const CHROMIUM_ARGS = [
@@ -112,9 +118,9 @@ export interface StartE2EOptions {
  * @param options - see {@link StartE2EOptions}
  */
 export async function startE2E(options: StartE2EOptions = {}): Promise<E2E> {
-  await ensureClientBuilt();
+  const clientDir = await ensureClientBuilt();
   const log = options.verbose ? (line: string) => console.log(`[server] ${line}`) : () => {};
-  const server = await boot({ port: 0, seed: true, dataDir: options.dataDir, clientDir: CLIENT_DIR, log });
+  const server = await boot({ port: 0, seed: true, dataDir: options.dataDir, clientDir, log });
   let browser: Browser;
   try {
     browser = await chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS });
@@ -139,8 +145,8 @@ export async function startE2E(options: StartE2EOptions = {}): Promise<E2E> {
       contexts.add(context);
       context.on('close', () => contexts.delete(context));
       const page = await context.newPage();
-      // Fail a step with its own message well before the test's timeout does.
-      page.setDefaultTimeout(10_000);
+      // Fail a step with its own message before the test's timeout does (generous: the machine is shared).
+      page.setDefaultTimeout(15_000);
       const problems: string[] = [];
       pageProblems.set(page, problems);
       page.on('pageerror', (err) => problems.push(`page error: ${err.message}`));
@@ -176,40 +182,57 @@ export async function startE2E(options: StartE2EOptions = {}): Promise<E2E> {
 }
 
 /**
- * Runs `vite build` when dist/client is missing or older than the newest client source; once per test run even
- * when several e2e files start at the same time (a lock directory serialises them).
- * @returns whether this call built the client
+ * Builds the client for the current state of its sources unless that build exists, once even when several e2e files
+ * start at the same time (a lock directory serialises them), and removes builds older than two hours.
+ * @returns the folder to serve (holds index.html and assets/)
  */
-export async function ensureClientBuilt(): Promise<boolean> {
-  if (clientIsFresh()) return false;
+export async function ensureClientBuilt(): Promise<string> {
+  const dir = join(E2E_BUILDS_DIR, String(Math.floor(newestMtimeMs(CLIENT_SOURCES.map((p) => join(ROOT, p))))));
+  if (existsSync(join(dir, 'index.html'))) return dir;
   await acquireLock();
   try {
-    if (clientIsFresh()) return false; // another worker built it while we waited
+    if (existsSync(join(dir, 'index.html'))) return dir; // another run built it while we waited
+    const staging = `${dir}.building-${process.pid}`;
     const { build } = await import('vite');
     // vitest sets NODE_ENV=test, which would give a development build of Vue; build as `npm run build` does.
     const nodeEnv = process.env.NODE_ENV;
     process.env.NODE_ENV = 'production';
     try {
-      await build({ root: ROOT, configFile: join(ROOT, 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+      await build({
+        root: ROOT,
+        configFile: join(ROOT, 'vite.config.ts'),
+        logLevel: 'warn',
+        mode: 'production',
+        build: { outDir: staging, emptyOutDir: true },
+      });
+    } catch (err) {
+      rmSync(staging, { recursive: true, force: true });
+      throw err;
     } finally {
       process.env.NODE_ENV = nodeEnv;
     }
-    return true;
+    renameSync(staging, dir); // appears whole or not at all
+    pruneOldBuilds(dir);
+    return dir;
   } finally {
     rmSync(BUILD_LOCK, { recursive: true, force: true });
   }
 }
 
-function clientIsFresh(): boolean {
-  const builtIndex = join(CLIENT_DIR, 'index.html');
-  return existsSync(builtIndex) && statSync(builtIndex).mtimeMs >= newestMtimeMs(CLIENT_SOURCES.map((p) => join(ROOT, p)));
+function pruneOldBuilds(keep: string): void {
+  for (const entry of readdirSync(E2E_BUILDS_DIR)) {
+    const path = join(E2E_BUILDS_DIR, entry);
+    if (path === keep || path === BUILD_LOCK) continue;
+    const stat = statSync(path, { throwIfNoEntry: false });
+    if (stat?.isDirectory() && Date.now() - stat.mtimeMs > OLD_BUILD_MS) rmSync(path, { recursive: true, force: true });
+  }
 }
 
 function newestMtimeMs(paths: string[]): number {
   let newest = 0;
   const visit = (path: string): void => {
-    if (!existsSync(path)) return;
-    const stat = statSync(path);
+    const stat = statSync(path, { throwIfNoEntry: false }); // files come and go while others work in the tree
+    if (!stat) return;
     if (stat.isDirectory()) {
       for (const entry of readdirSync(path)) if (entry !== 'node_modules') visit(join(path, entry));
     } else newest = Math.max(newest, stat.mtimeMs);

@@ -27,7 +27,8 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-describe('sign-in, home screen and sign-out', () => {
+// Browser steps on a shared 2-core machine: allow a minute per test (each step has its own 15 s limit).
+describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
   it('shows the sign-in page to a signed-out visitor, keeping where they wanted to go', async () => {
     const page = await e2e.newPage();
     await page.goto('/admin/people');
@@ -113,6 +114,7 @@ describe('sign-in, home screen and sign-out', () => {
     const email = 'guesser@fernhollow.test';
     const page = await e2e.newPage();
     await page.goto('/sign-in');
+    await page.getByLabel('E-mail').waitFor(); // the app is up before the guessing starts
     // Guess from inside the page (same client address as the form; the limit counts per address + e-mail).
     const lastStatus = await page.evaluate(async (guessEmail) => {
       let status = 0;
