@@ -241,6 +241,18 @@ describe('designer configurator', () => {
     await expect(page.locator('.editor__hash').textContent()).resolves.toContain('same mesh');
     await page.screenshot({ path: `${SHOTS}/editor-export.png` });
 
+    // Change the design again and save the changes into the same preset.
+    await moveEntrySlider(page, 0.4);
+    const changedHash = await waitForBuild(page, hash);
+    const changedMm = await entryInputValue(page);
+    await page.getByTestId('unsaved').waitFor();
+    await page.getByTestId('save-preset').click();
+    await page.getByText('Saved “Browser test, small entry”.').waitFor();
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+    const updated = (await (await page.request.get(`/api/presets/${presetId}`)).json()) as { params: Record<string, number> };
+    expect(updated.params.entryHoleDiameterMm).toBeCloseTo(changedMm, 6);
+    expect(changedHash).not.toBe(hash);
+
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 180_000);
