@@ -250,7 +250,7 @@ describe('variant families: build, review, publish, catalogue', () => {
     await page.getByTestId('action-approve').click();
     await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Approved'));
     await page.getByTestId('action-publish').click();
-    await page.getByRole('button', { name: 'Publish', exact: true }).click();
+    await page.locator('.n-dialog').getByRole('button', { name: 'Publish', exact: true }).click();
     await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'));
     await page.screenshot({ path: `${SHOTS}/review-published.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
@@ -441,4 +441,31 @@ describe('variant families: build, review, publish, catalogue', () => {
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 90_000);
+  it('a catalogue manager retires a published family after confirming, and its variants leave the catalogue', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'catalogue_manager');
+    const listed = await expectJson<{ families: { id: string; code: string; state: string }[] }>(
+      await page.request.get('/api/families?state=published'),
+      200,
+    );
+    // The seeded demo family in the catalogue (a draft revision would make "retire" wait for its own review).
+    const published = listed.families.find((family) => family.code !== CODE);
+    expect(published, 'a published family to retire').toBeDefined();
+    const before = await expectJson<{ variants: { family: { id: string } }[] }>(await page.request.get('/api/catalogue'), 200);
+    expect(before.variants.some((v) => v.family.id === published!.id)).toBe(true);
+
+    await page.goto('/review');
+    await page.getByTestId('queue-published').getByTestId(`review-${published!.code}`).click();
+    await page.getByTestId('action-retire').click();
+    // Nothing happens before the confirmation.
+    await page.locator('.n-dialog').getByRole('button', { name: 'Not now' }).click();
+    await expect(textOf(page, 'family-state')).resolves.toBe('Published');
+    await page.getByTestId('action-retire').click();
+    await page.locator('.n-dialog').getByRole('button', { name: 'Retire', exact: true }).click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Retired'));
+    const after = await expectJson<{ variants: { family: { id: string } }[] }>(await page.request.get('/api/catalogue'), 200);
+    expect(after.variants.some((v) => v.family.id === published!.id)).toBe(false);
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
 });
