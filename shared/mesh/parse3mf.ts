@@ -3,6 +3,7 @@ import { XMLParser } from 'fast-xml-parser';
 import type { IndexedMesh } from '../schemas/mesh';
 import { MeshFormatError } from './MeshFormatError';
 import { MAX_MESH_FILE_BYTES, MAX_MESH_TRIANGLES } from './meshLimits';
+import { weldVertices } from './weldVertices';
 
 /** Scale from each 3MF unit to millimetres. source: 3MF Core Specification v1.2, §Model (unit attribute). */
 const UNIT_TO_MM: Record<string, number> = {
@@ -36,8 +37,8 @@ const xml = new XMLParser({
 });
 
 /**
- * Reads a 3MF package into one indexed mesh in millimetres: finds the model part through `_rels/.rels`, honours the
- * model's `unit`, and places every build item with its transform and its components' transforms.
+ * Reads a 3MF package into one welded indexed mesh in millimetres: finds the model part through `_rels/.rels`,
+ * honours the model's `unit`, and places every build item with its transform and its components' transforms.
  * @param bytes - the whole .3mf file (a ZIP package)
  * @returns the merged mesh of all build items
  * @throws MeshFormatError when the package or model part is missing, malformed or over the limits
@@ -168,8 +169,15 @@ class MeshBuilder {
     }
   }
 
+  /** Scales to mm and welds: some writers give every triangle its own corners, and objects may share corners. */
   finish(scale: number): IndexedMesh {
-    const positions = Float32Array.from(this.positions, (v) => v * scale);
-    return { positions, indices: Uint32Array.from(this.indices) };
+    const soup = new Float32Array(this.indices.length * 3);
+    for (let i = 0; i < this.indices.length; i++) {
+      const v = this.indices[i] * 3;
+      soup[i * 3] = this.positions[v] * scale;
+      soup[i * 3 + 1] = this.positions[v + 1] * scale;
+      soup[i * 3 + 2] = this.positions[v + 2] * scale;
+    }
+    return weldVertices(soup);
   }
 }
