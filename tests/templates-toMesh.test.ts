@@ -4,6 +4,10 @@
  */
 import jscad from '@jscad/modeling';
 import { describe, expect, it } from 'vitest';
+import { meshHash } from '../shared/mesh/meshHash';
+import { TEMPLATES, parseParams } from '../templates/index';
+import { loadKernel } from '../templates/lib/kernel';
+import { scoped } from '../templates/lib/scope';
 import { MeshValidationError, assertClosedManifold, toMesh } from '../templates/lib/toMesh';
 import { manifoldReport } from './templates.meshCheck';
 
@@ -27,4 +31,20 @@ describe('toMesh', () => {
     const open = { positions: closed.positions, indices: closed.indices.slice(3) };
     expect(() => assertClosedManifold(open)).toThrow(MeshValidationError);
   });
+
+  it.each(TEMPLATES.map((t) => [t.id, t] as const))(
+    '%s: the kernel-mesh shortcut and a weld of plain polygon copies give the same mesh hash',
+    async (_id, template) => {
+      await loadKernel();
+      const output = scoped(() => template.build(parseParams(template, {})));
+      const copies = output.parts.map((part) => ({
+        name: part.name,
+        geometry: jscad.geometries.geom3.create(
+          jscad.geometries.geom3.toPolygons(part.geometry).map((polygon) => ({ vertices: polygon.vertices.map((v) => [v[0], v[1], v[2]] as [number, number, number]) })),
+        ),
+      }));
+      expect(await meshHash(toMesh(copies))).toBe(await meshHash(toMesh(output.parts)));
+    },
+    60_000,
+  );
 });

@@ -2,6 +2,7 @@ import jscad from '@jscad/modeling';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type Geom3 from '@jscad/modeling/src/geometries/geom3/type';
 import type { TemplatePart } from '../types';
+import { sourceMesh } from './toGeom3';
 
 /** A mesh that is not closed and 2-manifold with consistent winding; the message says where it fails. */
 export class MeshValidationError extends Error {
@@ -22,6 +23,12 @@ export class MeshValidationError extends Error {
  * @throws MeshValidationError when the mesh is not closed and manifold even after repair
  */
 export function toMesh(parts: TemplatePart[]): IndexedMesh {
+  const meshes = parts.map((part) => sourceMesh(part.geometry));
+  if (meshes.every((mesh) => mesh !== undefined)) {
+    const joined = joinMeshes(meshes as IndexedMesh[]);
+    assertClosedManifold(joined);
+    return joined;
+  }
   const mesh = weldParts(parts.map((part) => part.geometry));
   try {
     assertClosedManifold(mesh);
@@ -39,6 +46,22 @@ const generalize = jscad.modifiers.generalize as unknown as (
   options: { snap: boolean; triangulate: boolean },
   geometry: Geom3,
 ) => Geom3;
+
+/** Concatenates already indexed part meshes (index offsets added), in part order. */
+function joinMeshes(meshes: IndexedMesh[]): IndexedMesh {
+  const positions = new Float32Array(meshes.reduce((n, m) => n + m.positions.length, 0));
+  const indices = new Uint32Array(meshes.reduce((n, m) => n + m.indices.length, 0));
+  let p = 0;
+  let i = 0;
+  for (const mesh of meshes) {
+    const offset = p / 3;
+    positions.set(mesh.positions, p);
+    for (let k = 0; k < mesh.indices.length; k++) indices[i + k] = mesh.indices[k] + offset;
+    p += mesh.positions.length;
+    i += mesh.indices.length;
+  }
+  return { positions, indices };
+}
 
 function weldParts(geometries: Geom3[]): IndexedMesh {
   const positions: number[] = [];
