@@ -31,7 +31,7 @@ const parameters = z
     }),
     knotRimMm: z.number().min(0).max(10).default(5).meta({
       label: 'Knot rim', unit: 'mm', step: 0.5,
-      help: 'Width of the knot-like rim round each entry; it also thickens the wall against enlarging the hole.',
+      help: 'Width of the knot-like rim round each entry (below 1 mm: no rim); it also thickens the wall against enlarging the hole.',
     }),
     mountRadiusMm: z.number().min(50).max(600).default(150).meta({
       label: 'Tree radius', unit: 'mm', step: 5,
@@ -95,7 +95,8 @@ export const barkTrunk: Template<typeof parameters> = {
       const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
       holeAboveFloorMm = Math.min(holeAboveFloorMm, holeCentreZ - r - floorZ);
       cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ));
-      if (p.knotRimMm > 0) {
+      // Under 1 mm the rim would only graze the hole's own outline (zero-volume slivers), so it is left off.
+      if (p.knotRimMm >= 1) {
         // Tip-down outline: the rim's underside is a 45° V, so it prints without support.
         const rim = teardropOutline(p.entryHoleDiameterMm + 2 * p.knotRimMm, 48, false, Math.SQRT2);
         additions.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));

@@ -109,6 +109,17 @@ describe.each(TEMPLATES.map((template) => [template.id, template] as const))('te
   }, 60_000);
 });
 
+describe('regressions found by the property test', () => {
+  it.each([
+    // a smooth trunk whose back cut only grazed the outside left slivers (4 bodies)
+    ['bark-trunk', { cavityDiameterMm: 155, cavityDepthMm: 141, storeys: 2, wallThicknessMm: 4, barkDepthMm: 0, knotRimMm: 0, mountRadiusMm: 479.7, ventilationSlots: 5, drainageHoles: 0, hangingHole: false }],
+    // a knot rim of almost zero width along a wide hole left a zero-volume sliver (2 bodies)
+    ['bark-trunk', { entryHoleDiameterMm: 57.53, holeAboveFloorMm: 121, cavityDiameterMm: 90, cavityDepthMm: 158, wallThicknessMm: 6.02, barkDepthMm: 3, barkSeed: 10, knotRimMm: 1e-9, mountRadiusMm: 133.4, ventilationSlots: 4, drainageHoles: 6, hangingHole: false, cleaningAccess: false, printClearanceMm: 1 }],
+  ] as const)('%s %o', async (id, params) => {
+    await expectValid(await generate(id, params));
+  }, 60_000);
+});
+
 describe('default designs suit a small cavity nester', () => {
   it.each(TEMPLATES.map((t) => [t.id] as const))('%s: 32 mm hole at least 125 mm above the floor, walls ≥ 10 mm', async (id) => {
     const { facts } = await generate(id, {});
