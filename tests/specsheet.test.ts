@@ -131,6 +131,21 @@ describe('family spec sheet and errors', () => {
     expect(text).toContain('32 mm (1.26 in)'); // 32 / 25.4 = 1.26
   }, 60_000);
 
+  it('shows the family\'s sample-print photo instead of the rendered view once one is uploaded', async () => {
+    const designer = await t.agent('designer');
+    // a small PNG "photo" made with sharp
+    const sharp = (await import('sharp')).default;
+    const png = await sharp({ create: { width: 240, height: 180, channels: 3, background: '#8a6649' } }).png().toBuffer();
+    const uploaded = await designer.post(`/api/families/${fixture.familyId}/photos`).attach('photo', png, 'sample.png');
+    expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
+    const sales = await t.agent('sales');
+    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[1]}/spec-sheet.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const text = flat(run('pdftotext', ['-raw', savePdf(res.body as Buffer), '-']));
+    expect(text).toContain('Photo of the sample print');
+    expect(text).not.toContain('Rendered view');
+  }, 60_000);
+
   it('answers 404 for an unknown SKU or family', async () => {
     const sales = await t.agent('sales');
     expect((await sales.get('/api/variants/FH-NOPE-1/spec-sheet.pdf')).status).toBe(404);
