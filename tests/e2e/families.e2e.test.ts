@@ -355,6 +355,28 @@ describe('variant families: build, review, publish, catalogue', () => {
     await designer.context().close();
   }, 240_000);
 
+  it('a new family can start from a saved preset: its parameters become the base parameters', async () => {
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    const preset = await expectJson<{ id: string; name: string }>(
+      await page.request.post('/api/presets', {
+        headers: { Origin: e2e.baseUrl },
+        // source: RSPB via trade-facts §1b — 28 mm great tit
+        data: { templateId: 'gable-box', name: 'Great tit, 28 mm', params: { entryHoleDiameterMm: 28 } },
+      }),
+      201,
+    );
+    await page.goto('/families/new');
+    await page.getByTestId('family-preset').click();
+    await page.locator('.n-base-select-option', { hasText: preset.name }).click();
+    // The preset's name fills the empty family name, and its entry hole is the base value.
+    await expect(page.locator('#family-name').inputValue()).resolves.toBe(preset.name);
+    await page.getByRole('heading', { name: /Base parameters/ }).click();
+    expect(Number(await page.locator('#input-entryHoleDiameterMm').inputValue())).toBeCloseTo(28, 6);
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 60_000);
+
   it('the editor refuses more than 500 variants with a message naming the count', async () => {
     const page = await e2e.newPage();
     await e2e.signInAs(page, 'designer');
