@@ -91,42 +91,50 @@ function looksBinary(bytes: Uint8Array): boolean {
 
 function readAscii(bytes: Uint8Array): Float32Array {
   const text = new TextDecoder('latin1').decode(bytes);
-  const tokens = text.split(/\s+/);
-  const values: number[] = [];
+  // Scan keywords with regular expressions instead of splitting the whole text into tokens (memory stays ~1× file).
+  const keyword = /\b(facet|vertex|endsolid)\b/gi;
+  const token = /\s*(\S+)/y;
+  let values = new Float32Array(1024);
+  let count = 0;
   let facets = 0;
   let sawEnd = false;
-  for (let i = 0; i < tokens.length; i++) {
-    const token = tokens[i].toLowerCase();
-    if (token === 'vertex') {
-      for (let k = 1; k <= 3; k++) {
-        const raw = tokens[i + k];
-        if (raw === undefined || raw === '') {
-          throw new MeshFormatError('truncated', `The ASCII STL ends inside vertex ${values.length / 3 + 1}.`);
-        }
+  for (let match = keyword.exec(text); match; match = keyword.exec(text)) {
+    const word = match[1].toLowerCase();
+    if (word === 'vertex') {
+      if (count + 3 > values.length) {
+        const grown = new Float32Array(values.length * 2);
+        grown.set(values);
+        values = grown;
+      }
+      token.lastIndex = keyword.lastIndex;
+      for (let k = 0; k < 3; k++) {
+        const found = token.exec(text);
+        if (!found) throw new MeshFormatError('truncated', `The ASCII STL ends inside vertex ${count / 3 + 1}.`);
+        const raw = found[1];
         const value = Number(raw);
         if (!Number.isFinite(value)) {
           const what = /^[-+]?(nan|inf)/i.test(raw) ? 'non_finite' : 'not_a_mesh';
-          throw new MeshFormatError(what, `Vertex ${values.length / 3 + 1} has the coordinate "${raw}", not a finite number.`);
+          throw new MeshFormatError(what, `Vertex ${Math.floor(count / 3) + 1} has the coordinate "${raw}", not a finite number.`);
         }
-        values.push(value);
+        values[count++] = value;
       }
-      i += 3;
-    } else if (token === 'facet') {
+      keyword.lastIndex = token.lastIndex;
+    } else if (word === 'facet') {
       facets++;
       if (facets > MAX_MESH_TRIANGLES) {
         throw new MeshFormatError('too_large', `The file holds over ${MAX_MESH_TRIANGLES} triangles.`);
       }
-    } else if (token === 'endsolid') {
+    } else {
       sawEnd = true;
     }
   }
-  if (values.length === 0) throw new MeshFormatError(facets ? 'truncated' : 'empty', 'The ASCII STL holds no vertices.');
-  if (values.length !== facets * 9) {
+  if (count === 0) throw new MeshFormatError(facets ? 'truncated' : 'empty', 'The ASCII STL holds no vertices.');
+  if (count !== facets * 9) {
     throw new MeshFormatError(
       sawEnd ? 'triangle_count' : 'truncated',
-      `The ASCII STL has ${facets} facets but ${values.length / 3} vertices (3 per facet expected).`,
+      `The ASCII STL has ${facets} facets but ${count / 3} vertices (3 per facet expected).`,
     );
   }
   if (!sawEnd) throw new MeshFormatError('truncated', 'The ASCII STL has no "endsolid" line; the file is cut short.');
-  return Float32Array.from(values);
+  return values.slice(0, count);
 }
