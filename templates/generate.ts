@@ -7,7 +7,7 @@ import { meshVolumeMm3 } from './lib/meshVolumeMm3';
 import { parseParams } from './lib/parseParams';
 import { scoped } from './lib/scope';
 import { TemplateParamError } from './lib/TemplateParamError';
-import { toMesh } from './lib/toMesh';
+import { toMeshParts } from './lib/toMesh';
 import type { TemplateParams } from './types';
 
 /** One generated design: the validated mesh of all parts in build orientation and its content hash. */
@@ -19,6 +19,8 @@ export interface GenerateResult {
   /** Number of separate printable bodies. */
   partCount: number;
   partNames: string[];
+  /** Triangles of each part: the mesh holds the parts one after another in `partNames` order. */
+  partTriangles: number[];
   facts: NestBoxFacts;
   triangles: number;
   volumeMm3: number;
@@ -39,16 +41,18 @@ export async function generate(templateId: string, rawParams: unknown): Promise<
   const params = parseParams(template, rawParams);
   await loadKernel();
   const output = scoped(() => template.build(params));
-  const mesh = toMesh(output.parts);
+  const { mesh, partTriangles } = toMeshParts(output.parts);
   return {
     template: { id: template.id, version: template.version },
     params,
     mesh,
     partCount: output.parts.length,
     partNames: output.parts.map((part) => part.name),
+    partTriangles,
     facts: output.facts,
     triangles: mesh.indices.length / 3,
     volumeMm3: meshVolumeMm3(mesh),
     sha256: await meshHash(mesh),
   };
 }
+

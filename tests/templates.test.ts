@@ -68,6 +68,8 @@ async function expectValid(result: GenerateResult): Promise<void> {
   for (let i = 2; i < result.mesh.positions.length; i += 3) minZ = Math.min(minZ, result.mesh.positions[i]);
   expect(minZ).toBeCloseTo(0, 3);
   expect(() => NestBoxFactsSchema.parse(result.facts)).not.toThrow();
+  expect(result.partTriangles).toHaveLength(result.partCount);
+  expect(result.partTriangles.reduce((a, b) => a + b, 0)).toBe(result.triangles);
 }
 
 describe.each(TEMPLATES.map((template) => [template.id, template] as const))('template %s', (_id, template) => {

@@ -23,21 +23,29 @@ export class MeshValidationError extends Error {
  * @throws MeshValidationError when the mesh is not closed and manifold even after repair
  */
 export function toMesh(parts: TemplatePart[]): IndexedMesh {
+  return toMeshParts(parts).mesh;
+}
+
+/**
+ * {@link toMesh}, also telling how many triangles each part has (the parts follow one another in the mesh).
+ * @param parts - the template's parts, already in build orientation
+ */
+export function toMeshParts(parts: TemplatePart[]): { mesh: IndexedMesh; partTriangles: number[] } {
   const meshes = parts.map((part) => sourceMesh(part.geometry));
   if (meshes.every((mesh) => mesh !== undefined)) {
     const joined = joinMeshes(meshes as IndexedMesh[]);
     assertClosedManifold(joined);
-    return joined;
+    return { mesh: joined, partTriangles: (meshes as IndexedMesh[]).map((mesh) => mesh.indices.length / 3) };
   }
-  const mesh = weldParts(parts.map((part) => part.geometry));
+  const welded = weldParts(parts.map((part) => part.geometry));
   try {
-    assertClosedManifold(mesh);
-    return mesh;
+    assertClosedManifold(welded.mesh);
+    return welded;
   } catch (err) {
     if (!(err instanceof MeshValidationError)) throw err;
   }
   const repaired = weldParts(parts.map((part) => generalize({ snap: true, triangulate: true }, part.geometry)));
-  assertClosedManifold(repaired);
+  assertClosedManifold(repaired.mesh);
   return repaired;
 }
 
@@ -63,11 +71,13 @@ function joinMeshes(meshes: IndexedMesh[]): IndexedMesh {
   return { positions, indices };
 }
 
-function weldParts(geometries: Geom3[]): IndexedMesh {
+function weldParts(geometries: Geom3[]): { mesh: IndexedMesh; partTriangles: number[] } {
   const positions: number[] = [];
   const indices: number[] = [];
+  const partTriangles: number[] = [];
   for (const geometry of geometries) {
     const weld = new VertexWeld(positions);
+    const before = indices.length;
     for (const polygon of jscad.geometries.geom3.toPolygons(geometry)) {
       const ring = polygon.vertices.map((point) => weld.index(point[0], point[1], point[2]));
       for (let i = 1; i + 1 < ring.length; i++) {
@@ -75,8 +85,9 @@ function weldParts(geometries: Geom3[]): IndexedMesh {
         indices.push(ring[0], ring[i], ring[i + 1]);
       }
     }
+    partTriangles.push((indices.length - before) / 3);
   }
-  return { positions: new Float32Array(positions), indices: new Uint32Array(indices) };
+  return { mesh: { positions: new Float32Array(positions), indices: new Uint32Array(indices) }, partTriangles };
 }
 
 /**
