@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildVariantMatrix, variantCount } from '../shared/families/variantMatrix';
 import { axisValueCode, skuFor } from '../shared/families/sku';
-import { FAMILY_MAX_VARIANTS, type Family, type Variant } from '../shared/schemas/family';
+import { FAMILY_MAX_VARIANTS, SkuSchema, type Family, type Variant } from '../shared/schemas/family';
 import { generate } from '../templates/index';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { currentRevisionId } from '../server/services/familyService';
@@ -463,5 +463,22 @@ describe('review workflow', () => {
     expect(codes).toContain('CAF');
     expect(res.body.families.every((f: { state: string }) => f.state === 'in_review')).toBe(true);
     expect((await manager.get('/api/families?state=nonsense')).status).toBe(400);
+  });
+});
+
+describe('SKU format', () => {
+  it('accepts every SKU the matrix writes and refuses others', () => {
+    const cells = buildVariantMatrix({
+      familyCode: 'MGB2',
+      axes: [
+        { kind: 'param', key: 'entryHoleDiameterMm', values: [27.5, 32] },
+        { kind: 'param', key: 'perch', values: [true, false] },
+        { kind: 'attribute', key: 'finish', values: ['uv-clear-coat', 'none'] },
+      ],
+      baseParams: {},
+      materialId: 'pla',
+    });
+    for (const cell of cells) expect(SkuSchema.safeParse(cell.sku).success, cell.sku).toBe(true);
+    for (const bad of ['HGB-28', 'FH-hgb-28', 'FH-H', 'FH-HGB-28 ']) expect(SkuSchema.safeParse(bad).success).toBe(false);
   });
 });

@@ -66,6 +66,11 @@ export const ACK_MIN_CHARS = 10;
 /** Prefix of every SKU (the demo studio's mark). */
 export const SKU_PREFIX = 'FH';
 
+/** A SKU as the scheme above writes it, e.g. `FH-HGB-28-SHIN-SAND`. */
+export const SkuSchema = z
+  .string()
+  .regex(/^FH-[A-Z0-9]{2,6}(-[A-Z0-9]{1,8})*$/, 'sku must look like FH-HGB-28-SHIN-SAND');
+
 /** Review states of a family revision, in workflow order. */
 export const FAMILY_STATES = ['draft', 'in_review', 'approved', 'published', 'retired'] as const;
 /** A review state: draft -> in_review -> approved -> published -> retired; return sends in_review back to draft. */
