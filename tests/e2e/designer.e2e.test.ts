@@ -238,7 +238,7 @@ describe('designer configurator', () => {
     expect(serverDownload.suggestedFilename()).toMatch(/\.stl$/);
     await page.getByTestId('server-hash').waitFor();
     expect((await page.getByTestId('server-hash').textContent())!.trim()).toBe(hash);
-    await expect(page.locator('.editor__hash').textContent()).resolves.toContain('same mesh');
+    await expect(page.getByTestId('hash-match').textContent()).resolves.toContain('same mesh');
     await page.screenshot({ path: `${SHOTS}/editor-export.png` });
 
     // Change the design again and save the changes into the same preset.
