@@ -37,7 +37,7 @@ export default async function bench(): Promise<void> {
   }
   const one = await catalogueVariantFixture({ sku: 'FH-BENCH-1', templateId: TEMPLATES[0].id });
   const variants = Array.from({ length: 500 }, (_, i) => ({ ...one, sku: `FH-BENCH-${i}` }));
-  const rows = priceListRows(variants, DEFAULT_SALES_SETTINGS);
+  const rows = priceListRows(variants);
   const csv = await timeMs(() => priceListCsv(rows));
   const xlsx = await timeMs(() => priceListXlsx(rows));
   console.log(`price list 500 rows: CSV ${csv.ms.toFixed(1)} ms (${(csv.value.length / 1024).toFixed(0)} KiB), XLSX ${xlsx.ms.toFixed(0)} ms (${(xlsx.value.length / 1024).toFixed(0)} KiB)`);

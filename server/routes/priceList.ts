@@ -5,7 +5,6 @@ import { requireRole } from '../auth/requireRole';
 import { sendAttachment } from '../pdf/sendAttachment';
 import { listCatalogueVariants } from '../services/catalogue';
 import { priceListCsv, priceListRows, priceListXlsx } from '../services/priceList';
-import { getSalesSettings } from '../services/salesSettings';
 
 /**
  * Builds the price-list router (mounted at `/api`; each route checks its roles).
@@ -14,7 +13,7 @@ import { getSalesSettings } from '../services/salesSettings';
 export function priceListRouter(ctx: AppContext): Router {
   const router = Router();
   const sellers = requireRole('sales', 'catalogue_manager');
-  const rows = async () => priceListRows(await listCatalogueVariants(ctx), (await getSalesSettings(ctx.db)).settings);
+  const rows = async () => priceListRows(await listCatalogueVariants(ctx));
   const stamp = () => new Date().toISOString().slice(0, 10);
 
   router.get('/price-list.csv', sellers, async (_req, res) => {

@@ -3,8 +3,7 @@ import { stringify } from 'csv-stringify/sync';
 import ExcelJS from 'exceljs';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/family';
-import type { PriceListRow, SalesSettings } from '../../shared/schemas/sales';
-import { shippingBox } from '../../shared/shipping/shippingBox';
+import type { PriceListRow } from '../../shared/schemas/sales';
 import { productName, STUDIO_NAME } from './specSheet';
 
 /** Column titles of the CSV and the sheet, in order, with units in the titles. */
@@ -17,25 +16,19 @@ export const PRICE_LIST_COLUMNS = [
   'Entry hole (mm)',
   'Entry hole (in)',
   'Mass (g)',
-  'Box L (mm)',
-  'Box W (mm)',
-  'Box H (mm)',
-  'Shipped weight (g)',
   'Currency',
   'Unit price',
 ] as const;
 
 /**
- * One price-list row per variant. The shipping box is sized from the report's bounding box (build orientation; the
- * box is the same whichever way up the part lies).
+ * One price-list row per variant. Shipping boxes are on each spec sheet, not here: they need the assembled body,
+ * which is built from the template (about a second a variant), while the list must stay quick for hundreds of rows.
  * @param variants - published variants
- * @param settings - sales settings (packaging rules)
  */
-export function priceListRows(variants: CatalogueVariant[], settings: SalesSettings): PriceListRow[] {
+export function priceListRows(variants: CatalogueVariant[]): PriceListRow[] {
   return variants.map((variant) => {
     const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
     const colour = material?.colours.find((c) => c.id === variant.attributes.colour);
-    const box = shippingBox(variant.report.bboxSizeMm, variant.report.massG, settings.packaging);
     return {
       sku: variant.sku,
       productName: productName(variant),
@@ -44,8 +37,6 @@ export function priceListRows(variants: CatalogueVariant[], settings: SalesSetti
       colour: colour?.name ?? variant.attributes.colour ?? '',
       entryHoleDiameterMm: variant.report.facts.entryHoleDiameterMm,
       massG: variant.report.massG,
-      boxOuterMm: box.outerMm,
-      shippedMassG: box.actualMassG,
       currency: variant.currency,
       unitPriceCents: variant.priceCents,
     };
@@ -63,8 +54,6 @@ function cells(row: PriceListRow): Array<string | number> {
     round(row.entryHoleDiameterMm, 1),
     round(row.entryHoleDiameterMm / 25.4, 2),
     Math.round(row.massG),
-    ...row.boxOuterMm.map((mm) => Math.round(mm)),
-    Math.round(row.shippedMassG),
     row.currency,
     round(row.unitPriceCents / 100, 2),
   ];

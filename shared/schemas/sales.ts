@@ -49,11 +49,8 @@ export const PriceListRowSchema = z.object({
   material: z.string(),
   colour: z.string(),
   entryHoleDiameterMm: z.number(),
+  /** Mass of every part of the product. */
   massG: z.number(),
-  /** Outside dimensions of the shipping box, largest first. */
-  boxOuterMm: z.tuple([z.number(), z.number(), z.number()]),
-  /** Shipped weight (product and packaging). */
-  shippedMassG: z.number(),
   currency: z.string(),
   unitPriceCents: z.number().int().nonnegative(),
 });
