@@ -14,6 +14,7 @@ import { familiesRouter } from './routes/families';
 import { catalogueRouter } from './routes/catalogue';
 import { photosRouter } from './routes/photos';
 import { mailRouter } from './routes/mail';
+import { analysesRouter } from './routes/analyses';
 import { exportsRouter } from './routes/exports';
 import { templatesRouter } from './routes/templates';
 import { specSheetsRouter } from './routes/specSheets';
@@ -58,6 +59,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/catalogue', catalogueRouter(ctx));
   app.use('/api/photos', photosRouter(ctx));
   app.use('/api/mail', mailRouter(ctx));
+  app.use('/api/analyses', analysesRouter(ctx));
   app.use('/api/templates', templatesRouter());
   app.use('/api/exports', exportsRouter(ctx));
 
