@@ -546,7 +546,18 @@ export async function diffRevisions(ctx: FamilyContext, id: string, from: number
   const b = rows.find((row) => row.number === to);
   if (!a) throw notFound(`from: family has no revision ${from}`);
   if (!b) throw notFound(`to: family has no revision ${to}`);
-  return revisionDiff(a, b);
+  // Compare complete parameters: a key one revision leaves at the template default and the other sets to that same
+  // default is not a change.
+  const complete = (revision: FamilyRevisionRow) => {
+    const template = findTemplate(revision.templateId);
+    if (!template) return revision;
+    try {
+      return { ...revision, baseParams: parseParams(template, revision.baseParams) };
+    } catch {
+      return revision;
+    }
+  };
+  return revisionDiff(complete(a), complete(b));
 }
 
 /**
