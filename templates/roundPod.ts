@@ -38,7 +38,7 @@ const parameters = z
   })
   .strict();
 
-const SEGMENTS = 72;
+const SEGMENTS = 64;
 const PROFILE_STEPS = 16;
 const SLOT_WIDTH_MM = 6;
 const SLOT_LENGTH_MM = 26;
