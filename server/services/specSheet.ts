@@ -92,7 +92,18 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
     box,
     weights,
     care: CARE,
-    cautions: cautions(variant, facts.hasPerch, material?.heatDeflectionC ?? null, colour.solarAbsorptance, fit.suits),
+    cautions: [
+      ...(product.templateVersion === variant.templateVersion
+        ? []
+        : [
+            {
+              title: 'Drawing',
+              text: `The drawing is built with template version ${product.templateVersion}; this variant was published with version ${variant.templateVersion}, so shapes may differ slightly. The figures above are the published ones.`,
+              source: '',
+            },
+          ]),
+      ...cautions(variant, facts.hasPerch, material?.heatDeflectionC ?? null, colour.solarAbsorptance, fit.suits),
+    ],
   };
 }
 

@@ -20,6 +20,8 @@ const UPRIGHT_TURN: Record<string, 'none' | 'turn-over-y'> = {
 /** The product body in use orientation with what it offers a bird. */
 export interface ProductMesh {
   templateName: string;
+  /** Version of the template the mesh was built with (the current one). */
+  templateVersion: number;
   /** Body only (no loose parts such as floor plugs), upright, resting on z = 0, centred on x and y. */
   mesh: IndexedMesh;
   facts: NestBoxFacts;
@@ -43,7 +45,13 @@ export async function productMesh(templateId: string, rawParams: unknown): Promi
     return { mesh: toMesh(output.parts.slice(0, 1)), facts: output.facts };
   });
   const turn = UPRIGHT_TURN[templateId] ?? 'none';
-  return { templateName: template.name, mesh: standUpright(mesh, turn), facts, upright: templateId in UPRIGHT_TURN };
+  return {
+    templateName: template.name,
+    templateVersion: template.version,
+    mesh: standUpright(mesh, turn),
+    facts,
+    upright: templateId in UPRIGHT_TURN,
+  };
 }
 
 /** Applies the turn, then rests the mesh on z = 0 and centres it on x and y. */
