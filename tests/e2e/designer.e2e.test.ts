@@ -12,6 +12,7 @@ import Module from 'manifold-3d';
 import { TEMPLATES, describeParameters } from '../../templates/index';
 import { generate } from '../../templates/generate';
 import { parseStl } from '../../shared/mesh/parseStl';
+import { parse3mf } from '../../shared/mesh/parse3mf';
 import { startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
@@ -214,6 +215,14 @@ describe('designer configurator', () => {
     // Volume agrees with the mesh the template builds in Node (tolerance: float32 STL coordinates).
     expect(Math.abs(manifold.volume() - node.volumeMm3) / node.volumeMm3).toBeLessThan(1e-4);
     manifold.delete();
+
+    // The 3MF written in the browser is a ZIP package (3MF core spec: OPC container) holding the same triangles.
+    const [download3mf] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-3mf').click()]);
+    const threeMfPath = `${SHOTS}/browser-${presetId}.3mf`;
+    await download3mf.saveAs(threeMfPath);
+    const threeMf = new Uint8Array(readFileSync(threeMfPath));
+    expect(String.fromCharCode(threeMf[0], threeMf[1])).toBe('PK'); // source: PKWARE APPNOTE, local file header
+    expect(parse3mf(threeMf).indices.length / 3).toBe(triangles);
 
     // The server export of the same parameters is the same mesh: its hash is the one the page shows, and the file
     // bytes are identical.
