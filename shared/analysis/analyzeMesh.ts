@@ -4,6 +4,7 @@ import type { CostRates, Material, PrinterProfile, PrintSettings } from '../sche
 import { estimateProduction } from '../production/estimateProduction';
 import { analyzeGeometry, type GeometryOptions } from './analyzeGeometry';
 import { buildPlateFit } from './buildPlateFit';
+import { fitParts } from './fitParts';
 import { searchOrientation } from './searchOrientation';
 
 /** Everything the full report needs besides the mesh. */
@@ -18,6 +19,11 @@ export interface AnalyzeMeshOptions {
   overhangDeg?: number;
   /** Gap between copies on the plate (default 10 mm: common practice, no source). */
   plateSpacingMm?: number;
+  /**
+   * Triangles of each separate part when the mesh holds several parts one after another (as `generate()` returns
+   * them): each part is then fitted on its own and copies per plate count complete sets. Omitted: one part.
+   */
+  partTriangles?: readonly number[];
   /** Sample budgets and bridge limits. */
   geometry?: Omit<GeometryOptions, 'up' | 'overhangDeg'>;
 }
@@ -46,7 +52,10 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
   const { printer, material } = options;
   const spacingMm = options.plateSpacingMm ?? 10;
   const buildVolumeMm: [number, number, number] = [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z];
-  const fit = buildPlateFit(geometry.bbox.sizeMm, buildVolumeMm, spacingMm);
+  const fit =
+    options.partTriangles && options.partTriangles.length > 1
+      ? { ...fitParts(oriented, options.partTriangles, buildVolumeMm, spacingMm), turnedOnPlate: false }
+      : buildPlateFit(geometry.bbox.sizeMm, buildVolumeMm, spacingMm);
   const production = estimateProduction(
     {
       volumeMm3: Math.max(0, geometry.volumeMm3),

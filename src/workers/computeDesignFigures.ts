@@ -1,6 +1,6 @@
 import type { GenerateResult } from '../../templates/generate';
 import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
-import { buildPlateFit } from '../../shared/analysis/buildPlateFit';
+import { fitParts } from '../../shared/analysis/fitParts';
 import { estimateProduction } from '../../shared/production/estimateProduction';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
@@ -35,12 +35,13 @@ export function computeDesignFigures(
     wallSamples: PREVIEW_WALL_SAMPLES,
   });
   const size = report.bbox.sizeMm;
-  const fit = buildPlateFit(size, [plate.x, plate.y, plate.z]);
+  // Parts (box body, floor plug) are laid side by side in the mesh but print on their own or packed: fit each part.
+  const fit = fitParts(result.mesh, result.partTriangles, [plate.x, plate.y, plate.z]);
   const production = estimateProduction(
     {
       volumeMm3: report.volumeMm3,
       surfaceAreaMm2: report.surfaceAreaMm2,
-      heightMm: size[2],
+      heightMm: fit.heightMm,
       supportVolumeMm3: report.supportVolumeMm3,
       bboxSizeMm: size,
       footprintMm2: report.footprintMm2,

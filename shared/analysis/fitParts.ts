@@ -1,0 +1,131 @@
+import type { IndexedMesh } from '../schemas/mesh';
+import { buildPlateFit, type PlateFit } from './buildPlateFit';
+
+/** How the separate parts of one design (e.g. box body and floor plug) fit a printer. */
+export interface PartsFit {
+  /** Every part fits the build volume on its own (parts may go on separate plates). */
+  fits: boolean;
+  /** Fit and copies per plate of each part printed on its own, in part order. */
+  parts: PlateFit[];
+  /** Size [x, y, z] of each part in build orientation, in part order. */
+  partSizesMm: Array<[number, number, number]>;
+  /** Complete sets (one of every part) packed on one plate; 0 when a set needs more than one plate. */
+  setsPerPlate: number;
+  /**
+   * Copies per plate for production: complete sets per plate when a set fits one plate, otherwise the copies of the
+   * part that fits fewest (each part printed on plates of its own); 0 when a part does not fit at all.
+   */
+  copiesPerPlate: number;
+  /** Tallest part: the build height that limits the printer. */
+  heightMm: number;
+}
+
+/**
+ * Bounding-box size of each part of a mesh whose parts follow one another (as `generate()` lays them out).
+ * @param mesh - the mesh in build orientation, mm
+ * @param partTriangles - triangle count of each part, in mesh order (they sum to the mesh's triangles)
+ * @returns one [x, y, z] size per part
+ */
+export function partSizesMm(mesh: IndexedMesh, partTriangles: readonly number[]): Array<[number, number, number]> {
+  const sizes: Array<[number, number, number]> = [];
+  let first = 0;
+  for (const count of partTriangles) {
+    const min = [Infinity, Infinity, Infinity];
+    const max = [-Infinity, -Infinity, -Infinity];
+    for (let i = first * 3; i < (first + count) * 3; i++) {
+      const v = mesh.indices[i] * 3;
+      for (let axis = 0; axis < 3; axis++) {
+        const value = mesh.positions[v + axis];
+        if (value < min[axis]) min[axis] = value;
+        if (value > max[axis]) max[axis] = value;
+      }
+    }
+    sizes.push(count > 0 ? [max[0] - min[0], max[1] - min[1], max[2] - min[2]] : [0, 0, 0]);
+    first += count;
+  }
+  return sizes;
+}
+
+/**
+ * Whether a design's parts fit a printer and how many complete sets go on one plate. Each part must fit the build
+ * volume on its own (allowing a 90° turn about z); sets are packed on the plate as footprint rectangles in shelves
+ * (rows), every part turned the same way, with a gap between parts. For a single part this equals
+ * {@link buildPlateFit}'s grid count n = floor((B + s) / (f + s)) per axis.
+ * @param sizesMm - each part's [x, y, z] size in build orientation
+ * @param buildVolumeMm - printer build volume [x, y, z]
+ * @param spacingMm - gap between parts (10 mm: common practice, no source)
+ */
+export function fitPartSizes(
+  sizesMm: ReadonlyArray<readonly number[]>,
+  buildVolumeMm: readonly number[],
+  spacingMm = 10,
+): PartsFit {
+  const parts = sizesMm.map((size) => buildPlateFit(size, buildVolumeMm, spacingMm));
+  const fits = parts.length > 0 && parts.every((fit) => fit.fits);
+  const heightMm = Math.max(0, ...sizesMm.map((size) => size[2]));
+  const sizes = sizesMm.map((size): [number, number, number] => [size[0], size[1], size[2]]);
+  if (!fits) return { fits, parts, partSizesMm: sizes, setsPerPlate: 0, copiesPerPlate: 0, heightMm };
+  const setsPerPlate = maxSetsPerPlate(sizesMm, buildVolumeMm, spacingMm);
+  const copiesPerPlate = setsPerPlate > 0 ? setsPerPlate : Math.min(...parts.map((fit) => fit.copiesPerPlate));
+  return { fits, parts, partSizesMm: sizes, setsPerPlate, copiesPerPlate, heightMm };
+}
+
+/**
+ * {@link fitPartSizes} on a mesh whose parts follow one another, e.g. a `generate()` result's mesh and
+ * `partTriangles`.
+ * @param mesh - the mesh in build orientation, mm
+ * @param partTriangles - triangle count of each part, in mesh order
+ * @param buildVolumeMm - printer build volume [x, y, z]
+ * @param spacingMm - gap between parts (10 mm: common practice, no source)
+ */
+export function fitParts(
+  mesh: IndexedMesh,
+  partTriangles: readonly number[],
+  buildVolumeMm: readonly number[],
+  spacingMm = 10,
+): PartsFit {
+  return fitPartSizes(partSizesMm(mesh, partTriangles), buildVolumeMm, spacingMm);
+}
+
+/** Largest k such that k copies of every part shelf-pack on the plate, trying four ways to turn the parts. */
+function maxSetsPerPlate(sizesMm: ReadonlyArray<readonly number[]>, buildVolumeMm: readonly number[], s: number): number {
+  const [bx, by] = buildVolumeMm;
+  const cells = sizesMm.map((size) => [size[0] + s, size[1] + s] as const);
+  const setArea = cells.reduce((sum, [w, d]) => sum + w * d, 0);
+  const upper = Math.floor(((bx + s) * (by + s)) / setArea);
+  const turns: Array<(w: number, d: number) => [number, number]> = [
+    (w, d) => [w, d],
+    (w, d) => [d, w],
+    (w, d) => [Math.max(w, d), Math.min(w, d)],
+    (w, d) => [Math.min(w, d), Math.max(w, d)],
+  ];
+  for (let k = upper; k > 0; k--) {
+    for (const turn of turns) {
+      const rects: Array<[number, number]> = [];
+      for (const [w, d] of cells) for (let i = 0; i < k; i++) rects.push(turn(w, d));
+      if (shelfPacks(rects, bx + s, by + s)) return k;
+    }
+  }
+  return 0;
+}
+
+/** Next-fit shelf packing, deepest first: true when every rectangle (already including its gap) fits the plate. */
+function shelfPacks(rects: Array<[number, number]>, plateX: number, plateY: number): boolean {
+  const sorted = [...rects].sort((a, b) => b[1] - a[1] || b[0] - a[0]);
+  let shelfY = 0;
+  let shelfDepth = 0;
+  let x = 0;
+  const eps = 1e-9;
+  for (const [w, d] of sorted) {
+    if (w > plateX + eps || d > plateY + eps) return false;
+    if (x + w > plateX + eps) {
+      shelfY += shelfDepth;
+      x = 0;
+      shelfDepth = 0;
+    }
+    if (shelfY + d > plateY + eps) return false;
+    x += w;
+    shelfDepth = Math.max(shelfDepth, d);
+  }
+  return true;
+}
