@@ -63,10 +63,18 @@ const HOLE_SEGMENTS = 48;
  */
 export const aFrame: Template<typeof parameters> = {
   id: 'a-frame',
-  version: 1,
+  version: 2,
   name: 'A-frame',
   summary: 'Steep A-frame printed floor-down, with a landing dowel that prints with the first layers.',
   parameters,
+  limits(p) {
+    return {
+      holeAboveFloorMm: {
+        maxMm: aFrameMaxHoleAboveFloorMm(p),
+        because: `for a ${p.cavityDepthMm} mm cavity with this floor width, roof pitch and entry (a 3 mm rim stays between the hole and the roof)`,
+      },
+    };
+  },
   build(p) {
     const t = p.wallThicknessMm;
     const W = p.floorWidthMm;
@@ -104,9 +112,9 @@ export const aFrame: Template<typeof parameters> = {
 
     // Entry: keep a 3 mm rim between the hole and the sloped walls.
     const r = p.entryHoleDiameterMm / 2;
-    const highestCentreZ = apexZ - (r + 3) / cos;
-    const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
-    const holeAboveFloorMm = holeCentreZ - r - floorZ;
+    // parseParams has checked the entry against aFrameMaxHoleAboveFloorMm, so the hole sits exactly where asked.
+    const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
+    const holeAboveFloorMm = p.holeAboveFloorMm;
     cuts.push(
       Solid.prism(teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS), 'y', frontY - 1, -D / 2 + 1).translate(
         0,
@@ -251,4 +259,16 @@ function landingDowel(frontY: number, lengthMm: number): Solid {
   }
   const dome = Solid.revolve(quarter, 32).translate(0, frontY - lengthMm, 0);
   return bar.add(dome);
+}
+
+/**
+ * Highest the entry's bottom edge may sit above the floor: the hole's centre stays (r + 3) / cos below the apex so a
+ * 3 mm rim remains between the hole and the sloped walls.
+ */
+function aFrameMaxHoleAboveFloorMm(p: z.output<typeof parameters>): number {
+  const pitch = (p.roofPitchDeg * Math.PI) / 180;
+  const slopeHeight = (p.floorWidthMm / 2) * Math.tan(pitch);
+  const kneeMm = Math.max(0, p.cavityDepthMm - slopeHeight);
+  const r = p.entryHoleDiameterMm / 2;
+  return kneeMm + slopeHeight - (r + 3) / Math.cos(pitch) - r;
 }

@@ -10,13 +10,13 @@ import { toGeom3 } from './lib/toGeom3';
 const parameters = z
   .object({
     entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
-    holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
-    cavityDiameterMm: z.number().min(90).max(160).default(110).meta({
+    holeAboveFloorMm: commonParameters.holeAboveFloorMm(125),
+    cavityDiameterMm: z.number().min(90).max(160).default(100).meta({
       label: 'Chamber diameter', unit: 'mm', step: 1, help: 'Inside diameter of each round chamber (its floor).',
     }),
-    cavityDepthMm: z.number().min(140).max(260).default(165).meta({
+    cavityDepthMm: z.number().min(140).max(260).default(160).meta({
       label: 'Chamber depth', unit: 'mm', step: 1,
-      help: 'Inside floor up to where the pointed ceiling of the chamber starts.',
+      help: 'Inside floor up to where the pointed ceiling starts; keep the top of the entry below it. The trunk stands about chamber depth + chamber radius + 42 mm tall per storey with the hanging tab.',
     }),
     storeys: z.number().int().min(1).max(2).default(1).meta({
       label: 'Storeys', unit: 'count', step: 1,
@@ -62,10 +62,18 @@ const SEGMENTS = 96;
  */
 export const barkTrunk: Template<typeof parameters> = {
   id: 'bark-trunk',
-  version: 1,
+  version: 2,
   name: 'Bark trunk',
   summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
   parameters,
+  limits(p) {
+    return {
+      holeAboveFloorMm: {
+        maxMm: barkMaxHoleAboveFloorMm(p),
+        because: `for a ${p.cavityDepthMm} mm cavity of ${p.cavityDiameterMm} mm diameter with this entry and rim (the hole stays under the pointed ceiling)`,
+      },
+    };
+  },
   build(p) {
     const t = p.wallThicknessMm;
     const Ri = p.cavityDiameterMm / 2;
@@ -79,7 +87,7 @@ export const barkTrunk: Template<typeof parameters> = {
 
     const additions: Solid[] = [];
     const cuts: Solid[] = [];
-    let holeAboveFloorMm = p.holeAboveFloorMm;
+    const holeAboveFloorMm = p.holeAboveFloorMm;
     for (let storey = 0; storey < p.storeys; storey++) {
       const floorZ = t + storey * storeyMm;
       const ceilingZ = floorZ + p.cavityDepthMm;
@@ -91,9 +99,8 @@ export const barkTrunk: Template<typeof parameters> = {
       ];
       cuts.push(Solid.revolve(chamber, SEGMENTS));
       // Keep the hole (and its rim) under the pointed ceiling.
-      const highestCentreZ = ceilingZ + Ri - (r + 4) - TEARDROP_TIP_RADII * r - 3;
-      const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
-      holeAboveFloorMm = Math.min(holeAboveFloorMm, holeCentreZ - r - floorZ);
+      // parseParams has checked the entry against barkMaxHoleAboveFloorMm, so each hole sits exactly where asked.
+      const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
       cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ));
       // Under 1 mm the rim would only graze the hole's own outline (zero-volume slivers), so it is left off.
       if (p.knotRimMm >= 1) {
@@ -189,3 +196,13 @@ export const barkTrunk: Template<typeof parameters> = {
     };
   },
 };
+
+/**
+ * Highest the entry's bottom edge may sit above a chamber's floor: the hole, its rim allowance (r + 4) and 3 mm of
+ * wall stay under the chamber's 45° pointed ceiling.
+ */
+function barkMaxHoleAboveFloorMm(p: z.output<typeof parameters>): number {
+  const Ri = p.cavityDiameterMm / 2;
+  const r = p.entryHoleDiameterMm / 2;
+  return p.cavityDepthMm + Ri - (r + 4) - TEARDROP_TIP_RADII * r - 3 - r;
+}

@@ -10,14 +10,15 @@ const parameters = z
   .object({
     entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
     holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
-    floorWidthMm: z.number().min(80).max(200).default(120).meta({
+    floorWidthMm: z.number().min(80).max(200).default(112).meta({
       label: 'Floor width', unit: 'mm', step: 1, help: 'Inside floor, side to side.',
     }),
     floorDepthMm: z.number().min(80).max(200).default(120).meta({
       label: 'Floor depth', unit: 'mm', step: 1, help: 'Inside floor, front to back.',
     }),
-    cavityDepthMm: z.number().min(120).max(300).default(160).meta({
-      label: 'Cavity depth', unit: 'mm', step: 1, help: 'Inside floor up to where the roof meets the side walls.',
+    cavityDepthMm: z.number().min(120).max(300).default(170).meta({
+      label: 'Cavity depth', unit: 'mm', step: 1,
+      help: 'Inside floor up to where the roof meets the side walls; keep the top of the entry below it. Over about 180 mm the box no longer fits a 250 mm build height.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
     roofPitchDeg: z.number().min(45).max(65).default(47).meta({
@@ -58,28 +59,21 @@ const HOLE_SEGMENTS = 48;
  */
 export const gableBox: Template<typeof parameters> = {
   id: 'gable-box',
-  version: 1,
+  version: 2,
   name: 'Gable box',
   summary: 'Classic pitched-roof box, printed roof-down on a flat ridge strip, with a removable floor plug.',
   parameters,
+  limits(p) {
+    const { maxHoleAboveFloorMm } = gableFrame(p);
+    return {
+      holeAboveFloorMm: {
+        maxMm: maxHoleAboveFloorMm,
+        because: `for a ${p.cavityDepthMm} mm cavity with this floor width, roof pitch and entry (the entry stays 3 mm under the roof)`,
+      },
+    };
+  },
   build(p) {
-    const t = p.wallThicknessMm;
-    const W = p.floorWidthMm;
-    const D = p.floorDepthMm;
-    const tan = Math.tan((p.roofPitchDeg * Math.PI) / 180);
-    const cos = Math.cos((p.roofPitchDeg * Math.PI) / 180);
-    const sin = Math.sin((p.roofPitchDeg * Math.PI) / 180);
-    const Wo = W + 2 * t;
-    const o = p.roofOverhangMm;
-    const floorZ = PLUG_BOSS_MM;
-    const eavesZ = floorZ + p.cavityDepthMm;
-    /** Underside of the roof (= top of the cavity) at horizontal distance x from the centre line. */
-    const innerRoofZ = (x: number): number => eavesZ + (W / 2 - Math.abs(x)) * tan;
-    const roofThicknessZ = t / cos;
-    const outerRoofZ = (x: number): number => innerRoofZ(x) + roofThicknessZ;
-    const flatZ = outerRoofZ(p.ridgeFlatMm / 2);
-    // Keep at least a wall's thickness of roof under the flat ridge strip.
-    const innerApexZ = Math.min(innerRoofZ(0), flatZ - t);
+    const { t, W, D, tan, sin, Wo, o, floorZ, eavesZ, innerRoofZ, outerRoofZ, flatZ, innerApexZ } = gableFrame(p);
     const frontY = -D / 2 - t;
 
     const wallsOutline: Outline = [
@@ -113,9 +107,9 @@ export const gableBox: Template<typeof parameters> = {
     // Entry hole: the tip of the teardrop points down here because the box is turned over to print.
     const r = p.entryHoleDiameterMm / 2;
     const tipBelow = TEARDROP_TIP_RADII * r;
-    const highestCentreZ = Math.min(innerRoofZ(r), innerApexZ) - 3 - r;
-    const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + tipBelow, highestCentreZ);
-    const holeAboveFloorMm = holeCentreZ - tipBelow - floorZ;
+    // parseParams has checked the entry against gableFrame's limit, so the hole sits exactly where asked.
+    const holeCentreZ = floorZ + p.holeAboveFloorMm + tipBelow;
+    const holeAboveFloorMm = p.holeAboveFloorMm;
     cuts.push(
       Solid.prism(teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS, false), 'y', frontY - 1, -D / 2 + 1).translate(
         0,
@@ -188,6 +182,34 @@ export const gableBox: Template<typeof parameters> = {
     };
   },
 };
+
+/**
+ * The gable's inside frame from the parameters: floor and eaves heights, the roof's underside and outside, the
+ * flat ridge strip, and the highest the entry's bottom edge may sit (3 mm of wall between the hole and the roof).
+ */
+function gableFrame(p: z.output<typeof parameters>) {
+  const t = p.wallThicknessMm;
+  const W = p.floorWidthMm;
+  const D = p.floorDepthMm;
+  const tan = Math.tan((p.roofPitchDeg * Math.PI) / 180);
+  const cos = Math.cos((p.roofPitchDeg * Math.PI) / 180);
+  const sin = Math.sin((p.roofPitchDeg * Math.PI) / 180);
+  const Wo = W + 2 * t;
+  const o = p.roofOverhangMm;
+  const floorZ = PLUG_BOSS_MM;
+  const eavesZ = floorZ + p.cavityDepthMm;
+  /** Underside of the roof (= top of the cavity) at horizontal distance x from the centre line. */
+  const innerRoofZ = (x: number): number => eavesZ + (W / 2 - Math.abs(x)) * tan;
+  const roofThicknessZ = t / cos;
+  const outerRoofZ = (x: number): number => innerRoofZ(x) + roofThicknessZ;
+  const flatZ = outerRoofZ(p.ridgeFlatMm / 2);
+  // Keep at least a wall's thickness of roof under the flat ridge strip.
+  const innerApexZ = Math.min(innerRoofZ(0), flatZ - t);
+  const r = p.entryHoleDiameterMm / 2;
+  const highestCentreZ = Math.min(innerRoofZ(r), innerApexZ) - 3 - r;
+  const maxHoleAboveFloorMm = highestCentreZ - TEARDROP_TIP_RADII * r - floorZ;
+  return { t, W, D, tan, sin, Wo, o, floorZ, eavesZ, innerRoofZ, outerRoofZ, flatZ, innerApexZ, maxHoleAboveFloorMm };
+}
 
 /** Top of the cavity outline: the two roof planes, cut flat where the ridge strip would leave the roof too thin. */
 function apexPoints(apexZ: number, innerRoofZ: (x: number) => number, tan: number, W: number): Outline {

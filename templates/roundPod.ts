@@ -14,9 +14,9 @@ const parameters = z
     bodyDiameterMm: z.number().min(150).max(240).default(180).meta({
       label: 'Body diameter', unit: 'mm', step: 1, help: 'Widest outside diameter of the pod.',
     }),
-    bodyHeightMm: z.number().min(200).max(320).default(245).meta({
+    bodyHeightMm: z.number().min(200).max(320).default(228).meta({
       label: 'Body height', unit: 'mm', step: 1,
-      help: 'Outside height from the flat printing face to the top; taller than wide makes an egg.',
+      help: 'Outside height from the flat printing face to the top (the hanging eye adds 18 mm); taller than wide makes an egg.',
     }),
     floorDiameterMm: z.number().min(80).max(150).default(110).meta({
       label: 'Floor diameter', unit: 'mm', step: 1,
@@ -49,25 +49,20 @@ const SLOT_LENGTH_MM = 26;
  */
 export const roundPod: Template<typeof parameters> = {
   id: 'round-pod',
-  version: 1,
+  version: 2,
   name: 'Round pod',
   summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
   parameters,
+  limits(p) {
+    return {
+      holeAboveFloorMm: {
+        maxMm: podFrame(p).maxHoleAboveFloorMm,
+        because: `for a ${p.bodyDiameterMm} × ${p.bodyHeightMm} mm body with this wall and entry (the hole stays 4 mm under the ceiling)`,
+      },
+    };
+  },
   build(p) {
-    const t = p.wallThicknessMm;
-    const a = p.bodyDiameterMm / 2;
-    const lower = a;
-    const ai = a - t;
-    const bli = lower - t;
-    const floorRadius = Math.min(p.floorDiameterMm / 2, ai - 15);
-    // Inside floor height below the equator, then the flat printing face one floor thickness lower.
-    const floorZ = -bli * Math.sqrt(1 - (floorRadius / ai) ** 2);
-    const cutZ = floorZ - t;
-    // Both tops are 45° cones over the ellipses (apex at √(a² + b²)); the inner apex sits t·√2 lower so the cone wall
-    // keeps the full wall thickness.
-    const apexZ = Math.max(a * 1.25, p.bodyHeightMm + cutZ);
-    const upper = Math.sqrt(apexZ ** 2 - a ** 2);
-    const upperInner = Math.sqrt((apexZ - t * Math.SQRT2) ** 2 - ai ** 2);
+    const { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner, ceiling } = podFrame(p);
 
     const outer = Solid.revolve(
       eggProfile({ radiusMm: a, upperMm: upper, lowerMm: lower, cutZMm: cutZ, steps: PROFILE_STEPS, coneTop: true, coneBottom: true }),
@@ -81,9 +76,8 @@ export const roundPod: Template<typeof parameters> = {
     const cuts: Solid[] = [cavity];
 
     const r = p.entryHoleDiameterMm / 2;
-    const ceiling = (x: number): number => eggCeilingZ({ radiusMm: ai, upperMm: upperInner }, x);
-    const highestCentreZ = ceiling(r + 6) - TEARDROP_TIP_RADII * r - 4;
-    const holeCentreZ = Math.min(floorZ + p.holeAboveFloorMm + r, highestCentreZ);
+    // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
+    const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
     cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', -a - 2, -ai * 0.3).translate(0, 0, holeCentreZ));
 
     const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
@@ -135,7 +129,7 @@ export const roundPod: Template<typeof parameters> = {
         floorWidthMm: floorRadius * 2,
         floorDepthMm: floorRadius * 2,
         cavityDepthMm: ceiling(0) - floorZ,
-        holeAboveFloorMm: holeCentreZ - r - floorZ,
+        holeAboveFloorMm: p.holeAboveFloorMm,
         wallThicknessMm: t,
         hasPerch: p.perch,
         drainageHoleCount: p.drainageHoles,
@@ -146,3 +140,30 @@ export const roundPod: Template<typeof parameters> = {
     };
   },
 };
+
+/**
+ * The pod's shape from the parameters (model coordinates, equator at z = 0): outside and inside radii, the inside
+ * floor and printing-face heights, the cone apex, the egg's upper half-heights, the inside ceiling, and the highest
+ * the entry's bottom edge may sit above the floor (the teardrop tip 4 mm under the ceiling).
+ */
+function podFrame(p: z.output<typeof parameters>) {
+  const t = p.wallThicknessMm;
+  const a = p.bodyDiameterMm / 2;
+  const lower = a;
+  const ai = a - t;
+  const bli = lower - t;
+  const floorRadius = Math.min(p.floorDiameterMm / 2, ai - 15);
+  // Inside floor height below the equator, then the flat printing face one floor thickness lower.
+  const floorZ = -bli * Math.sqrt(1 - (floorRadius / ai) ** 2);
+  const cutZ = floorZ - t;
+  // Both tops are 45° cones over the ellipses (apex at √(a² + b²)); the inner apex sits t·√2 lower so the cone wall
+  // keeps the full wall thickness.
+  const apexZ = Math.max(a * 1.25, p.bodyHeightMm + cutZ);
+  const upper = Math.sqrt(apexZ ** 2 - a ** 2);
+  const upperInner = Math.sqrt((apexZ - t * Math.SQRT2) ** 2 - ai ** 2);
+  const ceiling = (x: number): number => eggCeilingZ({ radiusMm: ai, upperMm: upperInner }, x);
+  const r = p.entryHoleDiameterMm / 2;
+  const highestCentreZ = ceiling(r + 6) - TEARDROP_TIP_RADII * r - 4;
+  const maxHoleAboveFloorMm = highestCentreZ - r - floorZ;
+  return { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner, ceiling, maxHoleAboveFloorMm };
+}

@@ -43,8 +43,25 @@ export interface Template<S extends z.ZodObject = z.ZodObject> {
   /** One sentence for the template picker. */
   summary: string;
   parameters: S;
+  /**
+   * Limits one parameter puts on another (e.g. the entry must stay under the roof for the chosen cavity depth).
+   * parseParams rejects a value outside them with a message naming the field and its allowed range, so `build`
+   * never has to change a value silently.
+   */
+  limits?(params: z.output<S>): ParameterLimits;
   build(params: z.output<S>): TemplateOutput;
 }
+
+/** A range a parameter must keep given the other parameters, with the reason shown to the designer. */
+export interface ParameterLimit {
+  minMm?: number;
+  maxMm?: number;
+  /** Why, as a phrase that follows the range, e.g. `for a 160 mm cavity (the entry stays under the roof)`. */
+  because: string;
+}
+
+/** Cross-parameter limits by parameter key. */
+export type ParameterLimits = Partial<Record<string, ParameterLimit>>;
 
 /** Any registered template, parameters erased. */
 export type AnyTemplate = Template<z.ZodObject>;

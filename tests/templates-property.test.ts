@@ -22,14 +22,26 @@ function paramsArbitrary(template: AnyTemplate): fc.Arbitrary<Record<string, unk
       fields[p.key] = fc.double({ min: p.min as number, max: p.max as number, noNaN: true, noDefaultInfinity: true });
     }
   }
-  return fc.record(fields);
+  // The entry height is drawn inside the range the other parameters allow (template.limits), as a fraction of it;
+  // combinations with no allowed entry height are skipped (parseParams rejects them by name, tested elsewhere).
+  const { holeAboveFloorMm: _hole, ...others } = fields;
+  return fc.tuple(fc.record(others), fc.double({ min: 0, max: 1, noNaN: true })).map(([params, fraction]) => {
+    const parsed = template.parameters.parse({ ...params, holeAboveFloorMm: 60 });
+    const declared = describeParameters(template).find((p) => p.key === 'holeAboveFloorMm');
+    const lo = declared?.min ?? 0;
+    const hi = Math.min(declared?.max ?? Infinity, template.limits?.(parsed).holeAboveFloorMm?.maxMm ?? Infinity);
+    return { ...params, holeAboveFloorMm: hi < lo ? -1 : Math.floor(lo + fraction * (hi - lo)) };
+  });
 }
 
 describe.each(TEMPLATES.map((t) => [t.id, t] as const))('template %s over random parameters', (_id, template) => {
   it(`stays closed and manifold with the expected bodies (${RUNS_PER_TEMPLATE} runs)`, async () => {
     await fc.assert(
       fc.asyncProperty(paramsArbitrary(template), async (params) => {
+        fc.pre((params.holeAboveFloorMm as number) >= 0);
         const result = await generate(template.id, params);
+        // The entry sits where the parameter says: no silent clamping.
+        expect(result.facts.holeAboveFloorMm).toBeCloseTo(params.holeAboveFloorMm as number, 6);
         const report = await manifoldReport(result.mesh);
         const expectedBodies = template.id === 'gable-box' || result.params.cleaningAccess ? 2 : 1;
         expect(report.status).toBe('NoError');

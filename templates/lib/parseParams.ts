@@ -40,5 +40,37 @@ export function parseParams(template: AnyTemplate, input: unknown): TemplatePara
     const whole = issue?.code === 'invalid_type' && issue.expected === 'int' ? ' (a whole number)' : '';
     throw new TemplateParamError(key, `${key} must be ${allowedRange(param)}${whole}`);
   }
-  return result.data as TemplateParams;
+  const params = result.data as TemplateParams;
+  checkLimits(template, params, byKey);
+  return params;
+}
+
+/** Rounds a limit for a message: down for a maximum, up for a minimum, so the quoted range is safe to use. */
+function roundLimit(value: number, up: boolean): number {
+  return up ? Math.ceil(value * 10 - 1e-9) / 10 : Math.floor(value * 10 + 1e-9) / 10;
+}
+
+/**
+ * Applies a template's cross-parameter limits: a value outside them is rejected with the field and the range that
+ * the other parameters allow (never clamped silently).
+ */
+function checkLimits(template: AnyTemplate, params: TemplateParams, byKey: Map<string, ParameterDescription>): void {
+  const limits = template.limits?.(params as never) ?? {};
+  for (const [key, limit] of Object.entries(limits)) {
+    const param = byKey.get(key);
+    const value = params[key];
+    if (!limit || !param || typeof value !== 'number') continue;
+    const lo = Math.max(param.min ?? -Infinity, limit.minMm ?? -Infinity);
+    const hi = Math.min(param.max ?? Infinity, limit.maxMm ?? Infinity);
+    const unit = param.unit && param.unit !== 'count' ? ` ${param.unit}` : '';
+    if (lo > hi) {
+      throw new TemplateParamError(key, `${key} has no allowed value ${limit.because}; change the other parameters`);
+    }
+    if (value < lo - 1e-9 || value > hi + 1e-9) {
+      throw new TemplateParamError(
+        key,
+        `${key} must be between ${roundLimit(lo, true)} and ${roundLimit(hi, false)}${unit} ${limit.because}`,
+      );
+    }
+  }
 }

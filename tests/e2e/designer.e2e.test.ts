@@ -90,11 +90,14 @@ describe('designer configurator', () => {
       const massBefore = await figure(page, 'mass');
       expect(volumeBefore).toMatch(/cm³$/);
 
-      await moveEntrySlider(page, 0.85);
+      // 40 % along the rail (about 39 mm): an entry every template fits under its roof at the default hole height
+      // (the round pod allows up to 40.5 mm there; a larger entry needs a lower hole or a taller body, which
+      // parseParams says by name).
+      await moveEntrySlider(page, 0.4);
       const secondHash = await waitForBuild(page, firstHash);
       const moved = await entryInputValue(page);
-      // The slider moved towards its upper end: 85 % along the rail, within a step or two.
-      const expected = entry!.min! + 0.85 * (entry!.max! - entry!.min!);
+      // The slider moved up from the 32 mm default: 40 % along the rail, within a step or two.
+      const expected = entry!.min! + 0.4 * (entry!.max! - entry!.min!);
       expect(Math.abs(moved - expected)).toBeLessThan((entry!.max! - entry!.min!) * 0.05);
       expect(secondHash).not.toBe(firstHash);
       // A bigger hole removes material: the volume figure changes (mass follows it).
