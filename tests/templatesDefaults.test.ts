@@ -7,9 +7,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { assessBirdFit } from '../shared/birdfit/assessBirdFit';
+import { analyzeMesh } from '../shared/analysis/analyzeMesh';
 import { buildPlateFit } from '../shared/analysis/buildPlateFit';
 import { fitParts, fitPartSizes } from '../shared/analysis/fitParts';
-import { DEFAULT_PRINTERS } from '../shared/production/defaults';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import { computeDesignFigures } from '../src/workers/computeDesignFigures';
 import { TEMPLATES, TemplateParamError, generate } from '../templates/index';
@@ -48,6 +49,22 @@ describe('fitPartSizes (shared part-fit rule)', () => {
     // A part taller than the build height does not fit, whatever its footprint.
     expect(fitPartSizes([[100, 100, 260], [50, 50, 10]], [256, 256, 256]).fits).toBe(false);
   });
+});
+
+describe('analyzeMesh plate fit with known parts', () => {
+  it('fits the gable box part by part where the side-by-side layout as a whole is too wide', async () => {
+    const result = await generate('gable-box', {});
+    const printer = DEFAULT_PRINTERS.find((p) => p.id === 'cube-256')!;
+    const options = { printer, material: DEFAULT_MATERIALS[0], settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES, geometry: { supportMaxRays: 20_000, wallSamples: 200 } };
+    const whole = analyzeMesh(result.mesh, options).report;
+    // body 182 mm + 10 mm gap + plug 132 mm laid side by side: over 256 mm as one block (measured layout)
+    expect(whole.bbox.sizeMm[0]).toBeGreaterThan(256);
+    expect(whole.buildPlate.fits).toBe(false);
+    const parts = analyzeMesh(result.mesh, { ...options, partTriangles: result.partTriangles }).report;
+    expect(parts.buildPlate.fits).toBe(true);
+    expect(parts.buildPlate.copiesPerPlate).toBeGreaterThanOrEqual(1);
+    expect(parts.warnings.join(' ')).not.toMatch(/does not fit/);
+  }, 60_000);
 });
 
 /** First hit of a ray along +y from y = -1000 at (x, z), by Möller–Trumbore over every triangle; null when none. */
