@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CatalogueVariant } from '../shared/schemas/family';
 import { DEFAULT_RATES } from '../shared/production/defaults';
 import { getVariantBySku, listCatalogueVariants } from '../server/services/catalogue';
+import { findTemplate } from '../templates/index';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
 let t: TestApp;
@@ -67,7 +68,7 @@ describe('catalogue service for spec sheets and quotes', () => {
     const variant = await getVariantBySku(t.ctx, 'FH-HGB-25-NONE-SAND');
     expect(variant).toBeDefined();
     expect(variant!.family).toMatchObject({ code: 'HGB', name: 'Hedgerow Gable' });
-    expect(variant!.templateVersion).toBe(1);
+    expect(variant!.templateVersion).toBe(findTemplate('gable-box')?.version); // the seeded family's template, current version
     expect(variant!.attributes).toEqual({ colour: 'sand', material: 'pla', finish: null });
     expect(variant!.params).toMatchObject({ entryHoleDiameterMm: 25, trimStyle: 'none', cavityDepthMm: 160 });
     // source: RSPB via trade-facts §1b — blue tit hole 25 mm; the box reports the hole it was built with

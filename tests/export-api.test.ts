@@ -35,7 +35,8 @@ describe('POST /api/exports', () => {
     const res = await designer.post('/api/exports').send({ templateId: 'gable-box', params, format: 'stl' }).buffer(true).parse(binary as never);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toContain('model/stl');
-    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="gable-box-v1-[0-9a-f]{8}\.stl"$/);
+    const version = (await generate('gable-box', {})).template.version;
+    expect(res.headers['content-disposition']).toMatch(new RegExp(`^attachment; filename="gable-box-v${version}-[0-9a-f]{8}\\.stl"$`));
     const local = await generate('gable-box', params);
     expect(res.headers['x-mesh-sha256']).toBe(local.sha256);
     expect(Number(res.headers['x-mesh-triangles'])).toBe(local.triangles);
@@ -59,6 +60,8 @@ describe('POST /api/exports', () => {
     [{ templateId: 'bark-trunk', params: { storeys: 3 }, format: 'stl' }, 'params.storeys', /^storeys must be between 1 and 2$/],
     [{ templateId: 'gable-box', params: { trimStyle: 'thatch' }, format: 'stl' }, 'params.trimStyle', /^trimStyle must be one of none, shingles, boards$/],
     [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^format:/],
+    // an entry the default cavity cannot hold: rejected with the range the other parameters allow, not moved
+    [{ templateId: 'round-pod', params: { holeAboveFloorMm: 200 }, format: 'stl' }, 'params.holeAboveFloorMm', /^holeAboveFloorMm must be between 60 and 14\d(\.\d)? mm for a 180 × 228 mm body/],
   ])('answers 400 naming the field and its allowed range: %o', async (body, path, message) => {
     const res = await designer.post('/api/exports').send(body);
     expect(res.status).toBe(400);
