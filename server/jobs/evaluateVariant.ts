@@ -1,4 +1,4 @@
-import { buildPlateFit } from '../../shared/analysis/buildPlateFit';
+import { fitPartSizes } from '../../shared/analysis/fitParts';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
 import { variantVerdict } from '../../shared/families/variantVerdict';
 import { estimateProduction } from '../../shared/production/estimateProduction';
@@ -27,19 +27,18 @@ export interface EvaluationContext {
 
 /**
  * Turns measured geometry into a variant's report, cost, bird-fit warnings and verdict. Each body must fit the
- * printer on its own (a box and its floor plug may go on separate plates); copies per plate counts whole units when
- * all bodies fit one plate together, otherwise the copies of the largest body.
+ * printer on its own (a box and its floor plug may go on separate plates); copies per plate counts complete sets
+ * when a set fits one plate, otherwise the copies of the part that fits fewest (shared/analysis/fitParts.ts).
  * @param geometry - what the worker measured
  * @param context - printer, material, support budget and region
  */
 export function evaluateVariant(geometry: VariantGeometry, context: EvaluationContext): VariantEvaluation {
   const { printer, material } = context;
   const plate = [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z];
-  const partFits = geometry.partSizesMm.map((size) => buildPlateFit(size, plate));
-  const together = buildPlateFit(geometry.bboxSizeMm, plate);
-  const fitsPrinter = partFits.every((fit) => fit.fits);
-  const copiesPerPlate = together.fits ? together.copiesPerPlate : fitsPrinter ? Math.min(...partFits.map((f) => f.copiesPerPlate)) : 0;
-  const heightMm = Math.max(...geometry.partSizesMm.map((size) => size[2]), 0);
+  const partsFit = fitPartSizes(geometry.partSizesMm, plate);
+  const fitsPrinter = partsFit.fits;
+  const copiesPerPlate = partsFit.copiesPerPlate;
+  const heightMm = partsFit.heightMm;
   const production = estimateProduction(
     {
       volumeMm3: geometry.volumeMm3,
@@ -57,7 +56,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     DEFAULT_RATES,
   );
   const warnings: string[] = [];
-  if (fitsPrinter && !together.fits) warnings.push('the parts need separate build plates on this printer');
+  if (fitsPrinter && partsFit.setsPerPlate === 0) warnings.push('the parts need separate build plates on this printer');
   if (geometry.maxBridgeSpanMm > 10) warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
   const birdFit = assessBirdFit(geometry.facts, context.region ? { region: context.region } : {});
   const report: VariantReport = {

@@ -1,7 +1,7 @@
 import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import { generate } from '../../templates/generate';
-import { partSizesMm } from './partSizes';
+import { partSizesMm } from '../../shared/analysis/fitParts';
 
 /** Ray budget of the support estimate: the analysis default, because the support budget gates the family. */
 export const FAMILY_SUPPORT_RAYS = 200_000;
@@ -63,7 +63,7 @@ export async function computeVariantGeometry(templateId: string, params: Record<
     sha256: result.sha256,
     facts: result.facts,
     partCount: result.partCount,
-    partSizesMm: partSizesMm(result.mesh),
+    partSizesMm: partSizesMm(result.mesh, result.partTriangles),
     triangles: report.triangles,
     volumeMm3: report.volumeMm3,
     surfaceAreaMm2: report.surfaceAreaMm2,
