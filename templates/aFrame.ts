@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
-import { floorPlug } from './lib/floorPlug';
+import { floorOpening } from './lib/floorOpening';
 import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline } from './lib/teardrop';
@@ -44,10 +44,7 @@ const parameters = z
     drainageHoles: commonParameters.drainageHoles(4),
     hangingHole: commonParameters.hangingHole(true),
     perch: commonParameters.perch(),
-    cleaningAccess: z.boolean().default(true).meta({
-      label: 'Cleaning access', unit: '',
-      help: 'A round floor plug, printed as a separate part, so old nests can be removed after the season.',
-    }),
+    cleaningAccess: commonParameters.cleaningAccess(),
     printClearanceMm: commonParameters.printClearanceMm(),
   })
   .strict();
@@ -193,18 +190,16 @@ export const aFrame: Template<typeof parameters> = {
     }
 
     const plugDiameterMm = Math.min(W, D) - 40;
-    let plug: Solid | undefined;
-    if (p.cleaningAccess) {
-      cuts.push(Solid.cylinder(floorZ + 2, plugDiameterMm / 2, 64).translate(0, 0, -1));
-      plug = floorPlug({
-        openingDiameterMm: plugDiameterMm,
-        seatThicknessMm: floorZ,
-        clearanceMm: p.printClearanceMm,
-        drainageHoles: p.drainageHoles,
-      }).translate(Wo / 2 + 10 + plugDiameterMm / 2 + 8, 0, 0);
-    } else {
-      cuts.push(...floorDrains(plugDiameterMm / 2 - 12, p.drainageHoles, floorZ));
-    }
+    const floor = floorOpening({
+      openingDiameterMm: plugDiameterMm,
+      floorThicknessMm: floorZ,
+      floorBottomZMm: 0,
+      cleaningAccess: p.cleaningAccess,
+      clearanceMm: p.printClearanceMm,
+      drainageHoles: p.drainageHoles,
+    });
+    cuts.push(...floor.cuts);
+    const plug = floor.plug?.translate(Wo / 2 + 10 + plugDiameterMm / 2 + 8, 0, 0);
 
     const body = Solid.prism(bodyOutline, 'y', frontY, backY).add(...additions).subtract(...cuts);
     const parts = [{ name: 'body', geometry: toGeom3(body) }];
@@ -227,18 +222,6 @@ export const aFrame: Template<typeof parameters> = {
     };
   },
 };
-
-/** Ring of vertical 6 mm drainage holes through a solid floor. */
-function floorDrains(ringRadiusMm: number, count: number, floorMm: number): Solid[] {
-  return Array.from({ length: count }, (_, i) => {
-    const angle = (2 * Math.PI * (i + 0.5)) / Math.max(count, 1);
-    return Solid.cylinder(floorMm + 2, 3, 16).translate(
-      ringRadiusMm * Math.cos(angle),
-      ringRadiusMm * Math.sin(angle),
-      -1,
-    );
-  });
-}
 
 /**
  * Landing dowel: a half-round bar lying flat on the build plate with a domed end, so every face points up or

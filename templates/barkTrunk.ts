@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Template } from './types';
 import { barkTube } from './lib/barkTube';
 import { commonParameters } from './lib/commonParameters';
-import { floorPlug } from './lib/floorPlug';
+import { floorOpening } from './lib/floorOpening';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 import { toGeom3 } from './lib/toGeom3';
@@ -44,10 +44,9 @@ const parameters = z
     drainageHoles: commonParameters.drainageHoles(4),
     hangingHole: commonParameters.hangingHole(true),
     perch: commonParameters.perch(),
-    cleaningAccess: z.boolean().default(true).meta({
-      label: 'Cleaning access', unit: '',
-      help: 'A round plug in the lowest floor, printed as a separate part. An upper storey has no cleaning access.',
-    }),
+    cleaningAccess: commonParameters.cleaningAccess(
+      'A round plug in the lowest floor, printed as a separate part. An upper storey has no cleaning access.',
+    ),
     printClearanceMm: commonParameters.printClearanceMm(),
   })
   .strict();
@@ -141,22 +140,16 @@ export const barkTrunk: Template<typeof parameters> = {
     }
 
     const openingMm = p.cavityDiameterMm - 30;
-    let plug: Solid | undefined;
-    if (p.cleaningAccess) {
-      cuts.push(Solid.cylinder(t + 2, openingMm / 2, 64).translate(0, 0, -1));
-      plug = floorPlug({
-        openingDiameterMm: openingMm,
-        seatThicknessMm: t,
-        clearanceMm: p.printClearanceMm,
-        drainageHoles: p.drainageHoles,
-      });
-    } else {
-      for (let i = 0; i < p.drainageHoles; i++) {
-        const angle = (2 * Math.PI * (i + 0.5)) / p.drainageHoles;
-        const ring = openingMm / 2 - 12;
-        cuts.push(Solid.cylinder(t + 2, 3, 16).translate(ring * Math.cos(angle), ring * Math.sin(angle), -1));
-      }
-    }
+    const floor = floorOpening({
+      openingDiameterMm: openingMm,
+      floorThicknessMm: t,
+      floorBottomZMm: 0,
+      cleaningAccess: p.cleaningAccess,
+      clearanceMm: p.printClearanceMm,
+      drainageHoles: p.drainageHoles,
+    });
+    cuts.push(...floor.cuts);
+    const plug = floor.plug;
 
     // The back: a tree of the given radius touching the chamber wall's outside, or a flat cut there.
     const backY = Ri + t;

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
 import { eggCeilingZ, eggProfile } from './lib/eggProfile';
-import { floorPlug } from './lib/floorPlug';
+import { floorOpening } from './lib/floorOpening';
 import { Solid } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 import { toGeom3 } from './lib/toGeom3';
@@ -30,10 +30,7 @@ const parameters = z
       help: 'A tab with a hole on top to hang the pod by wire; hang it out of reach of predators and follow local guidance on height.',
     }),
     perch: commonParameters.perch(),
-    cleaningAccess: z.boolean().default(true).meta({
-      label: 'Cleaning access', unit: '',
-      help: 'A round floor plug, printed as a separate part, so old nests can be removed after the season.',
-    }),
+    cleaningAccess: commonParameters.cleaningAccess(),
     printClearanceMm: commonParameters.printClearanceMm(),
   })
   .strict();
@@ -102,22 +99,16 @@ export const roundPod: Template<typeof parameters> = {
     }
 
     const openingMm = floorRadius * 2 - 30;
-    let plug: Solid | undefined;
-    if (p.cleaningAccess) {
-      cuts.push(Solid.cylinder(t + 2, openingMm / 2, 64).translate(0, 0, cutZ - 1));
-      plug = floorPlug({
-        openingDiameterMm: openingMm,
-        seatThicknessMm: t,
-        clearanceMm: p.printClearanceMm,
-        drainageHoles: p.drainageHoles,
-      });
-    } else {
-      for (let i = 0; i < p.drainageHoles; i++) {
-        const angle = (2 * Math.PI * (i + 0.5)) / p.drainageHoles;
-        const ring = openingMm / 2 - 12;
-        cuts.push(Solid.cylinder(t + 2, 3, 16).translate(ring * Math.cos(angle), ring * Math.sin(angle), cutZ - 1));
-      }
-    }
+    const floor = floorOpening({
+      openingDiameterMm: openingMm,
+      floorThicknessMm: t,
+      floorBottomZMm: cutZ,
+      cleaningAccess: p.cleaningAccess,
+      clearanceMm: p.printClearanceMm,
+      drainageHoles: p.drainageHoles,
+    });
+    cuts.push(...floor.cuts);
+    const plug = floor.plug;
 
     const body = outer.add(...additions).subtract(...cuts).translate(0, 0, -cutZ);
     const parts = [{ name: 'body', geometry: toGeom3(body) }];

@@ -59,6 +59,15 @@ export const commonParameters = {
       unit: '',
       help: 'A screw or wire hole to hang the box; mount it out of reach of predators and follow local guidance on height.',
     }),
+  /** Cleaning access through a removable floor plug (on by default); a template may word the help for its shape. */
+  cleaningAccess: (
+    help = 'A round floor plug, printed as a separate part, so old nests can be removed after the season.',
+  ) =>
+    z.boolean().default(true).meta({
+      label: 'Cleaning access',
+      unit: '',
+      help,
+    }),
   /** Print clearance between a removable part and its seat. */
   printClearanceMm: () =>
     z.number().min(0.1).max(1).default(0.3).meta({

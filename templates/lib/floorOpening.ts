@@ -1,0 +1,56 @@
+import { floorPlug } from './floorPlug';
+import { Solid } from './Solid';
+
+/** Where the floor is and what goes through it. */
+export interface FloorOpeningOptions {
+  /** Diameter of the round cleaning opening (also sets the drainage ring, 12 mm inside its edge). */
+  openingDiameterMm: number;
+  /** Thickness of the floor the opening or the drainage holes pass through. */
+  floorThicknessMm: number;
+  /** Height of the floor's underside in the caller's coordinates. */
+  floorBottomZMm: number;
+  /** A removable floor plug (true) or drainage holes through a solid floor (false). */
+  cleaningAccess: boolean;
+  /** Gap per side between plug and opening. */
+  clearanceMm: number;
+  /** Vertical 6 mm drainage holes on a ring (in the plug, or in the floor when there is no plug). */
+  drainageHoles: number;
+}
+
+/** The cuts a floor needs and the plug that fills its opening, if any. */
+export interface FloorOpening {
+  /** Solids to subtract from the body. */
+  cuts: Solid[];
+  /** The cleaning plug, centred on the origin and resting on z = 0; undefined without cleaning access. */
+  plug: Solid | undefined;
+}
+
+/**
+ * Cleaning opening with its floor plug, or, without cleaning access, a ring of vertical drainage holes through the
+ * solid floor. Both are centred on the z axis.
+ * @param options - opening size, floor position and thickness, and what to cut
+ */
+export function floorOpening(options: FloorOpeningOptions): FloorOpening {
+  const { openingDiameterMm, floorThicknessMm, floorBottomZMm, drainageHoles } = options;
+  if (options.cleaningAccess) {
+    return {
+      cuts: [Solid.cylinder(floorThicknessMm + 2, openingDiameterMm / 2, 64).translate(0, 0, floorBottomZMm - 1)],
+      plug: floorPlug({
+        openingDiameterMm,
+        seatThicknessMm: floorThicknessMm,
+        clearanceMm: options.clearanceMm,
+        drainageHoles,
+      }),
+    };
+  }
+  const ring = openingDiameterMm / 2 - 12;
+  const cuts = Array.from({ length: drainageHoles }, (_, i) => {
+    const angle = (2 * Math.PI * (i + 0.5)) / drainageHoles;
+    return Solid.cylinder(floorThicknessMm + 2, 3, 16).translate(
+      ring * Math.cos(angle),
+      ring * Math.sin(angle),
+      floorBottomZMm - 1,
+    );
+  });
+  return { cuts, plug: undefined };
+}
