@@ -4,11 +4,11 @@
  */
 import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
-import { parseArgs } from 'node:util';
 import { MeshFormatError } from '../../../shared/mesh/MeshFormatError';
 import { parseMeshFile } from '../../../shared/mesh/parseMeshFile';
 import { analyzeMesh } from '../../../shared/analysis/analyzeMesh';
 import { AnalysisRequestSchema, type AnalysisReport } from '../../../shared/schemas/analysis';
+import { EXIT_CODE, parseCliArgs } from '../parseCliArgs';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../../shared/production/defaults';
 
 /** One line for the command list. */
@@ -25,9 +25,8 @@ const USAGE =
  * @returns 0 on success, 1 for a file that is not a readable mesh, 2 for bad arguments
  */
 export async function run(argv: string[]): Promise<number> {
-  let values;
-  try {
-    ({ values } = parseArgs({
+  const values = parseCliArgs(
+    {
       args: argv,
       options: {
         in: { type: 'string' },
@@ -38,14 +37,13 @@ export async function run(argv: string[]): Promise<number> {
         overhang: { type: 'string' },
         json: { type: 'boolean', default: false },
       },
-    }));
-  } catch (err) {
-    process.stderr.write(`${(err as Error).message}\n${USAGE}`);
-    return 2;
-  }
+    },
+    USAGE,
+  );
+  if (!values) return EXIT_CODE.usage;
   if (!values.in) {
     process.stderr.write(USAGE);
-    return 2;
+    return EXIT_CODE.usage;
   }
   const request = AnalysisRequestSchema.safeParse({
     up: values.up,
@@ -57,7 +55,7 @@ export async function run(argv: string[]): Promise<number> {
   if (!request.success) {
     const issue = request.error.issues[0];
     process.stderr.write(`--${String(issue.path[0] ?? '')}: ${issue.message}\n${USAGE}`);
-    return 2;
+    return EXIT_CODE.usage;
   }
   const printer = request.data.printerId ? DEFAULT_PRINTERS.find((p) => p.id === request.data.printerId) : DEFAULT_PRINTERS[0];
   const material = request.data.materialId
@@ -65,7 +63,7 @@ export async function run(argv: string[]): Promise<number> {
     : DEFAULT_MATERIALS[0];
   if (!printer || !material) {
     process.stderr.write(`Unknown ${printer ? 'material' : 'printer'}.\n${USAGE}`);
-    return 2;
+    return EXIT_CODE.usage;
   }
   const bytes = new Uint8Array(await readFile(values.in));
   let mesh;
@@ -74,7 +72,7 @@ export async function run(argv: string[]): Promise<number> {
   } catch (err) {
     if (err instanceof MeshFormatError) {
       process.stderr.write(`${basename(values.in)}: ${err.message} (${err.reason})\n`);
-      return 1;
+      return EXIT_CODE.refused;
     }
     throw err;
   }
@@ -89,7 +87,7 @@ export async function run(argv: string[]): Promise<number> {
     overhangDeg: request.data.overhangDeg,
   });
   process.stdout.write(values.json ? `${JSON.stringify(report, null, 2)}\n` : formatReport(report, basename(values.in)));
-  return 0;
+  return EXIT_CODE.ok;
 }
 
 const mm = (v: number, digits = 1): string => `${v.toFixed(digits)} mm`;

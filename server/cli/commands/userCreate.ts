@@ -4,13 +4,13 @@
  * and printed once.
  */
 import { randomBytes } from 'node:crypto';
-import { parseArgs } from 'node:util';
 import { PersonCreateSchema, ROLES } from '../../../shared/schemas/auth';
 import { migrateDatabase, openDatabase } from '../../db/client';
 import { seedIfNew } from '../../db/seed';
 import { loadEnv } from '../../env';
 import { HttpError } from '../../http/HttpError';
 import { createPerson } from '../../services/people';
+import { EXIT_CODE, parseCliArgs } from '../parseCliArgs';
 
 /** One line for `npm run cli -- --help`. */
 export const summary = 'Add a person: --email E --role R [--role R2] [--name N] [--password P]';
@@ -27,9 +27,8 @@ The database is the one in DATA_DIR (default ./data).`;
  * @returns exit code: 0 created, 1 refused (e-mail in use), 2 bad arguments
  */
 export async function run(argv: string[]): Promise<number> {
-  let values;
-  try {
-    ({ values } = parseArgs({
+  const values = parseCliArgs(
+    {
       args: argv,
       options: {
         email: { type: 'string' },
@@ -39,14 +38,13 @@ export async function run(argv: string[]): Promise<number> {
         help: { type: 'boolean', short: 'h' },
       },
       strict: true,
-    }));
-  } catch (err) {
-    process.stderr.write(`${(err as Error).message}\n\n${USAGE}\n`);
-    return 2;
-  }
+    },
+    `\n${USAGE}\n`,
+  );
+  if (!values) return EXIT_CODE.usage;
   if (values.help) {
     process.stdout.write(`${USAGE}\n`);
-    return 0;
+    return EXIT_CODE.ok;
   }
   const generated = values.password === undefined;
   const password = values.password ?? randomBytes(12).toString('base64url');
@@ -59,7 +57,7 @@ export async function run(argv: string[]): Promise<number> {
   if (!parsed.success) {
     const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.') || 'input'}: ${issue.message}`);
     process.stderr.write(`Cannot create the person:\n${lines.join('\n')}\n\n${USAGE}\n`);
-    return 2;
+    return EXIT_CODE.usage;
   }
 
   const env = loadEnv();
@@ -70,11 +68,11 @@ export async function run(argv: string[]): Promise<number> {
     const person = await createPerson(db, parsed.data, null);
     process.stdout.write(`Created ${person.name} <${person.email}> with roles ${person.roles.join(', ')}.\n`);
     if (generated) process.stdout.write(`Password (shown once, store it safely): ${password}\n`);
-    return 0;
+    return EXIT_CODE.ok;
   } catch (err) {
     if (err instanceof HttpError) {
       process.stderr.write(`${err.message}\n`);
-      return 1;
+      return EXIT_CODE.refused;
     }
     throw err;
   } finally {
