@@ -4,33 +4,15 @@
  */
 import ExcelJS from 'exceljs';
 import { parse } from 'csv-parse/sync';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { PRICE_LIST_COLUMNS } from '../server/services/priceList';
-import { ensureSalesFixture, type SalesFixture } from './salesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { binaryBody, useSalesTestApp } from './setup/salesTestApp';
 
-let t: TestApp;
-let fixture: SalesFixture;
-
-beforeAll(async () => {
-  t = await makeTestApp();
-  fixture = await ensureSalesFixture(t.ctx.db);
-});
-afterAll(async () => {
-  await t?.close();
-});
-
-/** Reads a binary body into a Buffer. */
-function binary(res: unknown, done: (err: Error | null, body: Buffer) => void): void {
-  const stream = res as NodeJS.ReadableStream;
-  const chunks: Buffer[] = [];
-  stream.on('data', (c: Buffer) => chunks.push(c));
-  stream.on('end', () => done(null, Buffer.concat(chunks)));
-}
+const suite = useSalesTestApp();
 
 describe('price list', () => {
   it('CSV: a header, one row per published variant, quoted fields intact, prices summing to the catalogue', async () => {
-    const sales = await t.agent('sales');
+    const sales = await suite.t.agent('sales');
     const res = await sales.get('/api/price-list.csv');
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
@@ -49,7 +31,7 @@ describe('price list', () => {
     expect(records.map((r) => r.SKU).sort()).toEqual(catalogue.map((v) => v.sku).sort());
     // The family name holds a comma and double quotes: the CSV must quote and escape it.
     expect(res.text).toContain('"Hedgerow Gable, ""test"" edition"');
-    for (const sku of fixture.variants.map((v) => v.sku)) {
+    for (const sku of suite.fixture.variants.map((v) => v.sku)) {
       expect(records.find((r) => r.SKU === sku)?.Family).toBe('Hedgerow Gable, "test" edition');
     }
     for (const record of records) {
@@ -64,13 +46,13 @@ describe('price list', () => {
       expect(Number(record['Entry hole (in)'])).toBeCloseTo(Number(record['Entry hole (mm)']) / 25.4, 2);
       expect(Number(record['Mass (g)'])).toBe(Math.round(catalogueMass.get(record.SKU) ?? NaN));
     }
-    const hole28 = records.find((r) => r.SKU === fixture.variants[0].sku);
+    const hole28 = records.find((r) => r.SKU === suite.fixture.variants[0].sku);
     expect(Number(hole28?.['Entry hole (mm)'])).toBe(28);
   });
 
   it('XLSX: the same rows and sum, read back with exceljs', async () => {
-    const sales = await t.agent('sales');
-    const res = await sales.get('/api/price-list.xlsx').buffer(true).parse(binary);
+    const sales = await suite.t.agent('sales');
+    const res = await sales.get('/api/price-list.xlsx').buffer(true).parse(binaryBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     const workbook = new ExcelJS.Workbook();
@@ -88,7 +70,7 @@ describe('price list', () => {
     }
     const catalogue = (await sales.get('/api/catalogue')).body.variants as Array<{ sku: string; priceCents: number }>;
     expect(skus.sort()).toEqual(catalogue.map((v) => v.sku).sort());
-    for (const sku of fixture.variants.map((v) => v.sku)) expect(skus).toContain(sku);
+    for (const sku of suite.fixture.variants.map((v) => v.sku)) expect(skus).toContain(sku);
     expect(sum).toBeCloseTo(catalogue.reduce((s, v) => s + v.priceCents / 100, 0), 6);
   });
 });

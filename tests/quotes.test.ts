@@ -6,24 +6,15 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { QuoteListResponseSchema, QuoteSchema } from '../shared/schemas/quote';
 import type { SalesSettings } from '../shared/schemas/sales';
 import { computeQuote } from '../server/services/quote';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
-import { ensureSalesFixture, FIXTURE_SKUS, type SalesFixture } from './salesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { FIXTURE_SKUS } from './salesFixtures';
+import { useSalesTestApp } from './setup/salesTestApp';
 
-let t: TestApp;
-let fixture: SalesFixture;
-
-beforeAll(async () => {
-  t = await makeTestApp();
-  fixture = await ensureSalesFixture(t.ctx.db);
-});
-afterAll(async () => {
-  await t?.close();
-});
+const suite = useSalesTestApp();
 
 /** Text of a PDF by Debian's pdftotext. */
 function pdfText(bytes: Buffer): string {
@@ -44,7 +35,7 @@ describe('computeQuote', () => {
   };
 
   it('16 units of a 60-minute print on 2 printers, 4 a plate: 4 plates, 2 per printer, 8 h, lead time 1 + 1 days', () => {
-    const variant = structuredClone(fixture.variants[0]);
+    const variant = structuredClone(suite.fixture.variants[0]);
     variant.report.printTimeMin = 60;
     variant.priceCents = 5000;
     variant.cost.costCents = 2600;
@@ -69,7 +60,7 @@ describe('computeQuote', () => {
   });
 
   it('replaces failed prints: at 20 % failures 16 units need 5 plates of 4 (3.2 good each)', () => {
-    const variant = structuredClone(fixture.variants[0]);
+    const variant = structuredClone(suite.fixture.variants[0]);
     variant.report.printTimeMin = 60;
     const quote = computeQuote(
       variant,
@@ -83,7 +74,7 @@ describe('computeQuote', () => {
   });
 
   it('takes copies per plate from the variant plate fit when the setting is empty', () => {
-    const variant = structuredClone(fixture.variants[0]);
+    const variant = structuredClone(suite.fixture.variants[0]);
     const quote = computeQuote(
       variant,
       { sku: variant.sku, quantity: 5, deliveryDate: '2027-12-01', customerName: 'Wren & Co' },
@@ -98,7 +89,7 @@ describe('computeQuote', () => {
 
 describe('quotes API', () => {
   it('creates a quote, lists it, reads it and renders it as a PDF', async () => {
-    const sales = await t.agent('sales');
+    const sales = await suite.t.agent('sales');
     const created = await sales
       .post('/api/quotes')
       .send({ sku: FIXTURE_SKUS[0], quantity: 120, deliveryDate: '2099-06-30', customerName: '  Marsh Lane Garden Centre  ' });
@@ -109,7 +100,7 @@ describe('quotes API', () => {
     expect(quote.feasible).toBe(true);
     expect(quote.discountPct).toBe(10); // default break: 100+ units, 10 %
     expect(quote.totalPriceCents).toBe(quote.unitPriceCents * 120);
-    expect(quote.unitCostCents).toBe(fixture.variants[0].cost.costCents);
+    expect(quote.unitCostCents).toBe(suite.fixture.variants[0].cost.costCents);
     expect(quote.farm.expectedGoodUnits).toBeGreaterThanOrEqual(120);
     expect(quote.createdBy.name).toBe('Ada Quill');
 
@@ -136,7 +127,7 @@ describe('quotes API', () => {
   });
 
   it('says when the delivery date cannot be met', async () => {
-    const sales = await t.agent('sales');
+    const sales = await suite.t.agent('sales');
     const res = await sales
       .post('/api/quotes')
       .send({ sku: FIXTURE_SKUS[1], quantity: 5000, deliveryDate: '2020-01-01', customerName: 'Too Soon Ltd' });
@@ -146,7 +137,7 @@ describe('quotes API', () => {
   });
 
   it('rejects bad input naming the field, and unknown SKUs and ids', async () => {
-    const sales = await t.agent('sales');
+    const sales = await suite.t.agent('sales');
     const zero = await sales.post('/api/quotes').send({ sku: FIXTURE_SKUS[0], quantity: 0, deliveryDate: '2099-01-01', customerName: 'X' });
     expect(zero.status).toBe(400);
     expect(zero.body.error.message).toMatch(/^quantity:/);

@@ -7,32 +7,16 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { orthographicDrawing } from '../shared/drawing/orthographicDrawing';
 import { woffToSfnt } from '../server/pdf/woffToSfnt';
 import { productMesh } from '../server/services/specSheetMesh';
-import { ensureSalesFixture, FIXTURE_SKUS, type SalesFixture } from './salesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { FIXTURE_SKUS } from './salesFixtures';
+import { binaryBody, useSalesTestApp } from './setup/salesTestApp';
 
-let t: TestApp;
-let fixture: SalesFixture;
-
-beforeAll(async () => {
-  t = await makeTestApp();
-  fixture = await ensureSalesFixture(t.ctx.db);
-});
-afterAll(async () => {
-  await t?.close();
-});
-
-function binary(res: unknown, done: (err: Error | null, body: Buffer) => void): void {
-  const stream = res as NodeJS.ReadableStream;
-  const chunks: Buffer[] = [];
-  stream.on('data', (c: Buffer) => chunks.push(c));
-  stream.on('end', () => done(null, Buffer.concat(chunks)));
-}
+const suite = useSalesTestApp();
 
 /** Writes the PDF to a temporary file and returns its path. */
 function savePdf(bytes: Buffer): string {
@@ -50,8 +34,8 @@ describe('variant spec sheet', () => {
   let text: string;
 
   beforeAll(async () => {
-    const sales = await t.agent('sales');
-    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[0]}/spec-sheet.pdf`).buffer(true).parse(binary);
+    const sales = await suite.t.agent('sales');
+    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[0]}/spec-sheet.pdf`).buffer(true).parse(binaryBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toContain(`spec-sheet-${FIXTURE_SKUS[0]}.pdf`);
@@ -66,10 +50,10 @@ describe('variant spec sheet', () => {
   });
 
   it('holds the hole height, material and colour, mass, back fit and price', () => {
-    const facts = fixture.variants[0].report.facts;
+    const facts = suite.fixture.variants[0].report.facts;
     expect(text).toContain(`${Math.round(facts.holeAboveFloorMm)} mm (${(facts.holeAboveFloorMm / 25.4).toFixed(2)} in)`);
     expect(text).toContain('PLA, Sand');
-    expect(text).toContain(`${Math.round(fixture.variants[0].report.massG)} g`);
+    expect(text).toContain(`${Math.round(suite.fixture.variants[0].report.massG)} g`);
     expect(text).toMatch(/Flat back/);
     expect(text).toMatch(/€\d+\.\d{2} per unit/);
   });
@@ -96,7 +80,7 @@ describe('variant spec sheet', () => {
   });
 
   it('gives overall dimensions equal to the drawing of the same parameters', async () => {
-    const { mesh } = await productMesh('gable-box', fixture.variants[0].params);
+    const { mesh } = await productMesh('gable-box', suite.fixture.variants[0].params);
     const o = orthographicDrawing(mesh).overallMm;
     const triple = `${o.widthMm.toFixed(0)} × ${o.depthMm.toFixed(0)} × ${o.heightMm.toFixed(0)} mm`;
     expect(text).toContain(triple);
@@ -121,25 +105,25 @@ describe('variant spec sheet', () => {
 
 describe('family spec sheet and errors', () => {
   it('puts every published variant of the family in one PDF, two pages each', async () => {
-    const manager = await t.agent('catalogue_manager');
-    const res = await manager.get(`/api/families/${fixture.familyId}/spec-sheet.pdf`).buffer(true).parse(binary);
+    const manager = await suite.t.agent('catalogue_manager');
+    const res = await manager.get(`/api/families/${suite.fixture.familyId}/spec-sheet.pdf`).buffer(true).parse(binaryBody);
     expect(res.status).toBe(200);
     const file = savePdf(res.body as Buffer);
-    expect(run('pdfinfo', [file])).toMatch(new RegExp(`Pages:\\s+${2 * fixture.variants.length}\\b`));
+    expect(run('pdfinfo', [file])).toMatch(new RegExp(`Pages:\\s+${2 * suite.fixture.variants.length}\\b`));
     const text = flat(run('pdftotext', ['-raw', file, '-']));
     for (const sku of FIXTURE_SKUS) expect(text).toContain(sku);
     expect(text).toContain('32 mm (1.26 in)'); // 32 / 25.4 = 1.26
   }, 60_000);
 
   it('shows the family\'s sample-print photo instead of the rendered view once one is uploaded', async () => {
-    const designer = await t.agent('designer');
+    const designer = await suite.t.agent('designer');
     // a small PNG "photo" made with sharp
     const sharp = (await import('sharp')).default;
     const png = await sharp({ create: { width: 240, height: 180, channels: 3, background: '#8a6649' } }).png().toBuffer();
-    const uploaded = await designer.post(`/api/families/${fixture.familyId}/photos`).attach('photo', png, 'sample.png');
+    const uploaded = await designer.post(`/api/families/${suite.fixture.familyId}/photos`).attach('photo', png, 'sample.png');
     expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
-    const sales = await t.agent('sales');
-    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[1]}/spec-sheet.pdf`).buffer(true).parse(binary);
+    const sales = await suite.t.agent('sales');
+    const res = await sales.get(`/api/variants/${FIXTURE_SKUS[1]}/spec-sheet.pdf`).buffer(true).parse(binaryBody);
     expect(res.status).toBe(200);
     const text = flat(run('pdftotext', ['-raw', savePdf(res.body as Buffer), '-']));
     expect(text).toContain('Photo of the sample print');
@@ -147,7 +131,7 @@ describe('family spec sheet and errors', () => {
   }, 60_000);
 
   it('answers 404 for an unknown SKU or family', async () => {
-    const sales = await t.agent('sales');
+    const sales = await suite.t.agent('sales');
     expect((await sales.get('/api/variants/FH-NOPE-1/spec-sheet.pdf')).status).toBe(404);
     expect((await sales.get('/api/families/no-such-family/spec-sheet.pdf')).status).toBe(404);
   });
