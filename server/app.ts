@@ -21,6 +21,7 @@ import { specSheetsRouter } from './routes/specSheets';
 import { priceListRouter } from './routes/priceList';
 import { quotesRouter } from './routes/quotes';
 import { settingsRouter } from './routes/settings';
+import { productionRouter } from './routes/production';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -67,6 +68,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api', priceListRouter(ctx));
   app.use('/api/quotes', quotesRouter(ctx));
   app.use('/api/settings', settingsRouter(ctx));
+  app.use('/api/production', productionRouter(ctx));
 
   // Anything else under /api is a 404 in the error shape (keep this after every API router).
   app.use('/api', (req) => {

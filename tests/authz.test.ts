@@ -225,6 +225,8 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/quotes/:id', path: salesQuotePath, allowed: ['sales', 'catalogue_manager'] },
   { method: 'get', route: '/api/settings/sales', allowed: ['sales', 'catalogue_manager', 'admin'] },
   { method: 'put', route: '/api/settings/sales', allowed: ['admin'], body: DEFAULT_SALES_SETTINGS },
+  // Production catalogue: the design editor's printers, materials, settings and rates (anyone signed in).
+  { method: 'get', route: '/api/production', allowed: 'signed-in' },
 ];
 
 /** A new preset of the demo designer (one per call, so a delete in one case does not affect the next). */

@@ -185,3 +185,16 @@ export const FarmCapacitySchema = z.object({
 });
 /** Farm capacity result (see {@link FarmCapacitySchema}). */
 export type FarmCapacity = z.infer<typeof FarmCapacitySchema>;
+
+/**
+ * What the studio produces with, as `GET /api/production` answers: the printer profiles and materials from the
+ * database, and the print settings and cost rates in force.
+ */
+export const ProductionCatalogueSchema = z.object({
+  printers: z.array(PrinterProfileSchema),
+  materials: z.array(MaterialSchema),
+  settings: PrintSettingsSchema,
+  rates: CostRatesSchema,
+});
+/** The production catalogue (see {@link ProductionCatalogueSchema}). */
+export type ProductionCatalogue = z.infer<typeof ProductionCatalogueSchema>;
