@@ -1,5 +1,4 @@
-import { ApiErrorSchema } from '../../shared/schemas/error';
-import { ApiError } from './ApiError';
+import { fetchFile } from './fetchFile';
 
 /** File formats the export endpoint writes. */
 export type ExportFormat = 'stl' | '3mf';
@@ -21,30 +20,14 @@ export async function exportFromServer(body: {
   params: Record<string, unknown>;
   format: ExportFormat;
 }): Promise<ServerExport> {
-  let res: Response;
-  try {
-    res = await fetch('/api/exports', {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify(body),
-      credentials: 'same-origin',
-    });
-  } catch {
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
-  }
-  if (!res.ok) {
-    const parsed = ApiErrorSchema.safeParse(await res.json().catch(() => null));
-    if (parsed.success) {
-      const { code, message, details } = parsed.data.error;
-      throw new ApiError(res.status, code, message, details);
-    }
-    throw new ApiError(res.status, 'http_error', `The server answered HTTP ${res.status}.`);
-  }
-  const disposition = res.headers.get('Content-Disposition') ?? '';
-  const named = /filename="?([^";]+)"?/.exec(disposition)?.[1];
+  const file = await fetchFile('/api/exports', {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify(body),
+  });
   return {
-    blob: await res.blob(),
-    sha256: res.headers.get('X-Mesh-Sha256'),
-    fileName: named ?? `${body.templateId}.${body.format}`,
+    blob: file.blob,
+    sha256: file.headers.get('X-Mesh-Sha256'),
+    fileName: file.fileName ?? `${body.templateId}.${body.format}`,
   };
 }

@@ -1,8 +1,7 @@
-import { ApiErrorSchema } from '../../shared/schemas/error';
 import { SalesSettingsSchema } from '../../shared/schemas/sales';
 import { z } from 'zod';
 import { api } from './client';
-import { ApiError } from './ApiError';
+import { fetchFile } from './fetchFile';
 
 /** A generated document fetched from the server, ready to offer as a download. */
 export interface SalesDocument {
@@ -27,23 +26,8 @@ export const salesDocumentPaths = {
  * @param path - path under `/api` (see {@link salesDocumentPaths})
  */
 export async function fetchSalesDocument(path: string): Promise<SalesDocument> {
-  let res: Response;
-  try {
-    res = await fetch(`/api${path}`, { credentials: 'same-origin' });
-  } catch {
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
-  }
-  if (!res.ok) {
-    const parsed = ApiErrorSchema.safeParse(await res.json().catch(() => null));
-    if (parsed.success) {
-      const { code, message, details } = parsed.data.error;
-      throw new ApiError(res.status, code, message, details);
-    }
-    throw new ApiError(res.status, 'http_error', `The server answered HTTP ${res.status}.`);
-  }
-  const disposition = res.headers.get('Content-Disposition') ?? '';
-  const named = /filename="?([^";]+)"?/.exec(disposition)?.[1];
-  return { blob: await res.blob(), fileName: named ?? path.split('/').pop() ?? 'document' };
+  const file = await fetchFile(`/api${path}`);
+  return { blob: file.blob, fileName: file.fileName ?? path.split('/').pop() ?? 'document' };
 }
 
 /** Answer of `GET /api/settings/sales`. */
