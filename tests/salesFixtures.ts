@@ -7,6 +7,7 @@ import { buildPlateFit } from '../shared/analysis/buildPlateFit';
 import { assessBirdFit } from '../shared/birdfit/assessBirdFit';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { estimateProduction } from '../shared/production/estimateProduction';
+import { productionInputFromGeometry } from '../shared/production/productionInputFromGeometry';
 import type { AxisValue, CatalogueVariant } from '../shared/schemas/family';
 import { generate } from '../templates/index';
 import type { Db } from '../server/db/client';
@@ -35,16 +36,7 @@ export async function catalogueVariantFixture(spec: FixtureSpec): Promise<Catalo
   const { report } = analyzeGeometry(result.mesh, { up: '+z', supportMaxRays: 20_000, wallSamples: 500 });
   const size = report.bbox.sizeMm;
   const production = estimateProduction(
-    {
-      volumeMm3: report.volumeMm3,
-      surfaceAreaMm2: report.surfaceAreaMm2,
-      heightMm: size[2],
-      supportVolumeMm3: report.supportVolumeMm3,
-      bboxSizeMm: size,
-      footprintMm2: report.footprintMm2,
-      upFacingAreaMm2: report.upFacingAreaMm2,
-      downFacingAreaMm2: report.downFacingAreaMm2,
-    },
+    productionInputFromGeometry(report),
     printer,
     DEFAULT_MATERIALS[0],
     DEFAULT_SETTINGS,

@@ -2,6 +2,7 @@ import type { GenerateResult } from '../../templates/generate';
 import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
 import { fitParts } from '../../shared/analysis/fitParts';
 import { estimateProduction } from '../../shared/production/estimateProduction';
+import { productionInputFromGeometry } from '../../shared/production/productionInputFromGeometry';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
 import type { Region } from '../../shared/schemas/birdfit';
@@ -38,16 +39,7 @@ export function computeDesignFigures(
   // Parts (box body, floor plug) are laid side by side in the mesh but print on their own or packed: fit each part.
   const fit = fitParts(result.mesh, result.partTriangles, [plate.x, plate.y, plate.z]);
   const production = estimateProduction(
-    {
-      volumeMm3: report.volumeMm3,
-      surfaceAreaMm2: report.surfaceAreaMm2,
-      heightMm: fit.heightMm,
-      supportVolumeMm3: report.supportVolumeMm3,
-      bboxSizeMm: size,
-      footprintMm2: report.footprintMm2,
-      upFacingAreaMm2: report.upFacingAreaMm2,
-      downFacingAreaMm2: report.downFacingAreaMm2,
-    },
+    productionInputFromGeometry(report, fit.heightMm),
     printer,
     DEFAULT_MATERIALS[0],
     DEFAULT_SETTINGS,
