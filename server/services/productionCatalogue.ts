@@ -5,8 +5,9 @@ import type { Queryable } from '../db/client';
 import { loadMaterials, loadPrinters } from './familyProduction';
 
 /**
- * Every printer profile and material (rows checked by the shared schemas, sorted by name), with the default print
- * settings and cost rates: the database has no table for those yet, so the defaults of shared/production apply.
+ * Every printer profile (sorted by name) and material (cheapest first, so a picker's first entry is the everyday
+ * one), rows checked by the shared schemas, with the default print settings and cost rates: the database has no
+ * table for those yet, so the defaults of shared/production apply.
  * @param db - database
  * @returns the catalogue, parsed with {@link ProductionCatalogueSchema}
  */
@@ -15,7 +16,7 @@ export async function loadProductionCatalogue(db: Queryable): Promise<Production
   const [printers, materials] = await Promise.all([loadPrinters(db), loadMaterials(db)]);
   return ProductionCatalogueSchema.parse({
     printers: [...printers.values()].sort(byName),
-    materials: [...materials.values()].sort(byName),
+    materials: [...materials.values()].sort((a, b) => a.priceCentsPerKg - b.priceCentsPerKg || byName(a, b)),
     settings: DEFAULT_SETTINGS,
     rates: DEFAULT_RATES,
   });
