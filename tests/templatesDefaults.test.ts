@@ -105,7 +105,10 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
       const fit = fitParts(result.mesh, result.partTriangles, volume(printerId));
       expect(fit.fits, `${id} on ${printerId}: ${JSON.stringify(fit.partSizesMm)}`).toBe(true);
       expect(fit.copiesPerPlate).toBeGreaterThanOrEqual(1);
-      expect(computeDesignFigures(result, printerId).figures.fitsPrinter).toBe(true);
+      const printer = DEFAULT_PRINTERS.find((p) => p.id === printerId)!;
+      const material = DEFAULT_MATERIALS[0];
+      const choice = { printer, material, colour: material.colours[0], settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES };
+      expect(computeDesignFigures(result, choice).figures.fitsPrinter).toBe(true);
     }
   }, 60_000);
 

@@ -7,7 +7,17 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { effectScope } from 'vue';
 import { useGeometryWorker } from '../src/composables/useGeometryWorker';
-import type { GeometryRequest, GeometryResponse } from '../src/workers/geometryProtocol';
+import type { GeometryRequest, GeometryResponse, ProductionChoice } from '../src/workers/geometryProtocol';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
+
+/** A printer, material and colour as the editor sends them. */
+const CHOICE: ProductionChoice = {
+  printer: DEFAULT_PRINTERS[0],
+  material: DEFAULT_MATERIALS[0],
+  colour: DEFAULT_MATERIALS[0].colours[0],
+  settings: DEFAULT_SETTINGS,
+  rates: DEFAULT_RATES,
+};
 
 class StandInWorker {
   static created: StandInWorker[] = [];
@@ -74,6 +84,7 @@ function figuresAnswer(requestId: number, volumeMm3: number): GeometryResponse {
       supportVolumeMm3: 0,
       fitsPrinter: true,
       production: null,
+      outdoor: null,
       birdFit: null,
       unavailable: [],
     },
@@ -95,9 +106,9 @@ describe('useGeometryWorker', () => {
   it('waits for one mesh at a time, sends only the latest queued request and drops stale answers', () => {
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;
-    geometry.request('gable-box', { entryHoleDiameterMm: 28 }, 'workhorse-220');
-    geometry.request('gable-box', { entryHoleDiameterMm: 30 }, 'workhorse-220');
-    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 28 }, CHOICE);
+    geometry.request('gable-box', { entryHoleDiameterMm: 30 }, CHOICE);
+    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, CHOICE);
     const worker = StandInWorker.created[0];
     expect(StandInWorker.created).toHaveLength(1);
     expect(worker.options).toEqual({ type: 'module' });
@@ -132,11 +143,11 @@ describe('useGeometryWorker', () => {
   it('keeps the previous figures (marked not current) while a newer mesh waits for its analysis', () => {
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;
-    geometry.request('gable-box', {}, 'workhorse-220');
+    geometry.request('gable-box', {}, CHOICE);
     const worker = StandInWorker.created[0];
     worker.answer(meshAnswer(worker.posted[0].requestId, 'c'.repeat(64)));
     worker.answer(figuresAnswer(worker.posted[0].requestId, 100));
-    geometry.request('gable-box', { entryHoleDiameterMm: 40 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 40 }, CHOICE);
     worker.answer(meshAnswer(worker.posted[1].requestId, 'd'.repeat(64)));
     expect(geometry.result.value?.sha256).toBe('d'.repeat(64));
     expect(geometry.result.value?.figures?.volumeMm3).toBe(100);
@@ -151,7 +162,7 @@ describe('useGeometryWorker', () => {
   it('shows a parameter error with its field, and clears it on the next good build', () => {
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;
-    geometry.request('gable-box', { entryHoleDiameterMm: 99 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 99 }, CHOICE);
     const worker = StandInWorker.created[0];
     worker.answer({
       requestId: worker.posted[0].requestId,
@@ -163,7 +174,7 @@ describe('useGeometryWorker', () => {
     expect(geometry.errorField.value).toBe('entryHoleDiameterMm');
     expect(geometry.busy.value).toBe(false);
 
-    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, 'workhorse-220');
+    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, CHOICE);
     worker.answer(meshAnswer(worker.posted[1].requestId, 'e'.repeat(64)));
     expect(geometry.error.value).toBeNull();
     expect(geometry.errorField.value).toBeNull();
@@ -174,14 +185,14 @@ describe('useGeometryWorker', () => {
     vi.useFakeTimers();
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;
-    geometry.request('bark-trunk', {}, 'workhorse-220');
+    geometry.request('bark-trunk', {}, CHOICE);
     const first = StandInWorker.created[0];
     vi.advanceTimersByTime(31_000);
     expect(first.terminated).toBe(true);
     expect(geometry.error.value).toMatch(/took longer than 30 s/);
     expect(geometry.busy.value).toBe(false);
 
-    geometry.request('bark-trunk', { storeys: 1 }, 'workhorse-220');
+    geometry.request('bark-trunk', { storeys: 1 }, CHOICE);
     expect(StandInWorker.created).toHaveLength(2);
     expect(StandInWorker.created[1].posted).toHaveLength(1);
     scope.stop();

@@ -2,7 +2,7 @@ import { onScopeDispose, ref, shallowRef } from 'vue';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import type { Region } from '../../shared/schemas/birdfit';
-import type { DesignFigures, GeometryRequest, GeometryResponse } from '../workers/geometryProtocol';
+import type { DesignFigures, GeometryRequest, GeometryResponse, ProductionChoice } from '../workers/geometryProtocol';
 
 /** Longest the worker may stay silent on a request before it is restarted and the design shows an error. */
 const BUILD_TIME_LIMIT_MS = 30_000;
@@ -28,7 +28,7 @@ export interface GeometryResult {
  * Runs template builds in a Web Worker so the page never freezes. At most one request waits for its mesh at a time;
  * newer requests replace queued ones (latest request wins) and answers to older requests are dropped. The mesh
  * arrives first and the figures follow, so the preview updates before the analysis is done.
- * @returns the latest result, busy flag, error text and field, and `request(templateId, params, printerId, region)`
+ * @returns the latest result, busy flag, error text and field, and `request(templateId, params, production, region)`
  */
 export function useGeometryWorker() {
   /** The latest design (mesh arrays are transferred: keep them out of deep reactivity). */
@@ -136,12 +136,24 @@ export function useGeometryWorker() {
    * Asks for a new build; earlier requests that have not been answered are dropped.
    * @param templateId - the template to build
    * @param params - raw parameters in millimetres
-   * @param printerId - printer profile the figures are for
+   * @param production - printer, material, colour, settings and rates the figures are for
    * @param region - bird-fit region, both when omitted
    */
-  function request(templateId: string, params: Record<string, unknown>, printerId: string, region?: Region): void {
+  function request(
+    templateId: string,
+    params: Record<string, unknown>,
+    production: ProductionChoice,
+    region?: Region,
+  ): void {
     latestId = nextId++;
-    queued = { requestId: latestId, templateId, params: { ...params }, printerId, region };
+    // Plain copies: reactive proxies cannot be cloned into the worker.
+    queued = {
+      requestId: latestId,
+      templateId,
+      params: { ...params },
+      production: JSON.parse(JSON.stringify(production)) as ProductionChoice,
+      region,
+    };
     busy.value = true;
     pump();
   }

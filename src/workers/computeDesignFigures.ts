@@ -3,10 +3,10 @@ import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
 import { fitParts } from '../../shared/analysis/fitParts';
 import { estimateProduction } from '../../shared/production/estimateProduction';
 import { productionInputFromGeometry } from '../../shared/production/productionInputFromGeometry';
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import type { Region } from '../../shared/schemas/birdfit';
-import type { DesignFigures } from './geometryProtocol';
+import type { DesignFigures, ProductionChoice } from './geometryProtocol';
 
 /**
  * Sample budgets for live preview: smaller than the export report's defaults so a slider drag stays responsive;
@@ -16,19 +16,19 @@ const PREVIEW_SUPPORT_RAYS = 60_000;
 const PREVIEW_WALL_SAMPLES = 1_500;
 
 /**
- * The figures beside the model for one generated design on one printer, and the per-triangle overhang mask for the
- * viewer. The mesh is already in build orientation (+z up); engines that are not available are listed in
- * `unavailable` rather than faked.
+ * The figures beside the model for one generated design on one printer, in one material and colour, and the
+ * per-triangle overhang mask for the viewer. The mesh is already in build orientation (+z up); engines that are not
+ * available are listed in `unavailable` rather than faked.
  * @param result - the generated design (mesh in build orientation, facts)
- * @param printerId - printer profile id (falls back to the first default printer)
+ * @param choice - printer, material, colour, print settings and cost rates
  * @param region - bird-fit region, both when omitted
  */
 export function computeDesignFigures(
   result: GenerateResult,
-  printerId: string,
+  choice: ProductionChoice,
   region?: Region,
 ): { figures: DesignFigures; overhangMask: Uint8Array | null } {
-  const printer = DEFAULT_PRINTERS.find((item) => item.id === printerId) ?? DEFAULT_PRINTERS[0];
+  const { printer, material, colour, settings, rates } = choice;
   const plate = printer.buildVolumeMm;
   const { report, overhangMask } = analyzeGeometry(result.mesh, {
     up: '+z',
@@ -41,10 +41,27 @@ export function computeDesignFigures(
   const production = estimateProduction(
     productionInputFromGeometry(report, fit.heightMm),
     printer,
-    DEFAULT_MATERIALS[0],
-    DEFAULT_SETTINGS,
-    DEFAULT_RATES,
+    material,
+    settings,
+    rates,
   );
+  const unavailable: string[] = [];
+  let outdoor: DesignFigures['outdoor'] = null;
+  try {
+    // The side wall as printed: the template's wall thickness, the settings' perimeters and infill, the printer's line.
+    outdoor = assessOutdoor({
+      material,
+      colourId: colour.id,
+      wall: {
+        wallThicknessMm: result.facts.wallThicknessMm,
+        wallLoops: settings.wallLoops,
+        lineWidthMm: printer.lineWidthMm,
+        infillPct: settings.infillPct,
+      },
+    });
+  } catch (err) {
+    unavailable.push(`outdoor fitness (${err instanceof Error ? err.message : String(err)})`);
+  }
   return {
     figures: {
       volumeMm3: report.volumeMm3,
@@ -56,8 +73,9 @@ export function computeDesignFigures(
       supportVolumeMm3: report.supportVolumeMm3,
       fitsPrinter: fit.fits,
       production,
+      outdoor,
       birdFit: assessBirdFit(result.facts, { region }),
-      unavailable: [],
+      unavailable,
     },
     overhangMask,
   };

@@ -60,7 +60,7 @@ async function handle(request: GeometryRequest): Promise<void> {
   }
   try {
     const analysisStarted = performance.now();
-    const { figures, overhangMask } = computeDesignFigures(result, request.printerId, request.region);
+    const { figures, overhangMask } = computeDesignFigures(result, request.production, request.region);
     post(
       { requestId, ok: true, stage: 'figures', figures, overhangMask, analysisMs: performance.now() - analysisStarted },
       overhangMask ? [overhangMask.buffer] : [],

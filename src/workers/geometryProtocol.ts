@@ -1,7 +1,25 @@
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import type { BirdFitResult, Region } from '../../shared/schemas/birdfit';
-import type { ProductionEstimate } from '../../shared/schemas/production';
+import type {
+  CostRates,
+  Material,
+  MaterialColour,
+  PrinterProfile,
+  PrintSettings,
+  ProductionEstimate,
+} from '../../shared/schemas/production';
+import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
+
+/** What the design is to be made with: the chosen printer, material and colour, and the settings and rates. */
+export interface ProductionChoice {
+  printer: PrinterProfile;
+  material: Material;
+  /** One of `material.colours`. */
+  colour: MaterialColour;
+  settings: PrintSettings;
+  rates: CostRates;
+}
 
 /** A request to the geometry worker: build one template at one parameter set. */
 export interface GeometryRequest {
@@ -10,8 +28,8 @@ export interface GeometryRequest {
   templateId: string;
   /** Raw parameters in millimetres (validated by the worker with the template's parseParams). */
   params: Record<string, unknown>;
-  /** Printer profile id whose build volume and speeds the figures use. */
-  printerId: string;
+  /** Printer, material, colour, settings and rates the figures use (plain objects, copied to the worker). */
+  production: ProductionChoice;
   /** Bird-fit region; both regions when omitted. */
   region?: Region;
 }
@@ -28,6 +46,11 @@ export interface DesignFigures {
   fitsPrinter: boolean | null;
   /** Mass, print time, cost of one unit on the chosen printer, material and settings. */
   production: ProductionEstimate | null;
+  /**
+   * Outdoor fitness in the chosen material and colour: sunlit roof and wall against the heat-deflection temperature,
+   * the wall's thermal resistance beside a pine board, and the cautions.
+   */
+  outdoor: OutdoorAssessment | null;
   /** Species the design suits and the guidance warnings, each with its source. */
   birdFit: BirdFitResult | null;
   /** Engines that could not run, with the reason (shown as a note, never hidden). */
