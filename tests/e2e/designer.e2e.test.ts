@@ -269,3 +269,43 @@ describe('designer configurator', () => {
     await page.context().close();
   }, 180_000);
 });
+
+describe('outdoor fitness in the editor', () => {
+  it('a black PLA box fails the roof sun check with the heat caution; a white one passes', async () => {
+    const template = TEMPLATES[0];
+    const page = await e2e.newPage();
+    await e2e.signInAs(page, 'designer');
+    await page.goto(`/designs/new/${template.id}`);
+    await waitForBuild(page);
+    await page.getByTestId('material-select').click();
+    await page.locator('.n-base-select-option', { hasText: /^PLA$/ }).click();
+    expect(await figure(page, 'mass')).toMatch(/g$/);
+    expect(await page.getByTestId('figure-mass').locator('dt').textContent()).toContain('PLA');
+
+    /** Chooses a colour swatch and waits until the outdoor roof verdict is for that colour. */
+    async function chooseColour(colourId: string, verdict: 'ok' | 'fail'): Promise<void> {
+      await page.getByTestId(`colour-${colourId}`).click();
+      await page.waitForSelector(`[data-testid="outdoor-roof"][data-verdict="${verdict}"]`, { timeout: 60_000 });
+    }
+
+    // source: sol-air via trade-facts §2c, black absorptance 0.95 (§2d), PLA HDT 55 °C (§2e):
+    // 30 + 0.95·1000/17 − 3.9 ≈ 82 °C on the roof, well above 55 °C.
+    await chooseColour('black', 'fail');
+    expect(await page.getByTestId('outdoor-verdict').textContent()).toMatch(/fails/);
+    const cautions = (await page.getByTestId('outdoor-cautions').textContent()) ?? '';
+    expect(cautions).toMatch(/roof can reach about 8\d\.\d °C, above the PLA heat-deflection/);
+    expect(cautions).toMatch(/light colours/);
+    expect(cautions).toMatch(/local rules/);
+    await page.getByTestId('outdoors').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/outdoor-black.png` });
+
+    // source: white enamel 0.252 via trade-facts §2d: 30 + 0.25·1000/17 − 3.9 ≈ 41 °C, 14 K below 55 °C.
+    await chooseColour('white', 'ok');
+    expect(await page.getByTestId('outdoor-verdict').textContent()).toMatch(/passes/);
+    expect(await page.getByTestId('outdoor-cautions').textContent()).not.toMatch(/above the PLA heat-deflection/);
+    expect(await page.getByTestId('outdoor-insulation').textContent()).toMatch(/Pine board/);
+    await page.screenshot({ path: `${SHOTS}/outdoor-white.png` });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 180_000);
+});
