@@ -5,9 +5,8 @@
  */
 import { eq } from 'drizzle-orm';
 import type { Person } from '../../shared/schemas/auth';
-import type { FamilyCreate } from '../../shared/schemas/family';
+import type { FamilyCreate, GateWarningCode } from '../../shared/schemas/family';
 import { FamilyCreateSchema } from '../../shared/schemas/family';
-import type { BirdFitWarning } from '../../shared/schemas/birdfit';
 import { computeRevision } from '../jobs/computeRevision';
 import { computeVariantGeometry } from '../jobs/variantGeometry';
 import { EnvSchema } from '../env';
@@ -24,8 +23,8 @@ import { people } from './schema';
 import { DEMO_PEOPLE } from './seedDemo';
 import { registerSeedStep } from './seedRegistry';
 
-/** The studio's written answers to bird-fit warnings (our own wording for the demo). */
-const DEMO_ACKNOWLEDGEMENTS: Partial<Record<BirdFitWarning['code'], string>> = {
+/** The studio's written answers to bird-fit and outdoor warnings (our own wording for the demo). */
+const DEMO_ACKNOWLEDGEMENTS: Partial<Record<GateWarningCode, string>> = {
   'thin-walls':
     'Walls are 10 mm printed PLA with air-filled infill, thinner than 15 mm timber; every listing carries the heat caution and advises a shaded, north-to-east facing spot.',
   'hole-too-high-for-cavity':
@@ -33,6 +32,8 @@ const DEMO_ACKNOWLEDGEMENTS: Partial<Record<BirdFitWarning['code'], string>> = {
   'admits-starlings': 'Sold for regions where starlings are native only; the listing says so.',
   'admits-house-sparrows': 'The listing says which regions should avoid this entry size.',
   perch: 'The perch is left off in every variant of this family.',
+  'outdoor-heat':
+    'The darker colours can pass the PLA heat-deflection temperature in full sun: their listings say to hang the box in shade, facing north to east, and offer the light colours for sunny sites.',
 };
 
 const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 'draft' }> = [

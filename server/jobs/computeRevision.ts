@@ -64,6 +64,7 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
         material,
         supportBudgetMm3: revision.supportBudgetMm3,
         region: revision.region,
+        colourId: variant.attributes.colour,
       });
       update = { status: 'done', sha256: geometry.sha256, params: geometry.params, ...evaluation, error: null };
     } catch (err) {

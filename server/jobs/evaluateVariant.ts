@@ -2,9 +2,11 @@ import { fitPartSizes } from '../../shared/analysis/fitParts';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
 import { variantVerdict } from '../../shared/families/variantVerdict';
 import { estimateProduction } from '../../shared/production/estimateProduction';
+import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
 import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/family';
+import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import type { VariantGeometry } from './variantGeometry';
 
@@ -23,12 +25,16 @@ export interface EvaluationContext {
   material: Material;
   supportBudgetMm3: number;
   region: Region | null;
+  /** The variant's colour id (attributes.colour); null takes the material's first colour. */
+  colourId?: string | null;
 }
 
 /**
  * Turns measured geometry into a variant's report, cost, bird-fit warnings and verdict. Each body must fit the
  * printer on its own (a box and its floor plug may go on separate plates); copies per plate counts complete sets
  * when a set fits one plate, otherwise the copies of the part that fits fewest (shared/analysis/fitParts.ts).
+ * The outdoor assessment (sol-air roof and wall temperatures against the material's heat-deflection temperature)
+ * is stored in the report; a surface above that temperature makes the verdict `warn` with a reason.
  * @param geometry - what the worker measured
  * @param context - printer, material, support budget and region
  */
@@ -82,7 +88,9 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     facts: geometry.facts,
     warnings,
   };
-  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFit.warnings);
+  const outdoor = outdoorOf(geometry, context);
+  if (outdoor) report.outdoor = outdoor;
+  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFit.warnings, material.name);
   return {
     report,
     cost: {
@@ -95,4 +103,24 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     reasons,
     birdFitWarnings: birdFit.warnings,
   };
+}
+
+/**
+ * assessOutdoor for the variant's material and colour, with the template's wall thickness and the default print
+ * settings; undefined when the colour is not one of the material's colours.
+ */
+function outdoorOf(geometry: VariantGeometry, context: EvaluationContext): OutdoorAssessment | undefined {
+  const { material, printer } = context;
+  const colourId = context.colourId ?? material.colours[0]!.id;
+  if (!material.colours.some((colour) => colour.id === colourId)) return undefined;
+  return assessOutdoor({
+    material,
+    colourId,
+    wall: {
+      wallThicknessMm: geometry.facts.wallThicknessMm,
+      wallLoops: DEFAULT_SETTINGS.wallLoops,
+      lineWidthMm: printer.lineWidthMm,
+      infillPct: DEFAULT_SETTINGS.infillPct,
+    },
+  });
 }

@@ -1,12 +1,13 @@
-import type { BirdFitWarning } from '../schemas/birdfit';
 import type {
   Acknowledgement,
   ComputeState,
   FamilyGate,
   GateBlocker,
   GateWarning,
+  GateWarningCode,
   Variant,
 } from '../schemas/family';
+import { exceedsHeatDeflection, OUTDOOR_HEAT_SOURCE } from './outdoorHeat';
 import { needsAcknowledgement } from './variantVerdict';
 
 /** What the gate reads of a revision. */
@@ -22,7 +23,9 @@ export interface GateInput {
 
 /**
  * The family gate: a family may be submitted only when every variant is computed, closed and manifold, fits the
- * printer, stays within the support budget, and every bird-fit warning that needs it is acknowledged in writing.
+ * printer, stays within the support budget, and every bird-fit warning that needs it is acknowledged in writing, as
+ * is the `outdoor-heat` warning of variants whose roof or wall in full sun passes the material's heat-deflection
+ * temperature.
  * @param input - the revision's computation, variants and acknowledgements
  * @returns ok, the blockers (with the SKUs concerned) and the warnings with their acknowledgements
  */
@@ -62,7 +65,7 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
     done.filter((v) => v.report!.supportVolumeMm3 > input.supportBudgetMm3).map((v) => v.sku),
   );
 
-  const byCode = new Map<BirdFitWarning['code'], GateWarning>();
+  const byCode = new Map<GateWarningCode, GateWarning>();
   for (const variant of done) {
     for (const warning of variant.birdFitWarnings) {
       if (warning.severity === 'info') continue;
@@ -82,8 +85,8 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
       if (!entry.skus.includes(variant.sku)) entry.skus.push(variant.sku);
     }
   }
-  const warnings = [...byCode.values()];
-  const unacknowledged = warnings.filter((warning) => needsAcknowledgement(warning) && !warning.acknowledgement);
+  const birdFitWarnings = [...byCode.values()];
+  const unacknowledged = birdFitWarnings.filter((warning) => needsAcknowledgement(warning) && !warning.acknowledgement);
   if (unacknowledged.length > 0) {
     blockers.push({
       code: 'birdfit_unacknowledged',
@@ -91,5 +94,33 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
       skus: [...new Set(unacknowledged.flatMap((warning) => warning.skus))],
     });
   }
+
+  const hot = done.filter((variant) => exceedsHeatDeflection(variant.report!.outdoor));
+  const warnings = [...birdFitWarnings];
+  if (hot.length > 0) {
+    const hottest = hot.reduce((a, b) => (solAirMax(b) > solAirMax(a) ? b : a)).report!.outdoor!;
+    const heat: GateWarning = {
+      code: 'outdoor-heat',
+      severity: 'warning',
+      message: hottest.cautions[0] ?? 'a roof or wall in full sun passes the material\'s heat-deflection temperature',
+      source: OUTDOOR_HEAT_SOURCE,
+      skus: hot.map((variant) => variant.sku),
+      acknowledgement: input.acknowledgements.find((ack) => ack.code === 'outdoor-heat') ?? null,
+    };
+    warnings.push(heat);
+    if (!heat.acknowledgement) {
+      blockers.push({
+        code: 'outdoor_unacknowledged',
+        message:
+          'some colours get hotter in full sun than the material\'s heat-deflection temperature; acknowledge outdoor-heat in writing',
+        skus: heat.skus,
+      });
+    }
+  }
   return { ok: blockers.length === 0, blockers, warnings };
+}
+
+function solAirMax(variant: Pick<Variant, 'report'>): number {
+  const outdoor = variant.report?.outdoor;
+  return outdoor ? Math.max(outdoor.roof.solAirC, outdoor.wall.solAirC) : -Infinity;
 }

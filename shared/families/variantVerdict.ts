@@ -1,5 +1,6 @@
 import type { BirdFitWarning } from '../schemas/birdfit';
 import type { VariantReport, VariantVerdict } from '../schemas/family';
+import { outdoorHeatReasons } from './outdoorHeat';
 
 /** Bird-fit severities that must be acknowledged in writing before a family can be submitted. */
 export const ACK_REQUIRED_SEVERITIES: ReadonlyArray<BirdFitWarning['severity']> = ['warning'];
@@ -14,16 +15,20 @@ export function needsAcknowledgement(warning: Pick<BirdFitWarning, 'severity'>):
 
 /**
  * The verdict of one computed variant: `fail` when the mesh is open or non-manifold, does not fit the printer or
- * needs more support than the family's budget; `warn` when bird-fit warnings need acknowledging; otherwise `pass`.
+ * needs more support than the family's budget; `warn` when bird-fit warnings need acknowledging or a roof or wall in
+ * full sun passes the material's heat-deflection temperature (report.outdoor); otherwise `pass`.
  * @param report - the variant's print-readiness summary
  * @param supportBudgetMm3 - the family's support budget
  * @param warnings - the variant's bird-fit warnings
+ * @param materialName - the material's display name for the heat reasons (defaults to the material id)
  * @returns the verdict and every reason for it
  */
 export function variantVerdict(
-  report: Pick<VariantReport, 'watertight' | 'openEdges' | 'nonManifoldEdges' | 'fitsPrinter' | 'printerId' | 'supportVolumeMm3'>,
+  report: Pick<VariantReport, 'watertight' | 'openEdges' | 'nonManifoldEdges' | 'fitsPrinter' | 'printerId' | 'supportVolumeMm3'> &
+    Partial<Pick<VariantReport, 'outdoor'>>,
   supportBudgetMm3: number,
   warnings: readonly Pick<BirdFitWarning, 'code' | 'severity'>[],
+  materialName?: string,
 ): { verdict: VariantVerdict; reasons: string[] } {
   const reasons: string[] = [];
   if (!report.watertight || report.openEdges > 0) reasons.push(`mesh is not closed (${report.openEdges} open edges)`);
@@ -36,6 +41,7 @@ export function variantVerdict(
   }
   if (reasons.length > 0) return { verdict: 'fail', reasons };
   const toAck = warnings.filter(needsAcknowledgement).map((warning) => warning.code);
-  if (toAck.length > 0) return { verdict: 'warn', reasons: [`bird-fit warnings to acknowledge: ${toAck.join(', ')}`] };
-  return { verdict: 'pass', reasons: [] };
+  if (toAck.length > 0) reasons.push(`bird-fit warnings to acknowledge: ${toAck.join(', ')}`);
+  if (report.outdoor) reasons.push(...outdoorHeatReasons(report.outdoor, materialName ?? report.outdoor.materialId));
+  return { verdict: reasons.length > 0 ? 'warn' : 'pass', reasons };
 }

@@ -47,6 +47,7 @@ import { z } from 'zod';
 import { BirdFitSeveritySchema, BirdFitWarningSchema, RegionSchema } from './birdfit';
 import { CostBreakdownSchema } from './production';
 import { NestBoxFactsSchema } from './nestbox';
+import { OutdoorAssessmentSchema } from './outdoor';
 
 /** Most variants one family may have; more is refused with a message naming the count. */
 export const FAMILY_MAX_VARIANTS = 500;
@@ -278,6 +279,11 @@ export const VariantReportSchema = z.object({
   facts: NestBoxFactsSchema,
   /** Things a person should look at before printing. */
   warnings: z.array(z.string()),
+  /**
+   * Outdoor fitness in the variant's material and colour: roof and wall sol-air temperatures against the material's
+   * heat-deflection temperature (absent on variants computed before it was added, or for an unknown colour).
+   */
+  outdoor: OutdoorAssessmentSchema.optional(),
 });
 /** A variant's report summary (see {@link VariantReportSchema}). */
 export type VariantReport = z.infer<typeof VariantReportSchema>;
@@ -360,9 +366,19 @@ export const ActorSchema = z.object({ id: z.string(), name: z.string() });
 /** A person as the workflow shows them. */
 export type Actor = z.infer<typeof ActorSchema>;
 
-/** A written acknowledgement of one bird-fit warning code, for one revision. */
+/** Codes of outdoor-fitness warnings the gate raises (a roof or wall in full sun above the heat-deflection temperature). */
+export const OutdoorWarningCodeSchema = z.enum(['outdoor-heat']);
+/** An outdoor warning code (see {@link OutdoorWarningCodeSchema}). */
+export type OutdoorWarningCode = z.infer<typeof OutdoorWarningCodeSchema>;
+
+/** Every code the gate may ask to acknowledge: bird-fit warning codes and outdoor warning codes. */
+export const GateWarningCodeSchema = z.union([BirdFitWarningSchema.shape.code, OutdoorWarningCodeSchema]);
+/** A warning code of the gate (see {@link GateWarningCodeSchema}). */
+export type GateWarningCode = z.infer<typeof GateWarningCodeSchema>;
+
+/** A written acknowledgement of one bird-fit or outdoor warning code, for one revision. */
 export const AcknowledgementSchema = z.object({
-  code: BirdFitWarningSchema.shape.code,
+  code: GateWarningCodeSchema,
   text: z.string(),
   by: ActorSchema,
   at: z.string(),
@@ -375,7 +391,7 @@ export const AcknowledgementsCreateSchema = z.object({
   acknowledgements: z
     .array(
       z.object({
-        code: BirdFitWarningSchema.shape.code,
+        code: GateWarningCodeSchema,
         text: z.string().trim().min(ACK_MIN_CHARS, `text must be at least ${ACK_MIN_CHARS} characters`).max(2000),
       }),
     )
@@ -394,6 +410,7 @@ export const GateBlockerCodeSchema = z.enum([
   'over_support_budget',
   'birdfit_unacknowledged',
   'stale_template',
+  'outdoor_unacknowledged',
 ]);
 
 /** One reason the gate blocks, with the SKUs it concerns. */
@@ -405,9 +422,9 @@ export const GateBlockerSchema = z.object({
 /** A gate blocker (see {@link GateBlockerSchema}). */
 export type GateBlocker = z.infer<typeof GateBlockerSchema>;
 
-/** A bird-fit warning code raised by some variants, and whether it is acknowledged. */
+/** A bird-fit or outdoor warning code raised by some variants, and whether it is acknowledged. */
 export const GateWarningSchema = z.object({
-  code: BirdFitWarningSchema.shape.code,
+  code: GateWarningCodeSchema,
   severity: BirdFitSeveritySchema,
   /** The message of the first variant that raised it. */
   message: z.string(),
@@ -419,8 +436,9 @@ export const GateWarningSchema = z.object({
 export type GateWarning = z.infer<typeof GateWarningSchema>;
 
 /**
- * The family gate: submit is allowed only when `ok`. Bird-fit warnings of severity `warning` must be acknowledged;
- * cautions are listed and may be acknowledged.
+ * The family gate: submit is allowed only when `ok`. Bird-fit warnings of severity `warning` must be acknowledged,
+ * as must `outdoor-heat` (a roof or wall in full sun above the material's heat-deflection temperature, blocker
+ * `outdoor_unacknowledged`); cautions are listed and may be acknowledged.
  */
 export const FamilyGateSchema = z.object({
   ok: z.boolean(),

@@ -18,6 +18,7 @@ import type {
   AxisValue,
   ComputeState,
   FamilyState,
+  GateWarningCode,
   ReviewComment,
   VariantAttributes,
   VariantCost,
@@ -130,7 +131,7 @@ export const familyAcknowledgements = pgTable(
     revisionId: text('revision_id')
       .notNull()
       .references(() => familyRevisions.id, { onDelete: 'cascade' }),
-    code: text('code').$type<BirdFitWarning['code']>().notNull(),
+    code: text('code').$type<GateWarningCode>().notNull(),
     text: text('text').notNull(),
     personId: text('person_id')
       .notNull()
