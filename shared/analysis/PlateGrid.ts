@@ -1,4 +1,5 @@
 import type { IndexedMesh } from '../schemas/mesh';
+import { heightInTriangle } from './heightInTriangle';
 
 /**
  * Up-facing triangles binned into an x-y grid, so a ray cast straight down tests only the few triangles whose
@@ -102,19 +103,9 @@ export class PlateGrid {
       const c = idx[t * 3 + 2] * 3;
       const ax = p[a];
       const ay = p[a + 1];
-      const bx = p[b];
-      const by = p[b + 1];
-      const cx = p[c];
-      const cy = p[c + 1];
       // barycentric weights of (x, y) in the projected triangle (counter-clockwise seen from above)
-      const area = (bx - ax) * (cy - ay) - (by - ay) * (cx - ax);
-      const w0 = ((bx - x) * (cy - y) - (by - y) * (cx - x)) / area;
-      if (w0 < 0) continue;
-      const w1 = ((cx - x) * (ay - y) - (cy - y) * (ax - x)) / area;
-      if (w1 < 0) continue;
-      const w2 = 1 - w0 - w1;
-      if (w2 < 0) continue;
-      const z = w0 * p[a + 2] + w1 * p[b + 2] + w2 * p[c + 2];
+      const area = (p[b] - ax) * (p[c + 1] - ay) - (p[b + 1] - ay) * (p[c] - ax);
+      const z = heightInTriangle(p, a, b, c, area, x, y); // NaN outside: fails both comparisons
       if (z <= limit && z > best) best = z;
     }
     return best;

@@ -1,4 +1,5 @@
 import type { IndexedMesh } from '../schemas/mesh';
+import { heightInTriangle } from './heightInTriangle';
 import { PlateGrid } from './PlateGrid';
 
 /** Options of the support estimate. */
@@ -80,13 +81,8 @@ export function supportVolume(
       const y = y0 + j * pitch;
       for (let i = i0; i <= i1; i++) {
         const x = x0 + i * pitch;
-        const w0 = ((bx - x) * (cy - y) - (by - y) * (cx - x)) / area;
-        if (w0 < 0) continue;
-        const w1 = ((cx - x) * (ay - y) - (cy - y) * (ax - x)) / area;
-        if (w1 < 0) continue;
-        const w2 = 1 - w0 - w1;
-        if (w2 < 0) continue;
-        const z = w0 * p[a + 2] + w1 * p[b + 2] + w2 * p[c + 2];
+        const z = heightInTriangle(p, a, b, c, area, x, y);
+        if (Number.isNaN(z)) continue; // outside the face
         rays++;
         columnSum += z - grid.castDown(x, y, z, plate);
       }
