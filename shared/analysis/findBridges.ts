@@ -1,5 +1,6 @@
 import type { IndexedMesh } from '../schemas/mesh';
 import type { Bridge } from '../schemas/analysis';
+import { FACE_VECTOR_LENGTH, faceVectors } from './faceVectors';
 import { PLATE_TOLERANCE_MM } from './measureMesh';
 
 /** Options of the bridge search. */
@@ -38,12 +39,11 @@ export function findBridges(
   const flat = new Uint8Array(triangles);
   const area = new Float64Array(triangles);
   const minZ = new Float64Array(triangles);
+  const face = new Float64Array(FACE_VECTOR_LENGTH);
   for (let t = 0; t < triangles; t++) {
     const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
-    const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
-    const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
-    const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
-    const len = Math.sqrt(nx * nx + ny * ny + nz * nz);
+    const len = faceVectors(p, idx, t, face);
+    const nz = face[8];
     area[t] = len / 2;
     minZ[t] = Math.min(p[a + 2], p[b + 2], p[c + 2]);
     const onPlate = Math.max(p[a + 2], p[b + 2], p[c + 2]) <= plateZMm + PLATE_TOLERANCE_MM;

@@ -1,4 +1,5 @@
 import type { IndexedMesh } from '../schemas/mesh';
+import { FACE_VECTOR_LENGTH, faceVectors } from './faceVectors';
 import type { TriangleBvh } from './TriangleBvh';
 
 /** Thinnest wall found by the inward rays. */
@@ -36,13 +37,14 @@ export function thinnestWall(
   let at: [number, number, number] = [0, 0, 0];
   let carry = 0.5; // error diffusion, so small faces still get their share of samples
   let sequence = 0;
+  const face = new Float64Array(FACE_VECTOR_LENGTH);
   for (let t = 0; t < triangles; t++) {
-    const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
-    const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
-    const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
-    const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
-    const len = Math.sqrt(nx * nx + ny * ny + nz * nz);
+    const len = faceVectors(p, idx, t, face);
     if (len === 0) continue;
+    const a = idx[t * 3] * 3;
+    const ux = face[0], uy = face[1], uz = face[2];
+    const vx = face[3], vy = face[4], vz = face[5];
+    const nx = face[6], ny = face[7], nz = face[8];
     carry += (len / 2) * perMm2;
     const count = Math.floor(carry);
     carry -= count;
