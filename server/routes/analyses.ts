@@ -32,7 +32,7 @@ const meshUpload: RequestHandler = (req, res, next) => {
 
 /**
  * Builds the analyses router (mounted at `/api/analyses`): designers post a mesh file (multipart field `file`) with
- * optional fields up (+z…-y or auto), printerId, materialId, infillPct and overhangDeg, and get the report.
+ * optional fields up (+z…-y or auto), printerId, materialId, colourId, infillPct and overhangDeg, and get the report.
  * Printers and materials come from the database, or the built-in defaults when it holds none. The file is parsed
  * and analysed in a worker thread, so a large mesh does not hold up other requests.
  * @param ctx - the application context

@@ -26,15 +26,22 @@ export function defaultCatalogue(): AnalysisCatalogue {
 /**
  * The engine options for a request: the chosen (or first) printer and material, default settings with the requested
  * infill, and the default rates.
- * @param request - orientation, printer, material, infill, overhang threshold
+ * @param request - orientation, printer, material, colour, infill, overhang threshold
  * @param catalogue - printers and materials to choose from
- * @throws HttpError 400 for an unknown printer or material
+ * @throws HttpError 400 for an unknown printer, material or colour
  */
 export function analysisOptions(request: AnalysisRequest, catalogue: AnalysisCatalogue): AnalyzeMeshOptions {
+  const material = pick(catalogue.materials, request.materialId, 'materialId');
+  if (request.colourId !== undefined && !material.colours.some((c) => c.id === request.colourId)) {
+    throw badRequest(
+      `colourId: unknown colour "${request.colourId}" for ${material.id}; choose one of ${material.colours.map((c) => c.id).join(', ')}`,
+    );
+  }
   return {
     up: request.up,
     printer: pick(catalogue.printers, request.printerId, 'printerId'),
-    material: pick(catalogue.materials, request.materialId, 'materialId'),
+    material,
+    colourId: request.colourId,
     settings: request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct },
     rates: DEFAULT_RATES,
     overhangDeg: request.overhangDeg,

@@ -1,7 +1,8 @@
 import type { IndexedMesh } from '../schemas/mesh';
-import type { AnalysisReport, BuildOrientation, GeometryReport } from '../schemas/analysis';
+import type { AnalysisOutdoor, AnalysisReport, BuildOrientation, GeometryReport } from '../schemas/analysis';
 import type { CostRates, Material, PrinterProfile, PrintSettings } from '../schemas/production';
 import { estimateProduction } from '../production/estimateProduction';
+import { assessOutdoor } from '../thermal/assessOutdoor';
 import { analyzeGeometry, type GeometryOptions } from './analyzeGeometry';
 import { buildPlateFit } from './buildPlateFit';
 import { fitParts } from './fitParts';
@@ -13,6 +14,13 @@ export interface AnalyzeMeshOptions {
   up?: BuildOrientation | 'auto';
   printer: PrinterProfile;
   material: Material;
+  /** One of the material's colour ids for the outdoor assessment (default: the material's first colour). */
+  colourId?: string;
+  /**
+   * The designed wall thickness when known (e.g. NestBoxFacts.wallThicknessMm); otherwise the outdoor assessment
+   * uses the measured thinnest-wall 5th percentile.
+   */
+  wallThicknessMm?: number;
   settings: PrintSettings;
   rates: CostRates;
   /** Overhang threshold, degrees from vertical (default 45). */
@@ -38,10 +46,12 @@ export interface MeshAnalysis {
 
 /**
  * The print-readiness report of a part: geometry in build orientation (searched when `up` is 'auto'), fit and
- * copies on the printer's plate, and the production estimate (mass, filament, time, energy, cost).
+ * copies on the printer's plate, the production estimate (mass, filament, time, energy, cost) and the outdoor
+ * fitness in the chosen material and colour (shared/thermal/assessOutdoor.ts).
  * @param mesh - the part in model coordinates, mm
- * @param options - orientation, printer, material, settings, rates and thresholds
+ * @param options - orientation, printer, material, colour, settings, rates and thresholds
  * @returns the JSON-able report, the overhang mask and the oriented mesh
+ * @throws Error when the colour is not one of the material's colours
  */
 export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): MeshAnalysis {
   const overhangDeg = options.overhangDeg ?? 45;
@@ -72,6 +82,7 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
     options.settings,
     options.rates,
   );
+  const outdoor = outdoorFor(geometry, options);
   const report: AnalysisReport = {
     ...geometry,
     up: requested,
@@ -79,9 +90,36 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
     buildPlate: { printerId: printer.id, buildVolumeMm, fits: fit.fits, copiesPerPlate: fit.copiesPerPlate, spacingMm, turnedOnPlate: fit.turnedOnPlate },
     materialId: material.id,
     production,
-    warnings: warningsFor(geometry, fit.fits, printer),
+    outdoor,
+    warnings: [...warningsFor(geometry, fit.fits, printer), ...outdoorWarnings(outdoor, material)],
   };
   return { report, overhangMask, oriented };
+}
+
+function outdoorFor(g: GeometryReport, options: AnalyzeMeshOptions): AnalysisOutdoor {
+  const { material, printer, settings } = options;
+  const given = options.wallThicknessMm;
+  const measured = g.thinnestWall && g.thinnestWall.p5Mm > 0 ? g.thinnestWall.p5Mm : null;
+  const wallThicknessMm = given ?? measured;
+  const assessment = assessOutdoor({
+    material,
+    colourId: options.colourId ?? material.colours[0]!.id,
+    wall:
+      wallThicknessMm === null
+        ? undefined
+        : { wallThicknessMm, wallLoops: settings.wallLoops, lineWidthMm: printer.lineWidthMm, infillPct: settings.infillPct },
+  });
+  return { ...assessment, wallThicknessMm, wallThicknessFrom: given !== undefined ? 'options' : measured !== null ? 'measured' : null };
+}
+
+function outdoorWarnings(o: AnalysisOutdoor, material: Material): string[] {
+  const hot = (['roof', 'wall'] as const).filter((name) => o[name].verdict === 'fail');
+  if (hot.length === 0) return [];
+  const parts = hot.map((name) => `${name} about ${o[name].solAirC.toFixed(0)} °C`);
+  return [
+    `Outdoors in full sun this colour passes ${material.name}'s heat-deflection temperature of ${o.heatDeflectionC} °C ` +
+      `(${parts.join(', ')}): it may sag or warp. Choose a lighter colour or a shaded site; follow local advice on siting.`,
+  ];
 }
 
 function warningsFor(g: GeometryReport, fits: boolean, printer: PrinterProfile): string[] {

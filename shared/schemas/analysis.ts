@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { OutdoorAssessmentSchema } from './outdoor';
 import { ProductionEstimateSchema } from './production';
 
 /** A point or size in millimetres, [x, y, z]. */
@@ -154,7 +155,20 @@ export const BuildPlateReportSchema = z.object({
 /** A build plate report (see {@link BuildPlateReportSchema}). */
 export type BuildPlateReport = z.infer<typeof BuildPlateReportSchema>;
 
-/** The full print-readiness report: geometry, build plate, production and any orientation search. */
+/** Outdoor fitness of the part in the chosen material and colour, with the wall thickness it was judged by. */
+export const AnalysisOutdoorSchema = OutdoorAssessmentSchema.extend({
+  /** Wall thickness used for the thermal resistance; null when none is known (nothing given, open mesh). */
+  wallThicknessMm: z.number().nullable(),
+  /**
+   * Where that thickness comes from: `options` (given by the caller, e.g. NestBoxFacts.wallThicknessMm) or
+   * `measured` (5th percentile of the thinnest-wall rays).
+   */
+  wallThicknessFrom: z.enum(['options', 'measured']).nullable(),
+});
+/** The outdoor section of the report (see {@link AnalysisOutdoorSchema}). */
+export type AnalysisOutdoor = z.infer<typeof AnalysisOutdoorSchema>;
+
+/** The full print-readiness report: geometry, build plate, production, outdoor fitness and any orientation search. */
 export const AnalysisReportSchema = GeometryReportSchema.extend({
   /** The orientation the report was computed in ('auto' was resolved by the search). */
   up: z.union([BuildOrientationSchema, z.literal('auto')]),
@@ -162,6 +176,8 @@ export const AnalysisReportSchema = GeometryReportSchema.extend({
   buildPlate: BuildPlateReportSchema,
   materialId: z.string(),
   production: ProductionEstimateSchema,
+  /** Sol-air roof and wall temperatures against the material's heat-deflection temperature, and the wall's insulation. */
+  outdoor: AnalysisOutdoorSchema,
   /** Things a person should look at before printing. */
   warnings: z.array(z.string()),
 });
@@ -173,6 +189,8 @@ export const AnalysisRequestSchema = z.object({
   up: z.enum([...AxisUpSchema.options, 'auto']).default('+z'),
   printerId: z.string().min(1).max(64).optional(),
   materialId: z.string().min(1).max(64).optional(),
+  /** One of the material's colour ids (its first colour when omitted). */
+  colourId: z.string().min(1).max(64).optional(),
   infillPct: z.coerce.number().min(0).max(100).optional(),
   overhangDeg: z.coerce.number().min(0).max(89).optional(),
 });

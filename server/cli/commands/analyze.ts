@@ -1,6 +1,6 @@
 /**
- * `npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] [--infill PCT]
- * [--json]`: the print-readiness report of an STL or 3MF file.
+ * `npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] [--colour ID]
+ * [--infill PCT] [--json]`: the print-readiness report of an STL or 3MF file, with its outdoor fitness.
  */
 import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
@@ -16,8 +16,9 @@ export const summary = 'Print-readiness report of an STL or 3MF file (geometry, 
 
 const USAGE =
   'Usage: npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] ' +
-  '[--infill PCT] [--overhang DEG] [--json]\n' +
-  `Printers: ${DEFAULT_PRINTERS.map((p) => p.id).join(', ')}\nMaterials: ${DEFAULT_MATERIALS.map((m) => m.id).join(', ')}\n`;
+  '[--colour ID] [--infill PCT] [--overhang DEG] [--json]\n' +
+  `Printers: ${DEFAULT_PRINTERS.map((p) => p.id).join(', ')}\nMaterials: ${DEFAULT_MATERIALS.map((m) => m.id).join(', ')}\n` +
+  `Colours: ${DEFAULT_MATERIALS[0]!.colours.map((c) => c.id).join(', ')}\n`;
 
 /**
  * Reads the file, analyses it with the built-in printers and materials and prints the report (a table, or JSON).
@@ -33,6 +34,7 @@ export async function run(argv: string[]): Promise<number> {
         up: { type: 'string', default: '+z' },
         printer: { type: 'string' },
         material: { type: 'string' },
+        colour: { type: 'string' },
         infill: { type: 'string' },
         overhang: { type: 'string' },
         json: { type: 'boolean', default: false },
@@ -49,6 +51,7 @@ export async function run(argv: string[]): Promise<number> {
     up: values.up,
     printerId: values.printer,
     materialId: values.material,
+    colourId: values.colour,
     infillPct: values.infill,
     overhangDeg: values.overhang,
   });
@@ -63,6 +66,10 @@ export async function run(argv: string[]): Promise<number> {
     : DEFAULT_MATERIALS[0];
   if (!printer || !material) {
     process.stderr.write(`Unknown ${printer ? 'material' : 'printer'}.\n${USAGE}`);
+    return EXIT_CODE.usage;
+  }
+  if (request.data.colourId !== undefined && !material.colours.some((c) => c.id === request.data.colourId)) {
+    process.stderr.write(`Unknown colour for ${material.id}; choose one of ${material.colours.map((c) => c.id).join(', ')}.\n`);
     return EXIT_CODE.usage;
   }
   const bytes = new Uint8Array(await readFile(values.in));
@@ -82,6 +89,7 @@ export async function run(argv: string[]): Promise<number> {
     up: request.data.up,
     printer,
     material,
+    colourId: request.data.colourId,
     settings,
     rates: DEFAULT_RATES,
     overhangDeg: request.data.overhangDeg,
@@ -94,6 +102,8 @@ const mm = (v: number, digits = 1): string => `${v.toFixed(digits)} mm`;
 const cm3 = (v: number): string => `${(v / 1000).toFixed(1)} cm³`;
 const cm2 = (v: number): string => `${(v / 100).toFixed(1)} cm²`;
 const money = (cents: number, currency: string): string => `${(cents / 100).toFixed(2)} ${currency}`;
+const celsiusFahrenheit = (c: number): string => `${c.toFixed(1)} °C (${((c * 9) / 5 + 32).toFixed(0)} °F)`;
+const VERDICT_WORDS = { ok: 'ok', caution: 'close to the limit', fail: 'above the limit' } as const;
 
 /**
  * The report as an aligned two-column table for people.
@@ -131,6 +141,17 @@ export function formatReport(r: AnalysisReport, name: string): string {
     ['  handling', money(p.cost.handlingLabourCents, p.currency)],
     ['  packaging', money(p.cost.packagingCents, p.currency)],
     ['  failure allowance', money(p.cost.failureAllowanceCents, p.currency)],
+    ['Outdoor colour', `${r.outdoor.colourId} (solar absorptance ${r.outdoor.absorptance.toFixed(2)})`],
+    ['Heat deflection', celsiusFahrenheit(r.outdoor.heatDeflectionC)],
+    [`Roof in full sun`, `${celsiusFahrenheit(r.outdoor.roof.solAirC)}, ${VERDICT_WORDS[r.outdoor.roof.verdict]}`],
+    [`Wall in full sun`, `${celsiusFahrenheit(r.outdoor.wall.solAirC)}, ${VERDICT_WORDS[r.outdoor.wall.verdict]}`],
+    [
+      'Wall insulation',
+      r.outdoor.wallResistance
+        ? `${r.outdoor.wallResistance.rM2KW.toFixed(3)} m²K/W, ${Math.round(r.outdoor.wallResistance.ratioToPine * 100)} % of 19 mm pine ` +
+          `(wall ${mm(r.outdoor.wallThicknessMm!, 2)}, ${r.outdoor.wallThicknessFrom})`
+        : 'not estimated (no wall thickness)',
+    ],
   ];
   if (r.orientationSearch) {
     for (const c of r.orientationSearch.candidates.slice(0, 5)) rows.push([`  #${c.rank} ${c.label}`, c.reason]);
@@ -138,5 +159,10 @@ export function formatReport(r: AnalysisReport, name: string): string {
   const width = Math.max(...rows.map(([k]) => k.length));
   const lines = rows.map(([k, v]) => `${k.padEnd(width)}  ${v}`);
   if (r.warnings.length) lines.push('', 'Warnings:', ...r.warnings.map((w) => `- ${w}`));
+  lines.push(
+    '',
+    `Outdoors (air ${r.outdoor.airC} °C, clear summer noon; estimates, not a guarantee):`,
+    ...r.outdoor.cautions.map((c) => `- ${c}`),
+  );
   return `${lines.join('\n')}\n`;
 }
