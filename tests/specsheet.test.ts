@@ -66,6 +66,21 @@ describe('variant spec sheet', () => {
     expect(text).toMatch(/once a year/);
   });
 
+  it('prints the roof and wall sol-air temperatures of its colour beside the heat-deflection temperature, in °C and °F', () => {
+    // source: sol-air formula of trade-facts §2c (T_sa = T_o + α·I/h_o − ε·ΔR/h_o; h_o 17, 30 °C air, roof 1000 W/m²
+    // with −3.9 K, wall 600 W/m²) with sand's estimated α 0.40 (shared/production/defaults.ts, colour classes of §2d)
+    const roofC = 30 + (0.4 * 1000) / 17 - 3.9; // 49.6 °C
+    const wallC = 30 + (0.4 * 600) / 17; // 44.1 °C
+    const cf = (c: number, d = 1) => `${c.toFixed(d)} °C (${((c * 9) / 5 + 32).toFixed(0)} °F)`;
+    expect(text).toContain(`${cf(roofC)} / ${cf(wallC)}`); // key figures, page 1
+    // source: PLA heat-deflection temperature at 0.45 MPa via trade-facts §2e — 55 °C (= 131 °F)
+    expect(text).toContain('55 °C (131 °F), PLA at 0.45 MPa');
+    // The heat caution repeats them and, with the roof within the 10 K margin, advises shade; it defers to local advice.
+    expect(text).toContain(`reaches about ${cf(roofC)} on the roof and ${cf(wallC)} on the walls`);
+    expect(text).toMatch(/The roof comes within 5 K of it: prefer a shaded site/);
+    expect(text).toMatch(/follow local advice/);
+  });
+
   it('names the species it suits with the source of the guidance', () => {
     // source: RSPB via trade-facts §1b — great tit hole 28 mm, so a 28 mm box suits it
     expect(text).toContain('Great tit (Parus major)');
@@ -113,6 +128,10 @@ describe('family spec sheet and errors', () => {
     const text = flat(run('pdftotext', ['-raw', file, '-']));
     for (const sku of FIXTURE_SKUS) expect(text).toContain(sku);
     expect(text).toContain('32 mm (1.26 in)'); // 32 / 25.4 = 1.26
+    // source: sol-air formula of trade-facts §2c with moss green's estimated α 0.65: roof 30 + 0.65·1000/17 − 3.9
+    // = 64.3 °C (148 °F), above PLA's 55 °C (trade-facts §2e), so the sheet says it may sag
+    expect(text).toContain('64.3 °C (148 °F)');
+    expect(text).toMatch(/The roof can pass that temperature and may sag or warp/);
   }, 60_000);
 
   it('shows the family\'s sample-print photo instead of the rendered view once one is uploaded', async () => {

@@ -38,6 +38,15 @@ export function money(cents: number, currency: string): string {
   return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(cents / 100);
 }
 
+/**
+ * A temperature in degrees Celsius and Fahrenheit (°F = °C × 9/5 + 32), e.g. `82.0 °C (180 °F)`.
+ * @param c - the temperature, °C
+ * @param cDigits - decimals for Celsius (default 1)
+ */
+export function celsiusFahrenheit(c: number, cDigits = 1): string {
+  return `${c.toFixed(cDigits)} °C (${((c * 9) / 5 + 32).toFixed(0)} °F)`;
+}
+
 /** Inches with two decimals. @param mm - the length in millimetres */
 export function inches(mm: number): string {
   return (mm / MM_PER_INCH).toFixed(2);

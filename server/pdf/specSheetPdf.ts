@@ -3,7 +3,7 @@ import PDFDocument from 'pdfkit';
 import type { OrthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import type { DimWeight, ShippingBox } from '../../shared/schemas/shipping';
 import { drawOrthographicViews } from './drawOrthographicViews';
-import { massGLb, mmIn, mmInTriple } from './formatMeasure';
+import { celsiusFahrenheit, massGLb, mmIn, mmInTriple } from './formatMeasure';
 import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectionHeading } from './pdfPageFrame';
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfToBuffer } from './pdfToBuffer';
@@ -24,6 +24,15 @@ export interface SpecSheetCaution {
   title: string;
   text: string;
   source: string;
+}
+
+/** Sun heat of the variant's colour: sol-air roof and wall temperatures beside the heat-deflection temperature. */
+export interface SpecSheetOutdoor {
+  roofC: number;
+  wallC: number;
+  heatDeflectionC: number;
+  /** Outdoor air of the case, °C (a clear summer noon). */
+  airC: number;
 }
 
 /** Everything one spec sheet shows, gathered by the spec-sheet service. */
@@ -47,6 +56,8 @@ export interface SpecSheetInput {
   wallThicknessMm: number;
   material: string;
   colour: { name: string; hex: string };
+  /** Sun heat of this colour; omitted when the material is unknown. */
+  outdoor?: SpecSheetOutdoor;
   massG: number;
   /** Which poles, trunks or posts the back fits. */
   backFit: string;
@@ -126,6 +137,15 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
       ['Inside height', mmIn(s.cavityDepthMm)],
       ['Wall thickness', mmIn(s.wallThicknessMm)],
       ['Material and colour', `${s.material}, ${s.colour.name} (printed, material extrusion)`],
+      ...(s.outdoor
+        ? ([
+            [
+              'In full sun, roof / wall',
+              `${celsiusFahrenheit(s.outdoor.roofC)} / ${celsiusFahrenheit(s.outdoor.wallC)} in ${s.colour.name.toLowerCase()} (estimate, ${s.outdoor.airC} °C air)`,
+            ],
+            ['Heat deflection', `${celsiusFahrenheit(s.outdoor.heatDeflectionC, 0)}, ${s.material} at 0.45 MPa`],
+          ] as Array<[string, string]>)
+        : []),
       ['Mass', massGLb(s.massG)],
       ['Back fits', s.backFit],
       ...(s.priceText ? ([['Price', s.priceText]] as Array<[string, string]>) : []),

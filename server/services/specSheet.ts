@@ -6,10 +6,13 @@ import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
+import type { Material } from '../../shared/schemas/production';
+import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import type { SalesSettings } from '../../shared/schemas/sales';
 import { dimensionalWeight } from '../../shared/shipping/dimensionalWeight';
 import { shippingBox } from '../../shared/shipping/shippingBox';
-import { mmIn, money } from '../pdf/formatMeasure';
+import { celsiusFahrenheit, mmIn, money } from '../pdf/formatMeasure';
 import { pdfText } from '../pdf/pdfFonts';
 import { renderSpecSheetsPdf, type SpecSheetCaution, type SpecSheetInput } from '../pdf/specSheetPdf';
 import { productMesh } from './specSheetMesh';
@@ -28,7 +31,9 @@ export interface SpecSheetOptions {
 
 /**
  * Everything one variant's spec sheet shows: the body built upright from its template and parameters, a
- * three-view drawing, a picture, the bird fit, the shipping box and weights, care and cautions.
+ * three-view drawing, a picture, the bird fit, the sun heat of its colour (sol-air roof and wall temperatures beside
+ * the material's heat-deflection temperature: stored with the variant, or assessed now), the shipping box and
+ * weights, care and cautions.
  * @param variant - a published catalogue variant
  * @param options - settings, date and optional photo
  */
@@ -39,6 +44,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
   const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
   const colour = material?.colours.find((c) => c.id === variant.attributes.colour) ??
     material?.colours[0] ?? { id: 'natural', name: 'Natural', hex: '#e8e2d0', solarAbsorptance: 0.35 };
+  const outdoor = outdoorOf(variant, material, colour.id);
 
   const picture = options.photo
     ? { png: await sharp(options.photo).rotate().resize(800, 800, { fit: 'inside' }).png().toBuffer(), caption: 'Photo of the sample print' }
@@ -84,6 +90,9 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
     wallThicknessMm: facts.wallThicknessMm,
     material: material?.name ?? variant.attributes.material.toUpperCase(),
     colour: { name: colour.name, hex: colour.hex },
+    outdoor: outdoor
+      ? { roofC: outdoor.roof.solAirC, wallC: outdoor.wall.solAirC, heatDeflectionC: outdoor.heatDeflectionC, airC: outdoor.airC }
+      : undefined,
     massG: variant.report.massG,
     backFit: backFit(variant.templateId, variant.params, o.widthMm),
     priceText: `${money(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
@@ -102,7 +111,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
               source: '',
             },
           ]),
-      ...cautions(variant, facts.hasPerch, material?.heatDeflectionC ?? null, colour.solarAbsorptance, fit.suits),
+      ...cautions(variant, facts.hasPerch, material ?? null, outdoor, colour.solarAbsorptance, fit.suits),
     ],
   };
 }
@@ -176,10 +185,40 @@ const CARE = [
   'Check the fixings and look for cracks when you clean; replace a box that has gone brittle.',
 ];
 
+/** The variant's stored outdoor assessment when it matches its colour, else one made now; null for an unknown material. */
+function outdoorOf(variant: CatalogueVariant, material: Material | undefined, colourId: string): OutdoorAssessment | null {
+  const stored = variant.report.outdoor;
+  if (stored && stored.colourId === colourId && stored.materialId === variant.attributes.material) return stored;
+  if (!material || !material.colours.some((c) => c.id === colourId)) return null;
+  return assessOutdoor({ material, colourId });
+}
+
+/** The sun-heat sentence of the heat caution, naming the surfaces above or near the heat-deflection temperature. */
+function sunHeatText(o: OutdoorAssessment, materialName: string, colourName: string): string {
+  const figures =
+    `In full sun on a ${o.airC} °C day this ${colourName.toLowerCase()} box reaches about ${celsiusFahrenheit(o.roof.solAirC)} ` +
+    `on the roof and ${celsiusFahrenheit(o.wall.solAirC)} on the walls; ${materialName} deforms under load from ` +
+    `${celsiusFahrenheit(o.heatDeflectionC, 0)}. `;
+  const over = (['roof', 'wall'] as const).filter((name) => o[name].verdict === 'fail');
+  const near = (['roof', 'wall'] as const).filter((name) => o[name].verdict === 'caution');
+  const nearText =
+    near.length > 0
+      ? `The ${near.join(' and ')} comes within ${Math.round(Math.min(...near.map((n) => o[n].marginK)))} K of it`
+      : '';
+  if (over.length > 0) {
+    return (
+      `${figures}The ${over.join(' and ')} can pass that temperature and may sag or warp` +
+      `${nearText ? `; ${nearText.charAt(0).toLowerCase()}${nearText.slice(1)}` : ''}: hang it in shade or choose a lighter colour. `
+    );
+  }
+  return nearText ? `${figures}${nearText}: prefer a shaded site. ` : figures;
+}
+
 function cautions(
   variant: CatalogueVariant,
   hasPerch: boolean,
-  heatDeflectionC: number | null,
+  material: Material | null,
+  outdoor: OutdoorAssessment | null,
   solarAbsorptance: number,
   suits: Array<{ commonName: string; mountingHeightM: { min: number; max: number } }>,
 ): SpecSheetCaution[] {
@@ -188,10 +227,15 @@ function cautions(
       title: 'Heat',
       text:
         'A plastic box in full sun gets much hotter than the air, and above 41.7 °C (107 °F) inside is lethal to nestlings. ' +
-        (heatDeflectionC !== null ? `The material softens from about ${heatDeflectionC} °C. ` : '') +
+        (outdoor && material
+          ? sunHeatText(outdoor, material.name, material.colours.find((c) => c.id === outdoor.colourId)?.name ?? outdoor.colourId)
+          : material
+            ? `The material softens from about ${material.heatDeflectionC} °C. `
+            : '') +
         (solarAbsorptance >= 0.6 ? 'This colour absorbs most sunlight and runs hot: choose a shaded site. ' : '') +
-        'Hang the box where it gets afternoon shade, facing away from the strongest sun.',
-      source: 'Audubon (2024), K. Stumpf; PLA heat deflection, NatureWorks data sheet',
+        'Hang the box where it gets afternoon shade, facing away from the strongest sun. These figures are estimates; follow local advice.',
+      source:
+        'Audubon (2024), K. Stumpf; sol-air temperature, ASHRAE Fundamentals (30 °C air, roof 1000 W/m², wall 600 W/m²); heat deflection at 0.45 MPa, material data sheet (PLA: NatureWorks)',
     },
     {
       title: 'Perches',
