@@ -112,4 +112,23 @@ describe('outdoor heat in the family gate', () => {
     expect(current.gate.warnings.some((w) => w.code === 'outdoor-heat')).toBe(false);
     expect(current.gate.blockers.some((b) => b.code === 'outdoor_unacknowledged')).toBe(false);
   });
+
+  it('seeds the demo families with dark colours through their gate, outdoor-heat acknowledged in writing', async () => {
+    const designer = await t.agent('designer');
+    const list = await designer.get('/api/families');
+    expect(list.status).toBe(200);
+    const seeded = (list.body.families as Array<{ id: string; code: string; state: string }>).filter((f) =>
+      ['HGB', 'CAF'].includes(f.code),
+    );
+    expect(seeded.length).toBe(2);
+    for (const summary of seeded) {
+      expect(summary.state).not.toBe('draft');
+      const family = (await designer.get(`/api/families/${summary.id}`)).body.family as Family;
+      // source: trade-facts §2c formula with moss green α 0.65 (roof 64.3 °C) and bark brown α 0.80 (roof 73.2 °C),
+      // both above PLA's 55 °C (trade-facts §2e)
+      const heat = family.gate.warnings.find((w) => w.code === 'outdoor-heat');
+      expect(heat?.acknowledgement?.text.length).toBeGreaterThanOrEqual(10);
+      expect(family.gate.ok).toBe(true);
+    }
+  });
 });
