@@ -8,6 +8,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { assessBirdFit } from '../shared/birdfit/assessBirdFit';
 import { analyzeMesh } from '../shared/analysis/analyzeMesh';
+import { componentSizesMm } from '../shared/analysis/fitParts';
 import { buildPlateFit } from '../shared/analysis/buildPlateFit';
 import { fitParts, fitPartSizes } from '../shared/analysis/fitParts';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
@@ -59,12 +60,20 @@ describe('analyzeMesh plate fit with known parts', () => {
     const whole = analyzeMesh(result.mesh, options).report;
     // body 182 mm + 10 mm gap + plug 132 mm laid side by side: over 256 mm as one block (measured layout)
     expect(whole.bbox.sizeMm[0]).toBeGreaterThan(256);
-    expect(whole.buildPlate.fits).toBe(false);
     const parts = analyzeMesh(result.mesh, { ...options, partTriangles: result.partTriangles }).report;
     expect(parts.buildPlate.fits).toBe(true);
     expect(parts.buildPlate.copiesPerPlate).toBeGreaterThanOrEqual(1);
     expect(parts.warnings.join(' ')).not.toMatch(/does not fit/);
+    // An exported file does not say where one part ends: its connected parts are fitted the same way.
+    expect(whole.components).toBe(2);
+    expect(whole.buildPlate).toMatchObject({ fits: parts.buildPlate.fits, copiesPerPlate: parts.buildPlate.copiesPerPlate });
   }, 60_000);
+
+  it('ignores the inner shell of a hollow part when fitting connected parts', () => {
+    // A 200 mm cube with a 180 mm cavity has two shells; the inner one takes no plate space, so the part fits a
+    // 220 mm plate once (analytic: floor((220 + 10) / (200 + 10)) = 1 per axis).
+    expect(componentSizesMm(hollowCube(200, 180))).toEqual([[200, 200, 200]]);
+  });
 });
 
 /** First hit of a ray along +y from y = -1000 at (x, z), by Möller–Trumbore over every triangle; null when none. */
@@ -175,4 +184,18 @@ function floorTopAtCentre(mesh: IndexedMesh, triangles: number): number {
     if (z < 60 && z > best) best = z;
   }
   return best;
+}
+
+/** A closed cube of side `outer` (outward winding) with a concentric cavity of side `inner` (inward winding). */
+function hollowCube(outer: number, inner: number): IndexedMesh {
+  const corners = (size: number) => {
+    const h = size / 2;
+    const out: number[] = [];
+    for (const z of [-h, h]) for (const y of [-h, h]) for (const x of [-h, h]) out.push(x + outer / 2, y + outer / 2, z + outer / 2);
+    return out;
+  };
+  // faces of a cube over corners 0..7 (x fastest), counter-clockwise seen from outside
+  const faces = [0, 2, 1, 1, 2, 3, 4, 5, 6, 5, 7, 6, 0, 1, 4, 1, 5, 4, 2, 6, 3, 3, 6, 7, 0, 4, 2, 2, 4, 6, 1, 3, 5, 3, 7, 5];
+  const indices = [...faces, ...faces.map((v, i) => (i % 3 === 1 ? faces[i + 1] : i % 3 === 2 ? faces[i - 1] : v) + 8)];
+  return { positions: new Float32Array([...corners(outer), ...corners(inner)]), indices: new Uint32Array(indices) };
 }

@@ -5,7 +5,7 @@ import { estimateProduction } from '../production/estimateProduction';
 import { assessOutdoor } from '../thermal/assessOutdoor';
 import { analyzeGeometry, type GeometryOptions } from './analyzeGeometry';
 import { buildPlateFit } from './buildPlateFit';
-import { fitParts } from './fitParts';
+import { componentSizesMm, fitPartSizes, fitParts } from './fitParts';
 import { searchOrientation } from './searchOrientation';
 
 /** Everything the full report needs besides the mesh. */
@@ -29,7 +29,8 @@ export interface AnalyzeMeshOptions {
   plateSpacingMm?: number;
   /**
    * Triangles of each separate part when the mesh holds several parts one after another (as `generate()` returns
-   * them): each part is then fitted on its own and copies per plate count complete sets. Omitted: one part.
+   * them): each part is then fitted on its own and copies per plate count complete sets. Omitted: the mesh's
+   * connected parts are fitted the same way (a single part: its bounding box).
    */
   partTriangles?: readonly number[];
   /** Sample budgets and bridge limits. */
@@ -65,7 +66,9 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
   const fit =
     options.partTriangles && options.partTriangles.length > 1
       ? { ...fitParts(oriented, options.partTriangles, buildVolumeMm, spacingMm), turnedOnPlate: false }
-      : buildPlateFit(geometry.bbox.sizeMm, buildVolumeMm, spacingMm);
+      : geometry.components > 1
+        ? { ...fitPartSizes(componentSizesMm(oriented), buildVolumeMm, spacingMm), turnedOnPlate: false }
+        : buildPlateFit(geometry.bbox.sizeMm, buildVolumeMm, spacingMm);
   const production = estimateProduction(
     {
       volumeMm3: Math.max(0, geometry.volumeMm3),

@@ -1,5 +1,6 @@
 import type { IndexedMesh } from '../schemas/mesh';
 import { buildPlateFit, type PlateFit } from './buildPlateFit';
+import { componentOfVertex } from './meshTopology';
 
 /** How the separate parts of one design (e.g. box body and floor plug) fit a printer. */
 export interface PartsFit {
@@ -44,6 +45,33 @@ export function partSizesMm(mesh: IndexedMesh, partTriangles: readonly number[])
     first += count;
   }
   return sizes;
+}
+
+/**
+ * Bounding-box size of each separate part of a mesh whose part boundaries are not known (an uploaded STL or 3MF):
+ * the connected parts, less any part whose box lies inside another's (the inner surface of a hollow part is a
+ * shell of its own but takes no plate space).
+ * @param mesh - the mesh in build orientation, mm
+ * @returns one [x, y, z] size per part
+ */
+export function componentSizesMm(mesh: IndexedMesh): Array<[number, number, number]> {
+  const { part, count } = componentOfVertex(mesh);
+  const boxes = Array.from({ length: count }, () => [Infinity, Infinity, Infinity, -Infinity, -Infinity, -Infinity]);
+  const p = mesh.positions;
+  for (let v = 0; v < part.length; v++) {
+    if (part[v] < 0) continue;
+    const box = boxes[part[v]];
+    for (let axis = 0; axis < 3; axis++) {
+      const value = p[v * 3 + axis];
+      if (value < box[axis]) box[axis] = value;
+      if (value > box[axis + 3]) box[axis + 3] = value;
+    }
+  }
+  const inside = (a: number[], b: number[]) =>
+    a !== b && [0, 1, 2].every((axis) => a[axis] >= b[axis] && a[axis + 3] <= b[axis + 3]);
+  return boxes
+    .filter((box) => !boxes.some((other) => inside(box, other)))
+    .map((box): [number, number, number] => [box[3] - box[0], box[4] - box[1], box[5] - box[2]]);
 }
 
 /**

@@ -91,7 +91,13 @@ export function meshTopology(mesh: IndexedMesh): MeshTopology {
   };
 }
 
-function countComponents(mesh: IndexedMesh): number {
+/**
+ * Connected parts of a mesh (triangles joined by shared vertices): for every vertex the id of its part, -1 for a
+ * vertex no triangle uses. Ids run from 0 in order of first appearance.
+ * @param mesh - the mesh
+ * @returns per-vertex part id and the number of parts
+ */
+export function componentOfVertex(mesh: IndexedMesh): { part: Int32Array; count: number } {
   const vertexCount = (mesh.positions.length / 3) | 0;
   const parent = new Int32Array(vertexCount);
   for (let i = 0; i < vertexCount; i++) parent[i] = i;
@@ -114,7 +120,18 @@ function countComponents(mesh: IndexedMesh): number {
     const a2 = find(a);
     if (c2 !== a2) parent[c2] = a2;
   }
-  let components = 0;
-  for (let i = 0; i < vertexCount; i++) if (used[i] && find(i) === i) components++;
-  return components;
+  const part = new Int32Array(vertexCount).fill(-1);
+  const idOfRoot = new Int32Array(vertexCount).fill(-1);
+  let count = 0;
+  for (let i = 0; i < vertexCount; i++) {
+    if (!used[i]) continue;
+    const root = find(i);
+    if (idOfRoot[root] < 0) idOfRoot[root] = count++;
+    part[i] = idOfRoot[root];
+  }
+  return { part, count };
+}
+
+function countComponents(mesh: IndexedMesh): number {
+  return componentOfVertex(mesh).count;
 }
