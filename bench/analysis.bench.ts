@@ -19,7 +19,8 @@ function toMesh(solid: Solid): IndexedMesh {
   const m = solid.getMesh();
   const count = m.vertProperties.length / m.numProp;
   const positions = new Float32Array(count * 3);
-  for (let i = 0; i < count; i++) for (let d = 0; d < 3; d++) positions[i * 3 + d] = m.vertProperties[i * m.numProp + d];
+  for (let i = 0; i < count; i++)
+    for (let d = 0; d < 3; d++) positions[i * 3 + d] = m.vertProperties[i * m.numProp + d];
   return { positions, indices: Uint32Array.from(m.triVerts) };
 }
 
@@ -58,17 +59,23 @@ export default async function bench(): Promise<void> {
   const { Manifold } = wasm;
 
   // A T shape (stem under a wide cap: a large overhang), refined to about 1 M and 100 k triangles.
-  const tShape = Manifold.cube([20, 20, 60]).translate([30, 30, 0]).add(Manifold.cube([80, 80, 10]).translate([0, 0, 60]));
+  const tShape = Manifold.cube([20, 20, 60])
+    .translate([30, 30, 0])
+    .add(Manifold.cube([80, 80, 10]).translate([0, 0, 60]));
   const big = toMesh(tShape.refine(Math.ceil(Math.sqrt(1_000_000 / tShape.numTri()))));
   const mid = toMesh(tShape.refine(Math.ceil(Math.sqrt(100_000 / tShape.numTri()))));
   const bigTris = big.indices.length / 3;
   const midTris = mid.indices.length / 3;
 
   const linearMs = best(5, () => measureMesh(big, 45));
-  console.log(`linear pass (volume, area, bbox, overhang, bed contact): ${fmt(bigTris)} triangles in ${fmt(linearMs)} ms = ${fmt(bigTris / linearMs / 1000)} M triangles/s (target ≥ 10)`);
+  console.log(
+    `linear pass (volume, area, bbox, overhang, bed contact): ${fmt(bigTris)} triangles in ${fmt(linearMs)} ms = ${fmt(bigTris / linearMs / 1000)} M triangles/s (target ≥ 10)`,
+  );
 
   const topoMs = best(2, () => meshTopology(big));
-  console.log(`edge topology + components: ${fmt(bigTris)} triangles in ${fmt(topoMs)} ms = ${fmt(bigTris / topoMs / 1000)} M triangles/s`);
+  console.log(
+    `edge topology + components: ${fmt(bigTris)} triangles in ${fmt(topoMs)} ms = ${fmt(bigTris / topoMs / 1000)} M triangles/s`,
+  );
 
   const stl = toBinaryStl(big);
   const parseMs = best(2, () => parseStl(stl));
@@ -79,14 +86,20 @@ export default async function bench(): Promise<void> {
   const supportMs = best(3, () => {
     rays = supportVolume(big, m.overhangMask, m.minMm, m.maxMm, { maxRays: 400_000 }).rays;
   });
-  console.log(`support rays (grid bins + build): ${fmt(rays)} rays in ${fmt(supportMs)} ms = ${fmt(rays / supportMs / 1000)} M rays/s on ${fmt(bigTris)} triangles`);
+  console.log(
+    `support rays (grid bins + build): ${fmt(rays)} rays in ${fmt(supportMs)} ms = ${fmt(rays / supportMs / 1000)} M rays/s on ${fmt(bigTris)} triangles`,
+  );
 
   let label = '';
   const searchMs = best(2, () => {
     label = searchOrientation(mid).best.label;
   });
-  console.log(`orientation search, 26 candidates: ${fmt(midTris)} triangles in ${fmt(searchMs)} ms (target < 2000); best: ${label}`);
+  console.log(
+    `orientation search, 26 candidates: ${fmt(midTris)} triangles in ${fmt(searchMs)} ms (target < 2000); best: ${label}`,
+  );
 
   const fullMs = best(1, () => analyzeGeometry(orientMesh(mid, '+z')));
-  console.log(`full geometry report (support 200k rays, 20k wall rays): ${fmt(midTris)} triangles in ${fmt(fullMs)} ms`);
+  console.log(
+    `full geometry report (support 200k rays, 20k wall rays): ${fmt(midTris)} triangles in ${fmt(fullMs)} ms`,
+  );
 }

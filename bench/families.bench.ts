@@ -34,15 +34,41 @@ export default async function bench(): Promise<void> {
   const matrix = time(() => buildVariantMatrix({ familyCode: 'BEN', axes, baseParams: {}, materialId: 'pla' }));
   console.log(`variant matrix: ${matrix.value.length} variants with SKUs in ${matrix.ms.toFixed(2)} ms`);
   const fake: Variant[] = matrix.value.map((cell, i) => ({
-    id: String(i), index: i, sku: cell.sku, variantKey: cell.variantKey, axisValues: cell.axisValues, params: cell.params,
-    attributes: cell.attributes, status: 'done', sha256: null, cost: null, verdict: 'warn', reasons: [], error: null,
-    report: { watertight: true, openEdges: 0, nonManifoldEdges: 0, fitsPrinter: true, supportVolumeMm3: i * 10 } as Variant['report'],
+    id: String(i),
+    index: i,
+    sku: cell.sku,
+    variantKey: cell.variantKey,
+    axisValues: cell.axisValues,
+    params: cell.params,
+    attributes: cell.attributes,
+    status: 'done',
+    sha256: null,
+    cost: null,
+    verdict: 'warn',
+    reasons: [],
+    error: null,
+    report: {
+      watertight: true,
+      openEdges: 0,
+      nonManifoldEdges: 0,
+      fitsPrinter: true,
+      supportVolumeMm3: i * 10,
+    } as Variant['report'],
     birdFitWarnings: [{ code: 'thin-walls', severity: 'warning', message: 'thin', source: 'x' }],
   }));
   const gate = time(() =>
-    evaluateFamilyGate({ computeState: 'done', supportBudgetMm3: 3000, templateVersion: 1, currentTemplateVersion: 1, variants: fake, acknowledgements: [] }),
+    evaluateFamilyGate({
+      computeState: 'done',
+      supportBudgetMm3: 3000,
+      templateVersion: 1,
+      currentTemplateVersion: 1,
+      variants: fake,
+      acknowledgements: [],
+    }),
   );
-  console.log(`family gate over ${fake.length} variants: ${gate.ms.toFixed(2)} ms (${gate.value.blockers.length} blockers)`);
+  console.log(
+    `family gate over ${fake.length} variants: ${gate.ms.toFixed(2)} ms (${gate.value.blockers.length} blockers)`,
+  );
 
   const { pg, db } = await openDatabase();
   await migrateDatabase(db);
@@ -50,19 +76,31 @@ export default async function bench(): Promise<void> {
   const [studio] = await db.insert(studios).values({ name: 'Bench' }).returning();
   const [person] = await db
     .insert(people)
-    .values({ email: 'bench@fernhollow.test', name: 'Bench', roles: ['designer'], studioId: studio.id, passwordHash: await hashPassword('bench-bench-bench') })
+    .values({
+      email: 'bench@fernhollow.test',
+      name: 'Bench',
+      roles: ['designer'],
+      studioId: studio.id,
+      passwordHash: await hashPassword('bench-bench-bench'),
+    })
     .returning();
   const ctx = createContext({ db, pg, env: EnvSchema.parse({ NODE_ENV: 'test' }), log: () => {} });
   const designer = { id: person.id, email: person.email, name: person.name, roles: person.roles };
   const family = await createFamily(ctx, designer, {
-    code: 'BEN', name: 'Bench Gable', description: '', templateId: 'gable-box',
+    code: 'BEN',
+    name: 'Bench Gable',
+    description: '',
+    templateId: 'gable-box',
     baseParams: { cavityDepthMm: 160, holeAboveFloorMm: 125 },
     axes: [
       { kind: 'param', key: 'entryHoleDiameterMm', values: [25, 28, 32] },
       { kind: 'param', key: 'trimStyle', values: ['none', 'shingles'] },
       { kind: 'attribute', key: 'colour', values: ['sand', 'moss-green'] },
     ],
-    supportBudgetMm3: 12_000, printerId: 'workhorse-220', materialId: 'pla', region: 'europe',
+    supportBudgetMm3: 12_000,
+    printerId: 'workhorse-220',
+    materialId: 'pla',
+    region: 'europe',
   });
   const [revision] = await db.select().from(familyRevisions).where(eq(familyRevisions.familyId, family.id));
   const jobs = familyJobs(ctx);
@@ -76,7 +114,9 @@ export default async function bench(): Promise<void> {
     await jobs.idle();
     stop();
     const ms = performance.now() - started;
-    const done = (await db.select().from(familyVariants).where(eq(familyVariants.revisionId, revision.id))).filter((v) => v.status === 'done');
+    const done = (await db.select().from(familyVariants).where(eq(familyVariants.revisionId, revision.id))).filter(
+      (v) => v.status === 'done',
+    );
     console.log(
       `family of ${done.length} variants (6 distinct geometries), ${round}: ${(ms / 1000).toFixed(2)} s in all, ` +
         `first variant after ${(first / 1000).toFixed(2)} s, ${(done.length / (ms / 1000)).toFixed(1)} variants/s`,

@@ -13,7 +13,9 @@ function rate(label: string, calls: number, fn: (i: number) => unknown): void {
   const started = performance.now();
   for (let i = 0; i < calls; i++) fn(i);
   const ms = performance.now() - started;
-  console.log(`${label}: ${Math.round((calls / ms) * 1000).toLocaleString('en')} calls/s (${(ms / calls * 1000).toFixed(1)} µs each)`);
+  console.log(
+    `${label}: ${Math.round((calls / ms) * 1000).toLocaleString('en')} calls/s (${((ms / calls) * 1000).toFixed(1)} µs each)`,
+  );
 }
 
 /** Prints calls per second of estimateProduction, assessOutdoor and assessBirdFit. */

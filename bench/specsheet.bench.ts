@@ -28,7 +28,10 @@ export default async function bench(): Promise<void> {
     const shaded = await timeMs(() => shadedViewSvg(mesh, { colourHex: '#d8c8a4' }));
     const variant = await catalogueVariantFixture({ sku: `FH-BENCH-${template.id}`, templateId: template.id });
     const pdf = await timeMs(() => renderSpecSheets([variant], { settings: DEFAULT_SALES_SETTINGS }));
-    const lines = drawing.value.front.visible.length / 4 + drawing.value.side.visible.length / 4 + drawing.value.top.visible.length / 4;
+    const lines =
+      drawing.value.front.visible.length / 4 +
+      drawing.value.side.visible.length / 4 +
+      drawing.value.top.visible.length / 4;
     console.log(
       `spec sheet ${template.id}: ${mesh.indices.length / 3} triangles; body ${built.ms.toFixed(0)} ms, ` +
         `drawing ${drawing.ms.toFixed(0)} ms (${lines} visible lines), shaded view ${shaded.ms.toFixed(0)} ms, ` +
@@ -40,5 +43,7 @@ export default async function bench(): Promise<void> {
   const rows = priceListRows(variants);
   const csv = await timeMs(() => priceListCsv(rows));
   const xlsx = await timeMs(() => priceListXlsx(rows));
-  console.log(`price list 500 rows: CSV ${csv.ms.toFixed(1)} ms (${(csv.value.length / 1024).toFixed(0)} KiB), XLSX ${xlsx.ms.toFixed(0)} ms (${(xlsx.value.length / 1024).toFixed(0)} KiB)`);
+  console.log(
+    `price list 500 rows: CSV ${csv.ms.toFixed(1)} ms (${(csv.value.length / 1024).toFixed(0)} KiB), XLSX ${xlsx.ms.toFixed(0)} ms (${(xlsx.value.length / 1024).toFixed(0)} KiB)`,
+  );
 }

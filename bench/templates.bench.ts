@@ -19,7 +19,10 @@ function percentile(values: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
-async function timeRuns(runs: number, body: (i: number) => Promise<unknown>): Promise<{ wall: number[]; cpu: number[] }> {
+async function timeRuns(
+  runs: number,
+  body: (i: number) => Promise<unknown>,
+): Promise<{ wall: number[]; cpu: number[] }> {
   const wall: number[] = [];
   const cpu: number[] = [];
   for (let i = 0; i < runs; i++) {
@@ -40,14 +43,20 @@ function line(label: string, t: { wall: number[]; cpu: number[] }, extra = ''): 
 
 /** Prints regeneration and export figures for every template. */
 export default async function bench(): Promise<void> {
-  console.log(`load average at start: ${loadavg().map((v) => v.toFixed(1)).join(' / ')} (1/5/15 min)`);
+  console.log(
+    `load average at start: ${loadavg()
+      .map((v) => v.toFixed(1))
+      .join(' / ')} (1/5/15 min)`,
+  );
   for (const template of TEMPLATES) {
     const first = performance.now();
     const defaults = await generate(template.id, {});
     const coldMs = performance.now() - first;
     for (let i = 0; i < 3; i++) await generate(template.id, {});
     const target = TARGET_P95_MS[template.id] ?? 100;
-    console.log(`${template.id} v${template.version}: ${defaults.triangles} triangles, ${defaults.partCount} parts, first build ${coldMs.toFixed(0)} ms, target p95 ≤ ${target} ms`);
+    console.log(
+      `${template.id} v${template.version}: ${defaults.triangles} triangles, ${defaults.partCount} parts, first build ${coldMs.toFixed(0)} ms, target p95 ≤ ${target} ms`,
+    );
     const atDefaults = await timeRuns(RUNS, () => generate(template.id, {}));
     console.log(line('defaults', atDefaults));
     const slider = await timeRuns(RUNS, (i) => generate(template.id, { entryHoleDiameterMm: 30 + (i % 10) * 0.5 }));
@@ -57,7 +66,9 @@ export default async function bench(): Promise<void> {
   try {
     for (const template of TEMPLATES) {
       await worker.run(template.id, {}, 'stl');
-      const exports = await timeRuns(EXPORT_RUNS, (i) => worker.run(template.id, { entryHoleDiameterMm: 31 + i * 0.5 }, 'stl'));
+      const exports = await timeRuns(EXPORT_RUNS, (i) =>
+        worker.run(template.id, { entryHoleDiameterMm: 31 + i * 0.5 }, 'stl'),
+      );
       console.log(line(`server export ${template.id}`, exports, ' (cpu = whole process, worker included)'));
     }
   } finally {
@@ -67,5 +78,9 @@ export default async function bench(): Promise<void> {
   const trunk = await generate('bark-trunk', {});
   const write = await timeRuns(5, async () => writeStl(trunk.mesh));
   console.log(line('writeStl bark-trunk', write));
-  console.log(`load average at end: ${loadavg().map((v) => v.toFixed(1)).join(' / ')}`);
+  console.log(
+    `load average at end: ${loadavg()
+      .map((v) => v.toFixed(1))
+      .join(' / ')}`,
+  );
 }

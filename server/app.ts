@@ -78,7 +78,9 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   if (options.clientDir) app.use(serveClient(options.clientDir));
 
   app.use(
-    errorHandler((err) => ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`)),
+    errorHandler((err) =>
+      ctx.log(`Unexpected error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`),
+    ),
   );
   return app;
 }

@@ -11,7 +11,11 @@ const env = loadEnv({ NODE_ENV: 'development', ...process.env });
 const { createServer } = await import('vite');
 // One port: Vite's hot-reload WebSocket shares the HTTP server that serves the API and the pages.
 const httpServer = createHttpServer();
-const vite = await createServer({ root, server: { middlewareMode: true, hmr: { server: httpServer } }, appType: 'custom' });
+const vite = await createServer({
+  root,
+  server: { middlewareMode: true, hmr: { server: httpServer } },
+  appType: 'custom',
+});
 
 const server = await boot({
   env,
@@ -27,7 +31,10 @@ const server = await boot({
         return;
       }
       const template = await readFile(join(root, 'index.html'), 'utf8');
-      res.status(200).set('Content-Type', 'text/html').end(await vite.transformIndexHtml(req.originalUrl, template));
+      res
+        .status(200)
+        .set('Content-Type', 'text/html')
+        .end(await vite.transformIndexHtml(req.originalUrl, template));
     });
   },
 });

@@ -10,13 +10,17 @@ import { loadEnv } from './env';
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const env = loadEnv();
 const started = performance.now();
-const server = await boot({ env, dataDir: env.DATA_DIR, port: env.PORT, clientDir: resolve(root, 'dist/client') }).catch(
-  (err: unknown) => {
-    if ((err as { code?: string }).code === 'EADDRINUSE') console.error(`Port ${env.PORT} is in use: stop the other server or set PORT.`);
-    else console.error(err);
-    process.exit(1);
-  },
-);
+const server = await boot({
+  env,
+  dataDir: env.DATA_DIR,
+  port: env.PORT,
+  clientDir: resolve(root, 'dist/client'),
+}).catch((err: unknown) => {
+  if ((err as { code?: string }).code === 'EADDRINUSE')
+    console.error(`Port ${env.PORT} is in use: stop the other server or set PORT.`);
+  else console.error(err);
+  process.exit(1);
+});
 console.log(
   `  server ready (${Math.round(performance.now() - started)} ms; ${Math.round(performance.now())} ms since the process started)`,
 );

@@ -12,33 +12,52 @@ const parameters = z
     entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
     holeAboveFloorMm: commonParameters.holeAboveFloorMm(125),
     cavityDiameterMm: z.number().min(90).max(160).default(100).meta({
-      label: 'Chamber diameter', unit: 'mm', step: 1, help: 'Inside diameter of each round chamber (its floor).',
+      label: 'Chamber diameter',
+      unit: 'mm',
+      step: 1,
+      help: 'Inside diameter of each round chamber (its floor).',
     }),
     cavityDepthMm: z.number().min(140).max(260).default(160).meta({
-      label: 'Chamber depth', unit: 'mm', step: 1,
+      label: 'Chamber depth',
+      unit: 'mm',
+      step: 1,
       help: 'Inside floor up to where the pointed ceiling starts; keep the top of the entry below it. The trunk stands about chamber depth + chamber radius + 42 mm tall per storey with the hanging tab.',
     }),
     storeys: z.number().int().min(1).max(2).default(1).meta({
-      label: 'Storeys', unit: 'count', step: 1,
+      label: 'Storeys',
+      unit: 'count',
+      step: 1,
       help: 'One or two chambers stacked, each with its own entry; two storeys are taller than most build volumes.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
     barkDepthMm: z.number().min(0).max(3).default(2).meta({
-      label: 'Bark depth', unit: 'mm', step: 0.1, help: 'Depth of the bark furrows on the outside; 0 gives a smooth trunk.',
+      label: 'Bark depth',
+      unit: 'mm',
+      step: 0.1,
+      help: 'Depth of the bark furrows on the outside; 0 gives a smooth trunk.',
     }),
     barkSeed: z.number().int().min(1).max(999).default(7).meta({
-      label: 'Bark pattern', unit: 'count', step: 1, help: 'Pick another number for another bark pattern.',
+      label: 'Bark pattern',
+      unit: 'count',
+      step: 1,
+      help: 'Pick another number for another bark pattern.',
     }),
     knotRimMm: z.number().min(0).max(10).default(5).meta({
-      label: 'Knot rim', unit: 'mm', step: 0.5,
+      label: 'Knot rim',
+      unit: 'mm',
+      step: 0.5,
       help: 'Width of the knot-like rim round each entry (below 1 mm: no rim); it also thickens the wall against enlarging the hole.',
     }),
     mountRadiusMm: z.number().min(50).max(600).default(150).meta({
-      label: 'Tree radius', unit: 'mm', step: 5,
+      label: 'Tree radius',
+      unit: 'mm',
+      step: 5,
       help: 'Radius of the trunk or pole the concave back sits against.',
     }),
     flatBack: z.boolean().default(false).meta({
-      label: 'Flat back', unit: '', help: 'A flat back for a wall or post instead of the concave one.',
+      label: 'Flat back',
+      unit: '',
+      help: 'A flat back for a wall or post instead of the concave one.',
     }),
     ventilationSlots: commonParameters.ventilationSlots(2),
     drainageHoles: commonParameters.drainageHoles(4),
@@ -100,7 +119,9 @@ export const barkTrunk: Template<typeof parameters> = {
       // Keep the hole (and its rim) under the pointed ceiling.
       // parseParams has checked the entry against barkMaxHoleAboveFloorMm, so each hole sits exactly where asked.
       const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-      cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ));
+      cuts.push(
+        Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ),
+      );
       // Under 1 mm the rim would only graze the hole's own outline (zero-volume slivers), so it is left off.
       if (p.knotRimMm >= 1) {
         // Tip-down outline: the rim's underside is a 45° V, so it prints without support.

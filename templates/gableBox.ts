@@ -11,30 +11,46 @@ const parameters = z
     entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
     holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
     floorWidthMm: z.number().min(80).max(200).default(112).meta({
-      label: 'Floor width', unit: 'mm', step: 1, help: 'Inside floor, side to side.',
+      label: 'Floor width',
+      unit: 'mm',
+      step: 1,
+      help: 'Inside floor, side to side.',
     }),
     floorDepthMm: z.number().min(80).max(200).default(120).meta({
-      label: 'Floor depth', unit: 'mm', step: 1, help: 'Inside floor, front to back.',
+      label: 'Floor depth',
+      unit: 'mm',
+      step: 1,
+      help: 'Inside floor, front to back.',
     }),
     cavityDepthMm: z.number().min(120).max(300).default(170).meta({
-      label: 'Cavity depth', unit: 'mm', step: 1,
+      label: 'Cavity depth',
+      unit: 'mm',
+      step: 1,
       help: 'Inside floor up to where the roof meets the side walls; keep the top of the entry below it. Over about 180 mm the box no longer fits a 250 mm build height.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
     roofPitchDeg: z.number().min(45).max(65).default(47).meta({
-      label: 'Roof pitch', unit: 'deg', step: 1,
+      label: 'Roof pitch',
+      unit: 'deg',
+      step: 1,
       help: 'Roof slope from horizontal. The box prints roof-down, so 45° or steeper keeps the roof self-supporting.',
     }),
     ridgeFlatMm: z.number().min(3).max(20).default(6.35).meta({
-      label: 'Ridge strip width', unit: 'mm', step: 0.05,
+      label: 'Ridge strip width',
+      unit: 'mm',
+      step: 0.05,
       help: 'The ridge is cut to a flat strip that rests on the build plate; wider holds better on the plate.',
     }),
     roofOverhangMm: z.number().min(0).max(50).default(25).meta({
-      label: 'Roof overhang', unit: 'mm', step: 1,
+      label: 'Roof overhang',
+      unit: 'mm',
+      step: 1,
       help: 'How far the roof reaches past the side and front walls; it shades the box and keeps rain off the entry.',
     }),
     trimStyle: z.enum(['none', 'shingles', 'boards']).default('none').meta({
-      label: 'Trim', unit: '', help: 'Shingle rows on the roof or board grooves on the walls; both print without support.',
+      label: 'Trim',
+      unit: '',
+      help: 'Shingle rows on the roof or board grooves on the walls; both print without support.',
     }),
     ventilationSlots: commonParameters.ventilationSlots(2),
     drainageHoles: commonParameters.drainageHoles(4),
@@ -146,7 +162,16 @@ export const gableBox: Template<typeof parameters> = {
     if (p.trimStyle === 'boards') cuts.push(...boardGrooves(W, D, t, innerRoofZ));
     if (p.trimStyle === 'shingles') {
       const firstRowX = p.ridgeFlatMm / 2 + SHINGLE_PROUD_MM / sin + 1;
-      additions.push(...shingleRows({ fromXMm: firstRowX, toXMm: eaveX, outerZ: outerRoofZ, pitchDeg: p.roofPitchDeg, fromYMm: frontY - o, toYMm: D / 2 + t }));
+      additions.push(
+        ...shingleRows({
+          fromXMm: firstRowX,
+          toXMm: eaveX,
+          outerZ: outerRoofZ,
+          pitchDeg: p.roofPitchDeg,
+          fromYMm: frontY - o,
+          toYMm: D / 2 + t,
+        }),
+      );
     }
 
     const box = Solid.prism(wallsOutline, 'y', frontY, D / 2 + t)
@@ -262,8 +287,14 @@ function drainHoles(W: number, D: number, count: number, heightMm: number): Soli
   const ix = W / 2 - 15;
   const iy = D / 2 - 15;
   const spots: [number, number][] = [
-    [-ix, -iy], [ix, -iy], [ix, iy], [-ix, iy],
-    [0, -iy], [ix, 0], [0, iy], [-ix, 0],
+    [-ix, -iy],
+    [ix, -iy],
+    [ix, iy],
+    [-ix, iy],
+    [0, -iy],
+    [ix, 0],
+    [0, iy],
+    [-ix, 0],
   ];
   return spots
     .slice(0, count)

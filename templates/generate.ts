@@ -55,4 +55,3 @@ export async function generate(templateId: string, rawParams: unknown): Promise<
     sha256: await meshHash(mesh),
   };
 }
-

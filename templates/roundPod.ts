@@ -12,21 +12,29 @@ const parameters = z
     entryHoleDiameterMm: commonParameters.entryHoleDiameterMm(32),
     holeAboveFloorMm: commonParameters.holeAboveFloorMm(130),
     bodyDiameterMm: z.number().min(150).max(240).default(180).meta({
-      label: 'Body diameter', unit: 'mm', step: 1, help: 'Widest outside diameter of the pod.',
+      label: 'Body diameter',
+      unit: 'mm',
+      step: 1,
+      help: 'Widest outside diameter of the pod.',
     }),
     bodyHeightMm: z.number().min(200).max(320).default(228).meta({
-      label: 'Body height', unit: 'mm', step: 1,
+      label: 'Body height',
+      unit: 'mm',
+      step: 1,
       help: 'Outside height from the flat printing face to the top (the hanging eye adds 18 mm); taller than wide makes an egg.',
     }),
     floorDiameterMm: z.number().min(80).max(150).default(110).meta({
-      label: 'Floor diameter', unit: 'mm', step: 1,
+      label: 'Floor diameter',
+      unit: 'mm',
+      step: 1,
       help: 'Inside floor diameter; it is reduced when the body is too narrow for it.',
     }),
     wallThicknessMm: commonParameters.wallThicknessMm(10),
     ventilationSlots: commonParameters.ventilationSlots(2),
     drainageHoles: commonParameters.drainageHoles(4),
     hangingHole: z.boolean().default(true).meta({
-      label: 'Hanging eye', unit: '',
+      label: 'Hanging eye',
+      unit: '',
       help: 'A tab with a hole on top to hang the pod by wire; hang it out of reach of predators and follow local guidance on height.',
     }),
     perch: commonParameters.perch(),
@@ -62,11 +70,27 @@ export const roundPod: Template<typeof parameters> = {
     const { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner, ceiling } = podFrame(p);
 
     const outer = Solid.revolve(
-      eggProfile({ radiusMm: a, upperMm: upper, lowerMm: lower, cutZMm: cutZ, steps: PROFILE_STEPS, coneTop: true, coneBottom: true }),
+      eggProfile({
+        radiusMm: a,
+        upperMm: upper,
+        lowerMm: lower,
+        cutZMm: cutZ,
+        steps: PROFILE_STEPS,
+        coneTop: true,
+        coneBottom: true,
+      }),
       SEGMENTS,
     );
     const cavity = Solid.revolve(
-      eggProfile({ radiusMm: ai, upperMm: upperInner, lowerMm: bli, cutZMm: floorZ, steps: PROFILE_STEPS, coneTop: true, coneBottom: false }),
+      eggProfile({
+        radiusMm: ai,
+        upperMm: upperInner,
+        lowerMm: bli,
+        cutZMm: floorZ,
+        steps: PROFILE_STEPS,
+        coneTop: true,
+        coneBottom: false,
+      }),
       SEGMENTS,
     );
     const additions: Solid[] = [];
@@ -75,7 +99,9 @@ export const roundPod: Template<typeof parameters> = {
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-    cuts.push(Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', -a - 2, -ai * 0.3).translate(0, 0, holeCentreZ));
+    cuts.push(
+      Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', -a - 2, -ai * 0.3).translate(0, 0, holeCentreZ),
+    );
 
     const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
     for (let i = 0; i < p.ventilationSlots; i++) {
@@ -110,7 +136,10 @@ export const roundPod: Template<typeof parameters> = {
     cuts.push(...floor.cuts);
     const plug = floor.plug;
 
-    const body = outer.add(...additions).subtract(...cuts).translate(0, 0, -cutZ);
+    const body = outer
+      .add(...additions)
+      .subtract(...cuts)
+      .translate(0, 0, -cutZ);
     const parts = [{ name: 'body', geometry: toGeom3(body) }];
     if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
     return {

@@ -26,7 +26,9 @@ describe('npm run cli -- analyze', () => {
       expect(table.stdout).toMatch(/Cost per unit/);
       const broken = join(dir, 'broken.stl');
       await writeFile(broken, Buffer.from('not a mesh at all'));
-      const failed = await run('npx', ['tsx', 'server/cli/index.ts', 'analyze', '--in', broken]).catch((err: { code: number; stderr: string }) => err);
+      const failed = await run('npx', ['tsx', 'server/cli/index.ts', 'analyze', '--in', broken]).catch(
+        (err: { code: number; stderr: string }) => err,
+      );
       expect(failed).toMatchObject({ code: 1 });
       expect((failed as { stderr: string }).stderr).toMatch(/not_a_mesh/);
     } finally {

@@ -89,7 +89,15 @@ describe('overhang: the 45° rule', () => {
   const H = 20;
   const wedge = (deg: number): IndexedMesh => {
     const d = H * Math.tan((deg * Math.PI) / 180);
-    return prismXZ([[0, 0], [5, 0], [5 + d, H], [0, H]], 10);
+    return prismXZ(
+      [
+        [0, 0],
+        [5, 0],
+        [5 + d, H],
+        [0, H],
+      ],
+      10,
+    );
   };
 
   it('a slope 44° from vertical needs no support', () => {
@@ -124,7 +132,9 @@ describe('overhang: the 45° rule', () => {
 describe('support volume of known overhangs', () => {
   it('T shape, cap on top: support is (cap area − stem area) × stem height (analytic)', () => {
     const { Manifold } = wasm;
-    const t = Manifold.cube([10, 10, 30]).translate([15, 15, 0]).add(Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
+    const t = Manifold.cube([10, 10, 30])
+      .translate([15, 15, 0])
+      .add(Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
     const r = analyzeGeometry(manifoldToMesh(t)).report;
     expect(r.watertight).toBe(true);
     expect(r.supportVolumeMm3 / ((40 * 40 - 10 * 10) * 30)).toBeCloseTo(1, 2);
@@ -134,7 +144,9 @@ describe('support volume of known overhangs', () => {
 
   it('T shape upside down needs no support; its cap is the bed contact', () => {
     const { Manifold } = wasm;
-    const t = Manifold.cube([10, 10, 30]).translate([15, 15, 0]).add(Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
+    const t = Manifold.cube([10, 10, 30])
+      .translate([15, 15, 0])
+      .add(Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
     const r = analyzeGeometry(manifoldToMesh(t), { up: '-z' }).report;
     expect(r.supportVolumeMm3).toBe(0);
     expect(r.bedContactAreaMm2).toBeCloseTo(1600, 3);
@@ -190,7 +202,10 @@ describe('watertight, components, thinnest wall', () => {
     expect(meshTopology(holed)).toMatchObject({ watertight: false, openEdges: 3 });
     const flipped = cube.indices.slice();
     [flipped[1], flipped[2]] = [flipped[2], flipped[1]];
-    expect(meshTopology({ positions: cube.positions, indices: flipped })).toMatchObject({ watertight: false, misorientedEdges: 3 });
+    expect(meshTopology({ positions: cube.positions, indices: flipped })).toMatchObject({
+      watertight: false,
+      misorientedEdges: 3,
+    });
     const extra = new Uint32Array(cube.indices.length + 3);
     extra.set(cube.indices);
     extra.set([cube.indices[0], cube.indices[2], cube.indices[1]], cube.indices.length);
@@ -234,22 +249,36 @@ describe('build orientation and plate', () => {
   it('keeps volume, area and the lowest point on the plate for any box in any named orientation (property)', () => {
     const dim = fc.double({ min: 1, max: 200, noNaN: true });
     fc.assert(
-      fc.property(dim, dim, dim, fc.constantFrom('+z', '-z', '+x', '-x', '+y', '-y') as fc.Arbitrary<'+z'>, (a, b, c, up) => {
-        const oriented = measureMesh(orientMesh(geomToMesh(box([3, -7, 11], [3 + a, -7 + b, 11 + c])), up));
-        // analytic: a·b·c and 2(ab + bc + ca), float32 vertices: relative tolerance
-        expect(oriented.volumeMm3 / (a * b * c)).toBeCloseTo(1, 4);
-        expect(oriented.surfaceAreaMm2 / (2 * (a * b + b * c + c * a))).toBeCloseTo(1, 4);
-        expect(oriented.minMm[2]).toBeCloseTo(0, 4);
-      }),
+      fc.property(
+        dim,
+        dim,
+        dim,
+        fc.constantFrom('+z', '-z', '+x', '-x', '+y', '-y') as fc.Arbitrary<'+z'>,
+        (a, b, c, up) => {
+          const oriented = measureMesh(orientMesh(geomToMesh(box([3, -7, 11], [3 + a, -7 + b, 11 + c])), up));
+          // analytic: a·b·c and 2(ab + bc + ca), float32 vertices: relative tolerance
+          expect(oriented.volumeMm3 / (a * b * c)).toBeCloseTo(1, 4);
+          expect(oriented.surfaceAreaMm2 / (2 * (a * b + b * c + c * a))).toBeCloseTo(1, 4);
+          expect(oriented.minMm[2]).toBeCloseTo(0, 4);
+        },
+      ),
       { numRuns: 60 },
     );
   });
 
   it('grid-packs copies with a spacing and turns them when that fits more', () => {
     // analytic: floor((B + s) / (f + s)) per axis
-    expect(buildPlateFit([50, 50, 40], [220, 220, 250], 10)).toEqual({ fits: true, copiesPerPlate: 9, turnedOnPlate: false });
+    expect(buildPlateFit([50, 50, 40], [220, 220, 250], 10)).toEqual({
+      fits: true,
+      copiesPerPlate: 9,
+      turnedOnPlate: false,
+    });
     // straight 2 × 5 = 10; turned: 6 across (6·30 + 5·10 = 230 ≤ 250) × 2 deep (2·100 + 10 = 210 ≤ 210) = 12
-    expect(buildPlateFit([100, 30, 40], [250, 210, 210], 10)).toEqual({ fits: true, copiesPerPlate: 12, turnedOnPlate: true });
+    expect(buildPlateFit([100, 30, 40], [250, 210, 210], 10)).toEqual({
+      fits: true,
+      copiesPerPlate: 12,
+      turnedOnPlate: true,
+    });
     expect(buildPlateFit([230, 100, 40], [250, 210, 210], 10)).toMatchObject({ fits: true, copiesPerPlate: 2 });
     expect(buildPlateFit([100, 100, 260], [256, 256, 256], 10)).toMatchObject({ fits: false, copiesPerPlate: 0 });
     expect(buildPlateFit([240, 240, 10], [220, 220, 250], 10).fits).toBe(false);

@@ -51,7 +51,9 @@ describe('outdoor section of the analysis report', () => {
     expect(black.outdoor.heatDeflectionC).toBe(55);
     expect(black.outdoor.verdict).toBe('fail');
     expect(white.outdoor.verdict).toBe('ok');
-    expect(black.warnings.some((w) => /heat-deflection temperature of 55 °C \(roof about 82 °C, wall about 64 °C\)/.test(w))).toBe(true);
+    expect(
+      black.warnings.some((w) => /heat-deflection temperature of 55 °C \(roof about 82 °C, wall about 64 °C\)/.test(w)),
+    ).toBe(true);
     expect(white.warnings.some((w) => /heat-deflection/.test(w))).toBe(false);
     // The caution defers to local rules and expert practice.
     expect(black.outdoor.cautions.join(' ')).toMatch(/local rules/);
@@ -96,7 +98,9 @@ describe('outdoor section of the analysis report', () => {
       const json = await run('npx', [...cli, '--colour', 'white', '--json']);
       const report = AnalysisReportSchema.parse(JSON.parse(json.stdout));
       expect(report.outdoor.roof.solAirC).toBeCloseTo(40.8, 1); // trade-facts §2c, α 0.25
-      const bad = await run('npx', [...cli, '--colour', 'tartan']).catch((err: { code: number; stderr: string }) => err);
+      const bad = await run('npx', [...cli, '--colour', 'tartan']).catch(
+        (err: { code: number; stderr: string }) => err,
+      );
       expect(bad).toMatchObject({ code: 2 });
       expect((bad as { stderr: string }).stderr).toMatch(/Unknown colour/);
     } finally {
@@ -109,7 +113,11 @@ describe('POST /api/analyses with colourId', () => {
   it('returns the outdoor section for the colour and answers 400 naming colourId for an unknown one', async () => {
     const designer = await t.agent('designer');
     const stl = Buffer.from(toBinaryStl(geomToMesh(box([0, 0, 0], [20, 20, 20]))));
-    const res = await designer.post('/api/analyses').field('materialId', 'pla').field('colourId', 'black').attach('file', stl, 'cube.stl');
+    const res = await designer
+      .post('/api/analyses')
+      .field('materialId', 'pla')
+      .field('colourId', 'black')
+      .attach('file', stl, 'cube.stl');
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const report = AnalysisReportSchema.parse(res.body);
     expect(report.outdoor.colourId).toBe('black');

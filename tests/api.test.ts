@@ -56,7 +56,12 @@ describe('bad input', () => {
   });
 
   it('malformed JSON on sign-in -> 400 bad_json, not a rate-limit count or a 500', async () => {
-    const res = await (await t.agent(null)).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('nope');
+    const res = await (
+      await t.agent(null)
+    )
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('nope');
     expect(res.status).toBe(400);
     expect(errorOf(res).code).toBe('bad_json');
   });
@@ -81,7 +86,9 @@ describe('bad input', () => {
     const error = errorOf(res);
     expect(error.code).toBe('bad_request');
     expect(error.message.startsWith(`${field}: `), error.message).toBe(true);
-    expect(error.details).toEqual(expect.arrayContaining([expect.objectContaining({ path: field === 'body' ? '' : field })]));
+    expect(error.details).toEqual(
+      expect.arrayContaining([expect.objectContaining({ path: field === 'body' ? '' : field })]),
+    );
   });
 
   it('PATCH /api/people/:id with an unknown role -> 400 naming roles.0', async () => {

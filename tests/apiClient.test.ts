@@ -28,7 +28,11 @@ afterEach(() => {
 describe('api()', () => {
   it('sends JSON with same-origin credentials under /api and returns the answer parsed by the schema', async () => {
     const calls = stubFetch(() => json(200, { person: PERSON }));
-    const me = await api('/auth/sign-in', { method: 'POST', body: { email: 'a@b.test', password: 'x' }, schema: MeSchema });
+    const me = await api('/auth/sign-in', {
+      method: 'POST',
+      body: { email: 'a@b.test', password: 'x' },
+      schema: MeSchema,
+    });
     expect(me.person.roles).toEqual(['designer']);
     const [url, init] = calls[0]!;
     expect(url).toBe('/api/auth/sign-in');
@@ -60,7 +64,9 @@ describe('api()', () => {
     expect(((await api('/auth/sign-in').catch((e: unknown) => e)) as ApiError).retryAfterSec).toBe(900);
 
     const inTwoMinutes = new Date(Date.now() + 120_000).toUTCString();
-    stubFetch(() => json(429, { error: { code: 'too_many_attempts', message: 'Too many' } }, { 'Retry-After': inTwoMinutes }));
+    stubFetch(() =>
+      json(429, { error: { code: 'too_many_attempts', message: 'Too many' } }, { 'Retry-After': inTwoMinutes }),
+    );
     const seconds = ((await api('/auth/sign-in').catch((e: unknown) => e)) as ApiError).retryAfterSec!;
     // An HTTP date has whole-second resolution: within 2 s of 120 s (common practice, no source).
     expect(Math.abs(seconds - 120)).toBeLessThanOrEqual(2);
@@ -109,7 +115,9 @@ describe('signInErrorMessage()', () => {
     expect(signInErrorMessage(new ApiError(429, 'too_many_attempts', 'Wait 15 minutes and try again.'))).toBe(
       'Too many attempts, try again in 15 minutes.',
     );
-    expect(signInErrorMessage(new ApiError(429, 'too_many_attempts', 'Slow down'))).toBe('Too many attempts, try again later.');
+    expect(signInErrorMessage(new ApiError(429, 'too_many_attempts', 'Slow down'))).toBe(
+      'Too many attempts, try again later.',
+    );
   });
 
   it('passes on the network message and has a fallback for anything else', () => {

@@ -32,19 +32,25 @@ function sessionCookie(res: { headers: Record<string, unknown> }): { value: stri
 const signInBody = (email: string, password = DEMO_PASSWORD) => ({ email, password });
 
 describe('sign-in', () => {
-  it.each(DEMO_PEOPLE.map((person) => [person.email, person]))('%s signs in and sees their roles', async (_e, person) => {
-    const agent = supertest.agent(t.app).set('Origin', TEST_ORIGIN);
-    const res = await agent.post('/api/auth/sign-in').send(signInBody(person.email));
-    expect(res.status).toBe(200);
-    expect(res.body.person).toMatchObject({ email: person.email, name: person.name, roles: person.roles });
-    expect(res.body.person.passwordHash).toBeUndefined();
-    const me = await agent.get('/api/auth/me');
-    expect(me.status).toBe(200);
-    expect(me.body.person.email).toBe(person.email);
-  });
+  it.each(DEMO_PEOPLE.map((person) => [person.email, person]))(
+    '%s signs in and sees their roles',
+    async (_e, person) => {
+      const agent = supertest.agent(t.app).set('Origin', TEST_ORIGIN);
+      const res = await agent.post('/api/auth/sign-in').send(signInBody(person.email));
+      expect(res.status).toBe(200);
+      expect(res.body.person).toMatchObject({ email: person.email, name: person.name, roles: person.roles });
+      expect(res.body.person.passwordHash).toBeUndefined();
+      const me = await agent.get('/api/auth/me');
+      expect(me.status).toBe(200);
+      expect(me.body.person.email).toBe(person.email);
+    },
+  );
 
   it('accepts the e-mail in any case and with spaces', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send(signInBody('  MAREN@Fernhollow.TEST '));
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .set('Origin', TEST_ORIGIN)
+      .send(signInBody('  MAREN@Fernhollow.TEST '));
     expect(res.status).toBe(200);
   });
 
@@ -66,7 +72,10 @@ describe('sign-in', () => {
   });
 
   it('sets an HttpOnly, SameSite=Lax, Path=/ cookie, not Secure over plain HTTP', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send(signInBody('ada@fernhollow.test'));
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .set('Origin', TEST_ORIGIN)
+      .send(signInBody('ada@fernhollow.test'));
     const cookie = sessionCookie(res);
     expect(cookie?.value.length).toBeGreaterThanOrEqual(20);
     expect(cookie?.attributes).toEqual(expect.arrayContaining(['httponly', 'samesite=lax', 'path=/']));
@@ -116,7 +125,10 @@ describe('sign-out and sessions', () => {
   });
 
   it('an old cookie no longer works after sign-out', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send(signInBody('ada@fernhollow.test'));
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .set('Origin', TEST_ORIGIN)
+      .send(signInBody('ada@fernhollow.test'));
     const cookie = `${SESSION_COOKIE_NAME}=${sessionCookie(res)!.value}`;
     await supertest(t.app).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', cookie).expect(204);
     const me = await supertest(t.app).get('/api/auth/me').set('Cookie', cookie);
@@ -130,16 +142,25 @@ describe('sign-out and sessions', () => {
   });
 
   it('an expired session is refused and its cookie cleared', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send(signInBody('tobias@fernhollow.test'));
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .set('Origin', TEST_ORIGIN)
+      .send(signInBody('tobias@fernhollow.test'));
     const id = sessionCookie(res)!.value;
-    await t.ctx.db.update(sessions).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, id));
+    await t.ctx.db
+      .update(sessions)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(sessions.id, id));
     const me = await supertest(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE_NAME}=${id}`);
     expect(me.status).toBe(401);
     expect(sessionCookie(me)?.value).toBe('');
   });
 
   it('a session used in the second half of its life is renewed (new expiry and cookie)', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send(signInBody('tobias@fernhollow.test'));
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .set('Origin', TEST_ORIGIN)
+      .send(signInBody('tobias@fernhollow.test'));
     const id = sessionCookie(res)!.value;
     const oneDayLeft = new Date(Date.now() + 24 * 3600 * 1000);
     await t.ctx.db.update(sessions).set({ expiresAt: oneDayLeft }).where(eq(sessions.id, id));
@@ -199,7 +220,8 @@ describe('rate-limited sign-in', () => {
     try {
       const attempt = (email: string, password: string) =>
         supertest(limited.app).post('/api/auth/sign-in').set('Origin', TEST_ORIGIN).send({ email, password });
-      for (let i = 0; i < SIGN_IN_ATTEMPTS; i++) expect((await attempt('maren@fernhollow.test', `guess-${i}`)).status).toBe(401);
+      for (let i = 0; i < SIGN_IN_ATTEMPTS; i++)
+        expect((await attempt('maren@fernhollow.test', `guess-${i}`)).status).toBe(401);
       const blocked = await attempt('maren@fernhollow.test', DEMO_PASSWORD);
       expect(blocked.status).toBe(429);
       expect(blocked.body.error.code).toBe('too_many_attempts');
@@ -216,7 +238,12 @@ describe('people (admin)', () => {
     const admin = await t.agent('admin');
     const created = await admin
       .post('/api/people')
-      .send({ email: 'Wren@Fernhollow.test', name: 'Wren Ashby', roles: ['designer', 'sales'], password: 'wren-password-1' });
+      .send({
+        email: 'Wren@Fernhollow.test',
+        name: 'Wren Ashby',
+        roles: ['designer', 'sales'],
+        password: 'wren-password-1',
+      });
     expect(created.status).toBe(201);
     expect(created.body.person).toMatchObject({ email: 'wren@fernhollow.test', roles: ['designer', 'sales'] });
     const again = await admin
@@ -239,12 +266,18 @@ describe('people (admin)', () => {
     expect(patched.status).toBe(200);
     expect(patched.body.person.roles).toEqual(['sales', 'admin']);
     expect((await sales.get('/api/people')).status).toBe(200);
-    const events = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.subject, `person:${me.id}`));
+    const events = await t.ctx.db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.subject, `person:${me.id}`));
     const change = events.find((event) => event.action === 'person.roles_changed');
     expect(change?.details).toEqual({ before: ['sales'], after: ['sales', 'admin'] });
     const adminId = (await admin.get('/api/auth/me')).body.person.id;
     expect(change?.actorId).toBe(adminId);
-    await admin.patch(`/api/people/${me.id}`).send({ roles: ['sales'] }).expect(200);
+    await admin
+      .patch(`/api/people/${me.id}`)
+      .send({ roles: ['sales'] })
+      .expect(200);
   });
 
   it('will not remove the last admin', async () => {

@@ -106,7 +106,12 @@ const ROUTES: AuthzRow[] = [
     allowed: ['designer'],
     body: () => smallFamilyBody(),
   },
-  { method: 'get', route: '/api/families/:id', path: seededFamilyPath('HGB'), allowed: ['designer', 'catalogue_manager'] },
+  {
+    method: 'get',
+    route: '/api/families/:id',
+    path: seededFamilyPath('HGB'),
+    allowed: ['designer', 'catalogue_manager'],
+  },
   {
     method: 'patch',
     route: '/api/families/:id',
@@ -133,7 +138,11 @@ const ROUTES: AuthzRow[] = [
     route: '/api/families/:id/acknowledgements',
     path: ackFamilyPath,
     allowed: ['designer'],
-    body: { acknowledgements: [{ code: 'thin-walls', text: 'Walls are 10 mm printed PLA; listing carries the heat caution.' }] },
+    body: {
+      acknowledgements: [
+        { code: 'thin-walls', text: 'Walls are 10 mm printed PLA; listing carries the heat caution.' },
+      ],
+    },
   },
   { method: 'post', route: '/api/families/:id/submit', path: submittableFamilyPath, allowed: ['designer'], body: {} },
   {
@@ -150,7 +159,13 @@ const ROUTES: AuthzRow[] = [
     allowed: ['catalogue_manager'],
     body: { comments: 'Please add a photo of the floor plug.' },
   },
-  { method: 'post', route: '/api/families/:id/publish', path: approvedFamilyPath, allowed: ['catalogue_manager'], body: {} },
+  {
+    method: 'post',
+    route: '/api/families/:id/publish',
+    path: approvedFamilyPath,
+    allowed: ['catalogue_manager'],
+    body: {},
+  },
   {
     method: 'post',
     route: '/api/families/:id/retire',
@@ -186,7 +201,11 @@ const ROUTES: AuthzRow[] = [
     method: 'post',
     route: '/api/analyses',
     allowed: ['designer'],
-    attach: { field: 'file', filename: 'cube.stl', bytes: async () => Buffer.from(toBinaryStl(geomToMesh(box([0, 0, 0], [20, 20, 20])))) },
+    attach: {
+      field: 'file',
+      filename: 'cube.stl',
+      bytes: async () => Buffer.from(toBinaryStl(geomToMesh(box([0, 0, 0], [20, 20, 20])))),
+    },
   },
   // Sales: spec sheets, price lists, quotes (sales and catalogue managers); settings (read: + admin, write: admin).
   {
@@ -309,7 +328,11 @@ afterAll(async () => {
 
 describe('authorization table', () => {
   const cases = ROUTES.flatMap((row) =>
-    CALLERS.map((caller) => ({ row, caller, label: `${row.method.toUpperCase()} ${row.route} as ${caller ?? 'nobody'}` })),
+    CALLERS.map((caller) => ({
+      row,
+      caller,
+      label: `${row.method.toUpperCase()} ${row.route} as ${caller ?? 'nobody'}`,
+    })),
   );
   it.each(cases)('$label', async ({ row, caller }) => {
     const agent = await t.agent(caller, { fresh: row.consumesSession });
@@ -348,7 +371,9 @@ function salesPath(build: (familyId: string) => string): (t: TestApp) => Promise
 /** `/api/quotes/<id>` of a new quote made by the demo sales person. */
 async function salesQuotePath(t: TestApp): Promise<string> {
   await ensureSalesFixture(t.ctx.db);
-  const res = await (await t.agent('sales'))
+  const res = await (
+    await t.agent('sales')
+  )
     .post('/api/quotes')
     .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-31', customerName: 'Authz probe' });
   if (res.status !== 201) throw new Error(`Could not create a quote: ${res.status} ${JSON.stringify(res.body)}`);

@@ -30,9 +30,15 @@ describe('axisProblems', () => {
   });
 
   it('refuses an empty axis, duplicates and an unknown key', () => {
-    expect(axisProblems({ kind: 'param', key: entry.key, values: [] }, parameters)).toEqual(['Add at least one value.']);
-    expect(axisProblems({ kind: 'param', key: entry.key, values: [28, 28] }, parameters)).toEqual(['28 is listed twice.']);
-    expect(axisProblems({ kind: 'param', key: 'chimneyHeightMm', values: [10] }, parameters)[0]).toMatch(/no parameter/);
+    expect(axisProblems({ kind: 'param', key: entry.key, values: [] }, parameters)).toEqual([
+      'Add at least one value.',
+    ]);
+    expect(axisProblems({ kind: 'param', key: entry.key, values: [28, 28] }, parameters)).toEqual([
+      '28 is listed twice.',
+    ]);
+    expect(axisProblems({ kind: 'param', key: 'chimneyHeightMm', values: [10] }, parameters)[0]).toMatch(
+      /no parameter/,
+    );
   });
 
   it('checks the kind of value a parameter takes', () => {
@@ -46,7 +52,9 @@ describe('axisProblems', () => {
   });
 
   it('wants attribute values as lower-case ids', () => {
-    expect(axisProblems({ kind: 'attribute', key: 'finish', values: ['uv-clear-coat', 'none'] }, parameters)).toEqual([]);
+    expect(axisProblems({ kind: 'attribute', key: 'finish', values: ['uv-clear-coat', 'none'] }, parameters)).toEqual(
+      [],
+    );
     const bad = axisProblems({ kind: 'attribute', key: 'colour', values: ['Moss Green'] }, parameters);
     expect(bad[0]).toMatch(/lower-case id/);
   });

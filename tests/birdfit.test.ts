@@ -95,7 +95,14 @@ describe('assessBirdFit', () => {
 
   it('suits blue tits with a 25 mm hole but not great tits, and says why', () => {
     // source: RSPB via trade-facts §1b — blue tit 25 mm, great tit 28 mm, hole ≥ 125 mm above the floor
-    const box = { ...good, entryHoleDiameterMm: 25, floorWidthMm: 120, floorDepthMm: 120, cavityDepthMm: 160, holeAboveFloorMm: 125 };
+    const box = {
+      ...good,
+      entryHoleDiameterMm: 25,
+      floorWidthMm: 120,
+      floorDepthMm: 120,
+      cavityDepthMm: 160,
+      holeAboveFloorMm: 125,
+    };
     const r = assessBirdFit(box, { region: 'europe' });
     const ids = r.suits.map((s) => s.speciesId);
     expect(ids).toContain('blue-tit');
@@ -129,7 +136,14 @@ describe('assessBirdFit', () => {
     expect(codes({ ...good, entryHoleDiameterMm: 40 }, 'north-america')).toContain('admits-starlings');
     expect(codes({ ...good, entryHoleDiameterMm: 40 }, 'europe')).not.toContain('admits-starlings');
     // the starling row itself suits a 2 in hole box built to its size
-    const starlingBox = { ...good, entryHoleDiameterMm: 50.8, floorWidthMm: 152, floorDepthMm: 152, cavityDepthMm: 410, holeAboveFloorMm: 360 };
+    const starlingBox = {
+      ...good,
+      entryHoleDiameterMm: 50.8,
+      floorWidthMm: 152,
+      floorDepthMm: 152,
+      cavityDepthMm: 410,
+      holeAboveFloorMm: 360,
+    };
     expect(assessBirdFit(starlingBox).species.find((s) => s.speciesId === 'european-starling-na')!.suits).toBe(true);
     expect(assessBirdFit(starlingBox).suits.map((s) => s.speciesId)).not.toContain('european-starling-na');
   });
@@ -171,7 +185,9 @@ describe('assessBirdFit', () => {
     expect(w.message).toMatch(/PLA/);
     // source: trade-facts §2a [C] — 3 mm PLA (k 0.13) = 0.023 m²K/W vs 19 mm pine (k 0.11) = 0.173: about 13 %
     expect(w.message).toMatch(/about 13 %/);
-    expect(assessBirdFit({ ...good, wallThicknessMm: 16 }).warnings.find((x) => x.code === 'thin-walls')!.severity).toBe('caution');
+    expect(
+      assessBirdFit({ ...good, wallThicknessMm: 16 }).warnings.find((x) => x.code === 'thin-walls')!.severity,
+    ).toBe('caution');
     expect(codes(good)).not.toContain('thin-walls');
   });
 

@@ -80,7 +80,9 @@ describe('catalogue service for spec sheets and quotes', () => {
   });
 
   it('lists by SKU set and family', async () => {
-    const two = await listCatalogueVariants(t.ctx, { skus: ['FH-HGB-32-SHIN-MOSS', 'FH-HGB-25-NONE-SAND', 'FH-CAF-28-SAND'] });
+    const two = await listCatalogueVariants(t.ctx, {
+      skus: ['FH-HGB-32-SHIN-MOSS', 'FH-HGB-25-NONE-SAND', 'FH-CAF-28-SAND'],
+    });
     expect(two.map((v) => v.sku).sort()).toEqual(['FH-HGB-25-NONE-SAND', 'FH-HGB-32-SHIN-MOSS']);
     expect(await listCatalogueVariants(t.ctx, { skus: [] })).toEqual([]);
     const byFamily = await listCatalogueVariants(t.ctx, { familyId: two[0].family.id });

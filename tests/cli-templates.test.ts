@@ -25,7 +25,9 @@ function cli(args: string[]): Promise<{ stdout: string; stderr: string }> {
 describe('npm run cli -- templates --json', () => {
   it('prints every template with key, unit, min, max, step and default per parameter', async () => {
     const { stdout } = await cli(['templates', '--json']);
-    const { templates } = JSON.parse(stdout) as { templates: { id: string; version: number; name: string; parameters: Record<string, unknown>[] }[] };
+    const { templates } = JSON.parse(stdout) as {
+      templates: { id: string; version: number; name: string; parameters: Record<string, unknown>[] }[];
+    };
     expect(templates.map((t) => t.id)).toEqual(['gable-box', 'a-frame', 'round-pod', 'bark-trunk']);
     for (const template of templates) {
       expect(template.version).toBeGreaterThanOrEqual(1);
@@ -46,7 +48,17 @@ describe('npm run cli -- templates --json', () => {
 describe('npm run cli -- export', () => {
   it('writes an STL that admesh reads as closed, and prints triangles, volume and hash', async () => {
     const out = join(dir, 'pod.stl');
-    const { stdout } = await cli(['export', '--template', 'round-pod', '--params', '{"entryHoleDiameterMm":28}', '--format', 'stl', '--out', out]);
+    const { stdout } = await cli([
+      'export',
+      '--template',
+      'round-pod',
+      '--params',
+      '{"entryHoleDiameterMm":28}',
+      '--format',
+      'stl',
+      '--out',
+      out,
+    ]);
     const printed = JSON.parse(stdout) as { triangles: number; volumeMm3: number; sha256: string };
     expect(printed.sha256).toMatch(/^[0-9a-f]{64}$/);
     const file = await readFile(out);
@@ -61,7 +73,15 @@ describe('npm run cli -- export', () => {
   }, 90_000);
 
   it('exits non-zero with the field and its range for an out-of-range parameter', async () => {
-    const err = (await cli(['export', '--template', 'gable-box', '--params', '{"wallThicknessMm":2}', '--out', join(dir, 'x.stl')]).catch((e: unknown) => e)) as { code: number; stderr: string };
+    const err = (await cli([
+      'export',
+      '--template',
+      'gable-box',
+      '--params',
+      '{"wallThicknessMm":2}',
+      '--out',
+      join(dir, 'x.stl'),
+    ]).catch((e: unknown) => e)) as { code: number; stderr: string };
     expect(err.code).toBe(1);
     expect(err.stderr).toContain('wallThicknessMm must be between 4 and 20 mm');
   }, 90_000);

@@ -55,7 +55,12 @@ describe('data directory', () => {
     const added = await fetch(`${first.url}/api/people`, {
       method: 'POST',
       headers: { 'Content-Type': 'application/json', Origin: first.url, Cookie: cookie },
-      body: JSON.stringify({ email: 'kept@fernhollow.test', name: 'Kept Person', roles: ['sales'], password: 'kept-password' }),
+      body: JSON.stringify({
+        email: 'kept@fernhollow.test',
+        name: 'Kept Person',
+        roles: ['sales'],
+        password: 'kept-password',
+      }),
     });
     expect(added.status).toBe(201);
     await first.close();
@@ -104,10 +109,15 @@ describe('seeded snapshot', () => {
       expect((await t.ctx.db.select().from(materials)).map((row) => row.id).sort()).toEqual(
         DEFAULT_MATERIALS.map((material) => material.id).sort(),
       );
-      const [printer] = await t.ctx.db.select().from(printerProfiles).where(eq(printerProfiles.id, DEFAULT_PRINTERS[0].id));
+      const [printer] = await t.ctx.db
+        .select()
+        .from(printerProfiles)
+        .where(eq(printerProfiles.id, DEFAULT_PRINTERS[0].id));
       expect(printer.data).toEqual(JSON.parse(JSON.stringify(DEFAULT_PRINTERS[0])));
       const ran = (await t.ctx.db.select().from(seedRuns)).map((row) => row.name);
-      expect(ran).toEqual(expect.arrayContaining(['production-defaults', 'demo-studio-and-people', 'seeding-complete']));
+      expect(ran).toEqual(
+        expect.arrayContaining(['production-defaults', 'demo-studio-and-people', 'seeding-complete']),
+      );
       // seeding the defaults again adds nothing
       expect(await seedProduction(t.ctx.db)).toEqual({ printers: 0, materials: 0 });
     } finally {
@@ -119,9 +129,9 @@ describe('seeded snapshot', () => {
     const t = await makeTestApp();
     try {
       for (const roles of ['{owner}', '{}']) {
-        await expect(t.ctx.pg.query(`update people set roles = $1 where email = 'ada@fernhollow.test'`, [roles])).rejects.toThrow(
-          /people_roles_known/,
-        );
+        await expect(
+          t.ctx.pg.query(`update people set roles = $1 where email = 'ada@fernhollow.test'`, [roles]),
+        ).rejects.toThrow(/people_roles_known/);
       }
     } finally {
       await t.close();

@@ -17,7 +17,8 @@ import { box, geomToMesh } from './meshFixtures';
 /** Sum of segment lengths. */
 function totalLength(segments: Float32Array): number {
   let sum = 0;
-  for (let i = 0; i < segments.length; i += 4) sum += Math.hypot(segments[i + 2] - segments[i], segments[i + 3] - segments[i + 1]);
+  for (let i = 0; i < segments.length; i += 4)
+    sum += Math.hypot(segments[i + 2] - segments[i], segments[i + 3] - segments[i + 1]);
   return sum;
 }
 
@@ -40,7 +41,10 @@ function admeshBounds(stl: Uint8Array): { min: number[]; max: number[] } {
 
 function onOutline(view: OrthographicView, u: number, v: number, tol = 1e-3): boolean {
   return (
-    Math.abs(u - view.minMm[0]) < tol || Math.abs(u - view.maxMm[0]) < tol || Math.abs(v - view.minMm[1]) < tol || Math.abs(v - view.maxMm[1]) < tol
+    Math.abs(u - view.minMm[0]) < tol ||
+    Math.abs(u - view.maxMm[0]) < tol ||
+    Math.abs(v - view.minMm[1]) < tol ||
+    Math.abs(v - view.maxMm[1]) < tol
   );
 }
 

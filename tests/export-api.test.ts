@@ -32,11 +32,17 @@ function binary(res: NodeJS.ReadableStream, done: (err: Error | null, body: unkn
 describe('POST /api/exports', () => {
   it('returns a binary STL whose hash equals the in-process (browser) generation of the same parameters', async () => {
     const params = { entryHoleDiameterMm: 28, trimStyle: 'boards' };
-    const res = await designer.post('/api/exports').send({ templateId: 'gable-box', params, format: 'stl' }).buffer(true).parse(binary as never);
+    const res = await designer
+      .post('/api/exports')
+      .send({ templateId: 'gable-box', params, format: 'stl' })
+      .buffer(true)
+      .parse(binary as never);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toContain('model/stl');
     const version = (await generate('gable-box', {})).template.version;
-    expect(res.headers['content-disposition']).toMatch(new RegExp(`^attachment; filename="gable-box-v${version}-[0-9a-f]{8}\\.stl"$`));
+    expect(res.headers['content-disposition']).toMatch(
+      new RegExp(`^attachment; filename="gable-box-v${version}-[0-9a-f]{8}\\.stl"$`),
+    );
     const local = await generate('gable-box', params);
     expect(res.headers['x-mesh-sha256']).toBe(local.sha256);
     expect(Number(res.headers['x-mesh-triangles'])).toBe(local.triangles);
@@ -45,7 +51,11 @@ describe('POST /api/exports', () => {
   }, 60_000);
 
   it('returns a 3MF package in millimetres', async () => {
-    const res = await designer.post('/api/exports').send({ templateId: 'round-pod', params: {}, format: '3mf' }).buffer(true).parse(binary as never);
+    const res = await designer
+      .post('/api/exports')
+      .send({ templateId: 'round-pod', params: {}, format: '3mf' })
+      .buffer(true)
+      .parse(binary as never);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toContain('model/3mf');
     const model = strFromU8(unzipSync(new Uint8Array(res.body as Buffer))['3D/3dmodel.model']);
@@ -55,13 +65,33 @@ describe('POST /api/exports', () => {
 
   it.each([
     [{ templateId: 'dovecote', params: {}, format: 'stl' }, 'templateId', /unknown template "dovecote"/],
-    [{ templateId: 'a-frame', params: { chimney: true }, format: 'stl' }, 'params.chimney', /chimney is not a parameter of a-frame/],
-    [{ templateId: 'a-frame', params: { entryHoleDiameterMm: 80 }, format: 'stl' }, 'params.entryHoleDiameterMm', /^entryHoleDiameterMm must be between 22 and 65 mm$/],
-    [{ templateId: 'bark-trunk', params: { storeys: 3 }, format: 'stl' }, 'params.storeys', /^storeys must be between 1 and 2$/],
-    [{ templateId: 'gable-box', params: { trimStyle: 'thatch' }, format: 'stl' }, 'params.trimStyle', /^trimStyle must be one of none, shingles, boards$/],
+    [
+      { templateId: 'a-frame', params: { chimney: true }, format: 'stl' },
+      'params.chimney',
+      /chimney is not a parameter of a-frame/,
+    ],
+    [
+      { templateId: 'a-frame', params: { entryHoleDiameterMm: 80 }, format: 'stl' },
+      'params.entryHoleDiameterMm',
+      /^entryHoleDiameterMm must be between 22 and 65 mm$/,
+    ],
+    [
+      { templateId: 'bark-trunk', params: { storeys: 3 }, format: 'stl' },
+      'params.storeys',
+      /^storeys must be between 1 and 2$/,
+    ],
+    [
+      { templateId: 'gable-box', params: { trimStyle: 'thatch' }, format: 'stl' },
+      'params.trimStyle',
+      /^trimStyle must be one of none, shingles, boards$/,
+    ],
     [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^format:/],
     // an entry the default cavity cannot hold: rejected with the range the other parameters allow, not moved
-    [{ templateId: 'round-pod', params: { holeAboveFloorMm: 200 }, format: 'stl' }, 'params.holeAboveFloorMm', /^holeAboveFloorMm must be between 60 and 14\d(\.\d)? mm for a 180 × 228 mm body/],
+    [
+      { templateId: 'round-pod', params: { holeAboveFloorMm: 200 }, format: 'stl' },
+      'params.holeAboveFloorMm',
+      /^holeAboveFloorMm must be between 60 and 14\d(\.\d)? mm for a 180 × 228 mm body/,
+    ],
   ])('answers 400 naming the field and its allowed range: %o', async (body, path, message) => {
     const res = await designer.post('/api/exports').send(body);
     expect(res.status).toBe(400);
@@ -71,7 +101,11 @@ describe('POST /api/exports', () => {
   });
 
   it('keeps answering other requests while an export is being generated', async () => {
-    const slow = designer.post('/api/exports').send({ templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' }).buffer(true).parse(binary as never);
+    const slow = designer
+      .post('/api/exports')
+      .send({ templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' })
+      .buffer(true)
+      .parse(binary as never);
     const exportDone = slow.then(() => performance.now());
     // give the request a moment to reach the worker, then ask something else
     await new Promise((resolve) => setTimeout(resolve, 50));
@@ -87,7 +121,9 @@ describe('export time limit', () => {
   it('stops a build over the limit with 504, and the same worker then serves the next export', async () => {
     const worker = new ExportWorker(40);
     try {
-      const err = await exportDesign(worker, { templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' }).catch((e: unknown) => e);
+      const err = await exportDesign(worker, { templateId: 'bark-trunk', params: { storeys: 2 }, format: 'stl' }).catch(
+        (e: unknown) => e,
+      );
       expect(err).toBeInstanceOf(HttpError);
       expect((err as HttpError).status).toBe(504);
       expect((err as HttpError).code).toBe('generation_timeout');

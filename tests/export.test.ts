@@ -73,7 +73,8 @@ describe('3MF package', () => {
     expect(vertices.length).toBe(design.mesh.positions.length / 3);
     // coordinates read back to the same float32 values, indices unchanged (winding kept)
     for (let i = 0; i < vertices.length; i += 53) {
-      for (let k = 0; k < 3; k++) expect(Math.fround(Number(vertices[i][k + 1]))).toBe(design.mesh.positions[i * 3 + k]);
+      for (let k = 0; k < 3; k++)
+        expect(Math.fround(Number(vertices[i][k + 1]))).toBe(design.mesh.positions[i * 3 + k]);
     }
     for (let t = 0; t < triangles.length; t += 41) {
       for (let k = 0; k < 3; k++) expect(Number(triangles[t][k + 1])).toBe(design.mesh.indices[t * 3 + k]);
@@ -93,7 +94,10 @@ describe('mesh hash', () => {
     // source: node:crypto as an independent sha256 of the same canonical bytes
     const { createHash } = await import('node:crypto');
     expect(hash).toBe(createHash('sha256').update(canonicalMeshBytes(design.mesh)).digest('hex'));
-    const moved = { positions: design.mesh.positions.map((v, i) => (i === 0 ? v + 0.01 : v)), indices: design.mesh.indices };
+    const moved = {
+      positions: design.mesh.positions.map((v, i) => (i === 0 ? v + 0.01 : v)),
+      indices: design.mesh.indices,
+    };
     expect(await meshHash(moved)).not.toBe(hash);
   });
 });

@@ -11,13 +11,7 @@ import { FAMILY_MAX_VARIANTS, SkuSchema, type Family, type Variant } from '../sh
 import { findTemplate, generate } from '../templates/index';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { currentRevisionId } from '../server/services/familyService';
-import {
-  acknowledgeAll,
-  computeNow,
-  createTestFamily,
-  familyInState,
-  smallFamilyBody,
-} from './familiesFixtures';
+import { acknowledgeAll, computeNow, createTestFamily, familyInState, smallFamilyBody } from './familiesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { manifoldReport } from './templates.meshCheck';
 
@@ -44,7 +38,12 @@ describe('variant matrix and SKUs (pure)', () => {
   ];
 
   it('is the cartesian product, every SKU unique and following the scheme', () => {
-    const cells = buildVariantMatrix({ familyCode: 'HGB', axes, baseParams: { cavityDepthMm: 160 }, materialId: 'pla' });
+    const cells = buildVariantMatrix({
+      familyCode: 'HGB',
+      axes,
+      baseParams: { cavityDepthMm: 160 },
+      materialId: 'pla',
+    });
     // 3 × 2 × 2 = 12 (arithmetic)
     expect(cells).toHaveLength(12);
     expect(variantCount(axes)).toBe(12);
@@ -58,7 +57,9 @@ describe('variant matrix and SKUs (pure)', () => {
 
   it('keeps a variant SKU when values are added to an axis', () => {
     const before = buildVariantMatrix({ familyCode: 'HGB', axes, baseParams: {}, materialId: 'pla' });
-    const wider = axes.map((axis) => (axis.key === 'entryHoleDiameterMm' ? { ...axis, values: [25, 27.5, 28, 32] } : axis));
+    const wider = axes.map((axis) =>
+      axis.key === 'entryHoleDiameterMm' ? { ...axis, values: [25, 27.5, 28, 32] } : axis,
+    );
     const after = buildVariantMatrix({ familyCode: 'HGB', axes: wider, baseParams: {}, materialId: 'pla' });
     const skuByKey = new Map(after.map((cell) => [cell.variantKey, cell.sku]));
     for (const cell of before) expect(skuByKey.get(cell.variantKey)).toBe(cell.sku);
@@ -104,7 +105,11 @@ describe('creating a family', () => {
     expect(filtered.variants).toHaveLength(2);
     expect(filtered.variants.every((v) => v.sku.includes('SHIN'))).toBe(true);
     // sorted by SKU descending, page 2 of 4 per page: the 5th and 6th of the six shingle SKUs
-    const shingles = variants.map((v) => v.sku).filter((sku) => sku.includes('SHIN')).sort().reverse();
+    const shingles = variants
+      .map((v) => v.sku)
+      .filter((sku) => sku.includes('SHIN'))
+      .sort()
+      .reverse();
     expect(filtered.variants.map((v) => v.sku)).toEqual(shingles.slice(4, 6));
   });
 
@@ -180,7 +185,9 @@ describe('bad input: 400 naming the field', () => {
   });
 
   it('names a bad base parameter', async () => {
-    const res = await (await t.agent('designer'))
+    const res = await (
+      await t.agent('designer')
+    )
       .post('/api/families')
       .send({ ...smallFamilyBody(), baseParams: { wallThicknessMm: 2 } });
     expect(res.status).toBe(400);
@@ -213,7 +220,8 @@ describe('computing and the family gate', () => {
       expect(variant.sha256).toMatch(/^[0-9a-f]{64}$/);
     }
     // Colour does not change the mesh: same hash for the two colours of one entry size.
-    const hashes = (entry: number) => new Set(variants.filter((v) => v.axisValues.entryHoleDiameterMm === entry).map((v) => v.sha256));
+    const hashes = (entry: number) =>
+      new Set(variants.filter((v) => v.axisValues.entryHoleDiameterMm === entry).map((v) => v.sha256));
     expect(hashes(28).size).toBe(1);
     expect(hashes(32).size).toBe(1);
 
@@ -351,7 +359,10 @@ describe('review workflow', () => {
     expect(res.status).toBe(200);
     const back = res.body.family as Family;
     expect(back.state).toBe('draft');
-    expect(back.comments.at(-1)).toMatchObject({ action: 'return', text: 'The 32 mm variant needs a photo of the floor plug.' });
+    expect(back.comments.at(-1)).toMatchObject({
+      action: 'return',
+      text: 'The 32 mm variant needs a photo of the floor plug.',
+    });
     expect(back.comments.at(-1)?.by.name).toBe('Tobias Reyne');
     const designerView = (await (await t.agent('designer')).get(`/api/families/${family.id}`)).body.family as Family;
     expect(designerView.allowedActions).toEqual(['submit']);
@@ -382,7 +393,12 @@ describe('review workflow', () => {
     const manager = await t.agent('catalogue_manager');
     const sales = await t.agent('sales');
     const skusInCatalogue = async () =>
-      ((await sales.get(`/api/catalogue?familyId=${family.id}`)).body.variants as Array<{ sku: string; revision: number }>)
+      (
+        (await sales.get(`/api/catalogue?familyId=${family.id}`)).body.variants as Array<{
+          sku: string;
+          revision: number;
+        }>
+      )
         .map((v) => `${v.revision}:${v.sku}`)
         .sort();
     expect(await skusInCatalogue()).toEqual([`1:FH-${family.code}-28-SAND`]);
@@ -427,10 +443,9 @@ describe('review workflow', () => {
     expect(await skusInCatalogue()).toEqual([`1:FH-${family.code}-28-SAND`]);
     const published = await manager.post(`/api/families/${family.id}/publish`).send({});
     expect(published.status).toBe(200);
-    expect(published.body.family.revisions.map((r: { number: number; state: string }) => `${r.number}:${r.state}`)).toEqual([
-      '1:retired',
-      '2:published',
-    ]);
+    expect(
+      published.body.family.revisions.map((r: { number: number; state: string }) => `${r.number}:${r.state}`),
+    ).toEqual(['1:retired', '2:published']);
     expect(await skusInCatalogue()).toEqual([`2:FH-${family.code}-28-SAND`, `2:FH-${family.code}-32-SAND`]);
 
     const retired = await manager.post(`/api/families/${family.id}/retire`).send({});
@@ -451,7 +466,9 @@ describe('review workflow', () => {
     expect(stale.status).toBe(409);
     const audit = await designer.get(`/api/families/${family.id}/audit`);
     expect(audit.status).toBe(200);
-    const actions = (audit.body.events as Array<{ action: string; actor: { name: string } | null }>).map((e) => e.action);
+    const actions = (audit.body.events as Array<{ action: string; actor: { name: string } | null }>).map(
+      (e) => e.action,
+    );
     // newest first: created, acknowledged, submitted happened in that order
     expect(actions).toEqual(['family.submitted', 'family.acknowledged', 'family.created']);
     expect(audit.body.events[0].actor.name).toBe('Maren Hale');
@@ -481,6 +498,7 @@ describe('SKU format', () => {
       materialId: 'pla',
     });
     for (const cell of cells) expect(SkuSchema.safeParse(cell.sku).success, cell.sku).toBe(true);
-    for (const bad of ['HGB-28', 'FH-hgb-28', 'FH-H', 'FH-HGB-28 ']) expect(SkuSchema.safeParse(bad).success).toBe(false);
+    for (const bad of ['HGB-28', 'FH-hgb-28', 'FH-H', 'FH-HGB-28 '])
+      expect(SkuSchema.safeParse(bad).success).toBe(false);
   });
 });

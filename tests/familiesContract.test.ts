@@ -20,7 +20,10 @@ let t: TestApp;
 let ids: Record<string, string>;
 beforeAll(async () => {
   t = await makeTestApp();
-  const list = (await (await t.agent('designer')).get('/api/families')).body.families as Array<{ id: string; code: string }>;
+  const list = (await (await t.agent('designer')).get('/api/families')).body.families as Array<{
+    id: string;
+    code: string;
+  }>;
   ids = Object.fromEntries(list.map((f) => [f.code, f.id]));
 });
 afterAll(async () => {
@@ -39,7 +42,10 @@ describe('answers follow the contract', () => {
     for (const code of ['HGB', 'CAF', 'MGB']) {
       const family = (await designer.get(`/api/families/${ids[code]}`)).body;
       conforms(FamilyResponseSchema, family);
-      conforms(VariantListResponseSchema, (await designer.get(`/api/families/${ids[code]}/variants?pageSize=500`)).body);
+      conforms(
+        VariantListResponseSchema,
+        (await designer.get(`/api/families/${ids[code]}/variants?pageSize=500`)).body,
+      );
       conforms(AuditListResponseSchema, (await designer.get(`/api/families/${ids[code]}/audit`)).body);
       conforms(RevisionDiffSchema, (await designer.get(`/api/families/${ids[code]}/diff?from=1&to=1`)).body);
     }
@@ -52,7 +58,10 @@ describe('answers follow the contract', () => {
   });
 
   it('compute status, catalogue and mail', async () => {
-    conforms(ComputeStatusSchema, (await (await t.agent('designer')).post(`/api/families/${ids.HGB}/cancel`).send({})).body);
+    conforms(
+      ComputeStatusSchema,
+      (await (await t.agent('designer')).post(`/api/families/${ids.HGB}/cancel`).send({})).body,
+    );
     conforms(CatalogueResponseSchema, (await (await t.agent('sales')).get('/api/catalogue')).body);
     conforms(MailMessagesResponseSchema, (await (await t.agent('admin')).get('/api/mail/messages')).body);
   });

@@ -113,7 +113,9 @@ export async function pngBytes(width = 64, height = 48): Promise<Buffer> {
     raw[i * 3 + 1] = Math.floor(i / width) * 5;
     raw[i * 3 + 2] = 120;
   }
-  return sharp(raw, { raw: { width, height, channels: 3 } }).png().toBuffer();
+  return sharp(raw, { raw: { width, height, channels: 3 } })
+    .png()
+    .toBuffer();
 }
 
 /**

@@ -66,7 +66,9 @@ describe('outdoor heat in the family gate', () => {
     expect(blocker?.skus).toEqual([black.sku]);
 
     // Acknowledge the bird-fit warnings only: the heat warning still blocks.
-    const birdCodes = current.gate.warnings.filter((w) => w.severity === 'warning' && w.code !== 'outdoor-heat').map((w) => w.code);
+    const birdCodes = current.gate.warnings
+      .filter((w) => w.severity === 'warning' && w.code !== 'outdoor-heat')
+      .map((w) => w.code);
     if (birdCodes.length > 0) {
       const res = await designer
         .post(`/api/families/${family.id}/acknowledgements`)

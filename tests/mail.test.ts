@@ -67,7 +67,9 @@ describe('workflow e-mail through the fake SMTP server', () => {
     expect(review?.text).toContain('Maren Hale submitted');
     expect(review?.text).toContain(`/families/${family.id}`);
 
-    const back = await (await t.agent('catalogue_manager'))
+    const back = await (
+      await t.agent('catalogue_manager')
+    )
       .post(`/api/families/${family.id}/return`)
       .send({ comments: 'Please show the drainage holes in a photo — thanks!' });
     expect(back.status).toBe(200);
@@ -164,6 +166,9 @@ describe('reading captured messages', () => {
       'Line one =E2=80=94 with a dash and a soft=',
       ' break.',
     ].join('\r\n');
-    expect(parseCapturedMail(raw)).toEqual({ subject: 'Sent back: Café box', text: 'Line one — with a dash and a soft break.' });
+    expect(parseCapturedMail(raw)).toEqual({
+      subject: 'Sent back: Café box',
+      text: 'Line one — with a dash and a soft break.',
+    });
   });
 });

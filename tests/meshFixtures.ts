@@ -84,7 +84,9 @@ export function loadManifold(): Promise<ManifoldModule> {
  * Copies a manifold-3d solid into the neutral indexed mesh.
  * @param solid - a Manifold
  */
-export function manifoldToMesh(solid: { getMesh(): { numProp: number; vertProperties: Float32Array; triVerts: Uint32Array } }): IndexedMesh {
+export function manifoldToMesh(solid: {
+  getMesh(): { numProp: number; vertProperties: Float32Array; triVerts: Uint32Array };
+}): IndexedMesh {
   const mesh = solid.getMesh();
   const count = mesh.vertProperties.length / mesh.numProp;
   const positions = new Float32Array(count * 3);

@@ -93,8 +93,30 @@ function make3mf(model: string, withRels = true): Uint8Array {
 
 /** A unit cube object (outward winding) as 3MF XML. */
 function cubeObject(id: number): string {
-  const v = [[0, 0, 0], [1, 0, 0], [1, 1, 0], [0, 1, 0], [0, 0, 1], [1, 0, 1], [1, 1, 1], [0, 1, 1]];
-  const t = [[0, 2, 1], [0, 3, 2], [4, 5, 6], [4, 6, 7], [0, 1, 5], [0, 5, 4], [1, 2, 6], [1, 6, 5], [2, 3, 7], [2, 7, 6], [3, 0, 4], [3, 4, 7]];
+  const v = [
+    [0, 0, 0],
+    [1, 0, 0],
+    [1, 1, 0],
+    [0, 1, 0],
+    [0, 0, 1],
+    [1, 0, 1],
+    [1, 1, 1],
+    [0, 1, 1],
+  ];
+  const t = [
+    [0, 2, 1],
+    [0, 3, 2],
+    [4, 5, 6],
+    [4, 6, 7],
+    [0, 1, 5],
+    [0, 5, 4],
+    [1, 2, 6],
+    [1, 6, 5],
+    [2, 3, 7],
+    [2, 7, 6],
+    [3, 0, 4],
+    [3, 4, 7],
+  ];
   return `<object id="${id}" type="model"><mesh><vertices>${v.map(([x, y, z]) => `<vertex x="${x}" y="${y}" z="${z}"/>`).join('')}</vertices><triangles>${t.map(([a, b, c]) => `<triangle v1="${a}" v2="${b}" v3="${c}"/>`).join('')}</triangles></mesh></object>`;
 }
 
@@ -123,8 +145,12 @@ describe('parse3mf', () => {
     const good = make3mf(xml);
     expect(reasonOf(() => parse3mf(good.slice(0, good.length / 2)))).toBe('truncated');
     expect(reasonOf(() => parse3mf(make3mf(xml, false)))).toBe('not_a_mesh'); // model not at the usual path
-    expect(reasonOf(() => parse3mf(make3mf(xml.replace('x="1" y="0" z="0"', 'x="NaN" y="0" z="0"'))))).toBe('non_finite');
-    expect(reasonOf(() => parse3mf(make3mf(xml.replace('<build><item objectid="1"/></build>', '<build/>'))))).toBe('empty');
+    expect(reasonOf(() => parse3mf(make3mf(xml.replace('x="1" y="0" z="0"', 'x="NaN" y="0" z="0"'))))).toBe(
+      'non_finite',
+    );
+    expect(reasonOf(() => parse3mf(make3mf(xml.replace('<build><item objectid="1"/></build>', '<build/>'))))).toBe(
+      'empty',
+    );
     expect(reasonOf(() => parse3mf(make3mf(xml.replace('unit="millimeter"', 'unit="furlong"'))))).toBe('not_a_mesh');
   });
 });

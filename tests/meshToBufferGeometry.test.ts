@@ -12,12 +12,42 @@ function cube(): IndexedMesh {
   const s = 10;
   const positions = new Float32Array([0, 0, 0, s, 0, 0, s, s, 0, 0, s, 0, 0, 0, s, s, 0, s, s, s, s, 0, s, s]);
   const indices = new Uint32Array([
-    0, 2, 1, 0, 3, 2, // bottom (-z)
-    4, 5, 6, 4, 6, 7, // top (+z)
-    0, 1, 5, 0, 5, 4, // front (-y)
-    1, 2, 6, 1, 6, 5, // right (+x)
-    2, 3, 7, 2, 7, 6, // back (+y)
-    3, 0, 4, 3, 4, 7, // left (-x)
+    0,
+    2,
+    1,
+    0,
+    3,
+    2, // bottom (-z)
+    4,
+    5,
+    6,
+    4,
+    6,
+    7, // top (+z)
+    0,
+    1,
+    5,
+    0,
+    5,
+    4, // front (-y)
+    1,
+    2,
+    6,
+    1,
+    6,
+    5, // right (+x)
+    2,
+    3,
+    7,
+    2,
+    7,
+    6, // back (+y)
+    3,
+    0,
+    4,
+    3,
+    4,
+    7, // left (-x)
   ]);
   return { positions, indices };
 }

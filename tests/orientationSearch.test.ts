@@ -31,7 +31,9 @@ describe('searchOrientation', () => {
 
   it('turns a T (mushroom) shape cap-down: the cap carries the stem and nothing overhangs', () => {
     // cap on top as modelled: upright it needs (40² − 10²) × 30 mm³ of support (analytic)
-    const t = wasm.Manifold.cube([10, 10, 30]).translate([15, 15, 0]).add(wasm.Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
+    const t = wasm.Manifold.cube([10, 10, 30])
+      .translate([15, 15, 0])
+      .add(wasm.Manifold.cube([40, 40, 5]).translate([0, 0, 30]));
     const mesh = manifoldToMesh(t);
     const s = searchOrientation(mesh);
     expect(s.best.label).toBe('face +z down');
@@ -59,7 +61,9 @@ describe('searchOrientation', () => {
 
   it('ranks a hollow box standing on a corner last although its cavity then needs no support', () => {
     // on a corner every inner face is 35° from vertical (< 45°, no support) but the part rests on a point
-    const hollow = manifoldToMesh(wasm.Manifold.cube([50, 50, 50]).subtract(wasm.Manifold.cube([44, 44, 44]).translate([3, 3, 3])));
+    const hollow = manifoldToMesh(
+      wasm.Manifold.cube([50, 50, 50]).subtract(wasm.Manifold.cube([44, 44, 44]).translate([3, 3, 3])),
+    );
     const s = searchOrientation(hollow);
     expect(s.best.kind).toBe('face');
     expect(s.best.label).toBe('face -z down'); // all faces tie: the part stays as modelled

@@ -21,7 +21,10 @@ let familyPath: string;
 beforeAll(async () => {
   dataDir = await mkdtemp(join(tmpdir(), 'nestwright-photos-'));
   t = await makeTestApp({ DATA_DIR: dataDir });
-  const families = (await (await t.agent('designer')).get('/api/families')).body.families as Array<{ id: string; code: string }>;
+  const families = (await (await t.agent('designer')).get('/api/families')).body.families as Array<{
+    id: string;
+    code: string;
+  }>;
   familyPath = `/api/families/${families.find((f) => f.code === 'MGB')!.id}/photos`;
 });
 afterAll(async () => {
@@ -29,12 +32,20 @@ afterAll(async () => {
   await rm(dataDir, { recursive: true, force: true });
 });
 
-async function fetchImage(agentRole: 'sales' | 'designer', url: string): Promise<Metadata & { status: number; type: string }> {
-  const res = await (await t.agent(agentRole)).get(url).buffer(true).parse((response, done) => {
-    const chunks: Buffer[] = [];
-    response.on('data', (chunk: Buffer) => chunks.push(chunk));
-    response.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+async function fetchImage(
+  agentRole: 'sales' | 'designer',
+  url: string,
+): Promise<Metadata & { status: number; type: string }> {
+  const res = await (
+    await t.agent(agentRole)
+  )
+    .get(url)
+    .buffer(true)
+    .parse((response, done) => {
+      const chunks: Buffer[] = [];
+      response.on('data', (chunk: Buffer) => chunks.push(chunk));
+      response.on('end', () => done(null, Buffer.concat(chunks)));
+    });
   const meta = await sharp(res.body as Buffer).metadata();
   return { ...meta, status: res.status, type: String(res.headers['content-type']) };
 }
@@ -42,8 +53,20 @@ async function fetchImage(agentRole: 'sales' | 'designer', url: string): Promise
 describe('detecting the image type by content', () => {
   it('knows the three signatures and nothing else', async () => {
     expect(detectPhotoType(await pngBytes())).toBe('image/png');
-    expect(detectPhotoType(await sharp(await pngBytes()).jpeg().toBuffer())).toBe('image/jpeg');
-    expect(detectPhotoType(await sharp(await pngBytes()).webp().toBuffer())).toBe('image/webp');
+    expect(
+      detectPhotoType(
+        await sharp(await pngBytes())
+          .jpeg()
+          .toBuffer(),
+      ),
+    ).toBe('image/jpeg');
+    expect(
+      detectPhotoType(
+        await sharp(await pngBytes())
+          .webp()
+          .toBuffer(),
+      ),
+    ).toBe('image/webp');
     expect(detectPhotoType(Buffer.from('GIF89a...'))).toBeNull();
     expect(detectPhotoType(Buffer.from('not an image at all'))).toBeNull();
   });
@@ -52,8 +75,13 @@ describe('detecting the image type by content', () => {
 describe('uploading photos', () => {
   it('accepts a large JPEG, keeps a 1600 px copy and a 320 px thumbnail outside the web root', async () => {
     // a 2400 × 1800 photo-like JPEG
-    const big = await sharp(await pngBytes(240, 180)).resize(2400, 1800).jpeg({ quality: 80 }).toBuffer();
-    const res = await (await t.agent('designer'))
+    const big = await sharp(await pngBytes(240, 180))
+      .resize(2400, 1800)
+      .jpeg({ quality: 80 })
+      .toBuffer();
+    const res = await (
+      await t.agent('designer')
+    )
       .post(familyPath)
       .field('caption', 'First sample, sand PLA')
       .attach('photo', big, 'sample.jpg');
@@ -88,13 +116,21 @@ describe('uploading photos', () => {
     expect(png.status).toBe(201);
     expect(png.body.photo.originalType).toBe('image/png');
     expect([png.body.photo.widthPx, png.body.photo.heightPx]).toEqual([64, 48]);
-    const webp = await designer.post(familyPath).attach('photo', await sharp(await pngBytes()).webp().toBuffer(), 'x.webp');
+    const webp = await designer.post(familyPath).attach(
+      'photo',
+      await sharp(await pngBytes())
+        .webp()
+        .toBuffer(),
+      'x.webp',
+    );
     expect(webp.status).toBe(201);
     expect(webp.body.photo.originalType).toBe('image/webp');
   });
 
   it('refuses text in a file named .png', async () => {
-    const res = await (await t.agent('designer'))
+    const res = await (
+      await t.agent('designer')
+    )
       .post(familyPath)
       .attach('photo', Buffer.from('<?php echo "hello"; ?>\n'), { filename: 'innocent.png', contentType: 'image/png' });
     expect(res.status).toBe(400);
@@ -119,7 +155,9 @@ describe('uploading photos', () => {
     const uploaded = await (await t.agent('designer')).post(familyPath).attach('photo', await pngBytes(), 'a.png');
     expect((await (await t.agent(null)).get(uploaded.body.photo.url)).status).toBe(401);
     expect((await (await t.agent(null)).get(uploaded.body.photo.thumbUrl)).status).toBe(401);
-    expect((await (await t.agent('sales')).post(familyPath).attach('photo', await pngBytes(), 'a.png')).status).toBe(403);
+    expect((await (await t.agent('sales')).post(familyPath).attach('photo', await pngBytes(), 'a.png')).status).toBe(
+      403,
+    );
     expect((await (await t.agent('sales')).get('/api/photos/not-a-uuid')).status).toBe(400);
     expect((await (await t.agent('sales')).get(`/api/photos/${crypto.randomUUID()}`)).status).toBe(404);
   });

@@ -103,7 +103,9 @@ describe('presets API', () => {
     const theirs = await otherDesigner.get('/api/presets');
     expect(theirs.body.presets.map((p: { id: string }) => p.id)).not.toContain(id);
     // The same name is free for the other designer: uniqueness is per owner.
-    const same = await otherDesigner.post('/api/presets').send({ templateId: template.id, name: 'Maren only', params: {} });
+    const same = await otherDesigner
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Maren only', params: {} });
     expect(same.status).toBe(201);
     // Still there and unchanged for its owner.
     const still = await designer.get(`/api/presets/${id}`);
@@ -111,12 +113,18 @@ describe('presets API', () => {
   });
 
   it('answers 409 for a name already used for this template by the same designer, on create and on rename', async () => {
-    const first = await designer.post('/api/presets').send({ templateId: template.id, name: 'Blue tit 25', params: {} });
+    const first = await designer
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Blue tit 25', params: {} });
     expect(first.status).toBe(201);
-    const again = await designer.post('/api/presets').send({ templateId: template.id, name: 'Blue tit 25', params: {} });
+    const again = await designer
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Blue tit 25', params: {} });
     expect(again.status).toBe(409);
     expect(again.body.error.message).toMatch(/^name:/);
-    const second = await designer.post('/api/presets').send({ templateId: template.id, name: 'Great tit 28', params: {} });
+    const second = await designer
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Great tit 28', params: {} });
     const rename = await designer.patch(`/api/presets/${second.body.id}`).send({ name: 'Blue tit 25' });
     expect(rename.status).toBe(409);
     // Renaming a preset to its own name is not a conflict.
@@ -148,20 +156,28 @@ describe('presets API', () => {
     expect(mistyped.status).toBe(400);
     expect(mistyped.body.error.message).toContain(key);
 
-    const created = await designer.post('/api/presets').send({ templateId: template.id, name: 'Patch check', params: {} });
-    const badPatch = await designer.patch(`/api/presets/${created.body.id}`).send({ params: { [key]: sizeParam!.min! - 5 } });
+    const created = await designer
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Patch check', params: {} });
+    const badPatch = await designer
+      .patch(`/api/presets/${created.body.id}`)
+      .send({ params: { [key]: sizeParam!.min! - 5 } });
     expect(badPatch.status).toBe(400);
     expect(badPatch.body.error.message).toContain(key);
   });
 
   it('rejects an unknown template, a missing name and an empty update', async () => {
-    const noTemplate = await designer.post('/api/presets').send({ templateId: 'no-such-template', name: 'X', params: {} });
+    const noTemplate = await designer
+      .post('/api/presets')
+      .send({ templateId: 'no-such-template', name: 'X', params: {} });
     expect(noTemplate.status).toBe(400);
     expect(noTemplate.body.error.message).toMatch(/^templateId:/);
     const noName = await designer.post('/api/presets').send({ templateId: template.id, name: '   ', params: {} });
     expect(noName.status).toBe(400);
     expect(noName.body.error.message).toMatch(/^name:/);
-    const created = await designer.post('/api/presets').send({ templateId: template.id, name: 'Empty patch', params: {} });
+    const created = await designer
+      .post('/api/presets')
+      .send({ templateId: template.id, name: 'Empty patch', params: {} });
     const empty = await designer.patch(`/api/presets/${created.body.id}`).send({});
     expect(empty.status).toBe(400);
   });
@@ -178,7 +194,12 @@ describe('presets API', () => {
     expect(script.status).toBe(400);
     const notBase64 = await designer
       .post('/api/presets')
-      .send({ templateId: template.id, name: 'Odd thumb', params: {}, thumbnail: 'data:image/png;base64,<svg onload=x>' });
+      .send({
+        templateId: template.id,
+        name: 'Odd thumb',
+        params: {},
+        thumbnail: 'data:image/png;base64,<svg onload=x>',
+      });
     expect(notBase64.status).toBe(400);
     const huge = `data:image/png;base64,${'A'.repeat(PRESET_THUMBNAIL_MAX_CHARS)}`;
     const tooLarge = await designer
@@ -194,7 +215,9 @@ describe('presets API', () => {
     for (const role of ['catalogue_manager', 'sales', 'admin'] as const) {
       const agent = await t.agent(role);
       expect((await agent.get('/api/presets')).status).toBe(403);
-      expect((await agent.post('/api/presets').send({ templateId: template.id, name: 'N', params: {} })).status).toBe(403);
+      expect((await agent.post('/api/presets').send({ templateId: template.id, name: 'N', params: {} })).status).toBe(
+        403,
+      );
     }
   });
 });

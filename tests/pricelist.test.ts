@@ -71,6 +71,9 @@ describe('price list', () => {
     const catalogue = (await sales.get('/api/catalogue')).body.variants as Array<{ sku: string; priceCents: number }>;
     expect(skus.sort()).toEqual(catalogue.map((v) => v.sku).sort());
     for (const sku of suite.fixture.variants.map((v) => v.sku)) expect(skus).toContain(sku);
-    expect(sum).toBeCloseTo(catalogue.reduce((s, v) => s + v.priceCents / 100, 0), 6);
+    expect(sum).toBeCloseTo(
+      catalogue.reduce((s, v) => s + v.priceCents / 100, 0),
+      6,
+    );
   });
 });

@@ -40,7 +40,12 @@ describe('computeQuote', () => {
     variant.priceCents = 5000;
     variant.cost.costCents = 2600;
     const today = new Date('2027-03-01T15:00:00Z');
-    const quote = computeQuote(variant, { sku: variant.sku, quantity: 16, deliveryDate: '2027-03-03', customerName: 'Wren & Co' }, settings, today);
+    const quote = computeQuote(
+      variant,
+      { sku: variant.sku, quantity: 16, deliveryDate: '2027-03-03', customerName: 'Wren & Co' },
+      settings,
+      today,
+    );
     // analytic: 16 / 4 = 4 plates; ceil(4 / 2) = 2 per printer; 2 × (4 × 60) min = 480 min = 1/3 day -> 1 day + 1 handling
     expect(quote.farm.plates).toBe(4);
     expect(quote.farm.platesPerPrinter).toBe(2);
@@ -55,7 +60,12 @@ describe('computeQuote', () => {
     expect(quote.marginPct).toBeCloseTo(((4500 - 2600) / 4500) * 100, 9);
     expect(quote.breaks.map((b) => b.unitPriceCents)).toEqual([4500, 4000]);
 
-    const tooSoon = computeQuote(variant, { sku: variant.sku, quantity: 16, deliveryDate: '2027-03-02', customerName: 'Wren & Co' }, settings, today);
+    const tooSoon = computeQuote(
+      variant,
+      { sku: variant.sku, quantity: 16, deliveryDate: '2027-03-02', customerName: 'Wren & Co' },
+      settings,
+      today,
+    );
     expect(tooSoon.feasible).toBe(false);
   });
 
@@ -92,7 +102,12 @@ describe('quotes API', () => {
     const sales = await suite.t.agent('sales');
     const created = await sales
       .post('/api/quotes')
-      .send({ sku: FIXTURE_SKUS[0], quantity: 120, deliveryDate: '2099-06-30', customerName: '  Marsh Lane Garden Centre  ' });
+      .send({
+        sku: FIXTURE_SKUS[0],
+        quantity: 120,
+        deliveryDate: '2099-06-30',
+        customerName: '  Marsh Lane Garden Centre  ',
+      });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     const quote = QuoteSchema.parse(created.body);
     expect(quote.customerName).toBe('Marsh Lane Garden Centre');
@@ -111,11 +126,14 @@ describe('quotes API', () => {
     expect(read.status).toBe(200);
     expect(read.body).toEqual(created.body);
 
-    const pdf = await sales.get(`/api/quotes/${quote.id}.pdf`).buffer(true).parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const pdf = await sales
+      .get(`/api/quotes/${quote.id}.pdf`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(pdf.status).toBe(200);
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
@@ -138,12 +156,18 @@ describe('quotes API', () => {
 
   it('rejects bad input naming the field, and unknown SKUs and ids', async () => {
     const sales = await suite.t.agent('sales');
-    const zero = await sales.post('/api/quotes').send({ sku: FIXTURE_SKUS[0], quantity: 0, deliveryDate: '2099-01-01', customerName: 'X' });
+    const zero = await sales
+      .post('/api/quotes')
+      .send({ sku: FIXTURE_SKUS[0], quantity: 0, deliveryDate: '2099-01-01', customerName: 'X' });
     expect(zero.status).toBe(400);
     expect(zero.body.error.message).toMatch(/^quantity:/);
-    const date = await sales.post('/api/quotes').send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '31/12/2099', customerName: 'X' });
+    const date = await sales
+      .post('/api/quotes')
+      .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '31/12/2099', customerName: 'X' });
     expect(date.body.error.message).toMatch(/^deliveryDate:/);
-    const sku = await sales.post('/api/quotes').send({ sku: 'FH-NOPE-1', quantity: 3, deliveryDate: '2099-01-01', customerName: 'X' });
+    const sku = await sales
+      .post('/api/quotes')
+      .send({ sku: 'FH-NOPE-1', quantity: 3, deliveryDate: '2099-01-01', customerName: 'X' });
     expect(sku.status).toBe(400);
     expect(sku.body.error.message).toMatch(/^sku:/);
     const missing = await sales.get(`/api/quotes/${crypto.randomUUID()}`);

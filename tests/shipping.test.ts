@@ -72,7 +72,13 @@ describe('dimensionalWeight', () => {
 
 describe('shippingBox', () => {
   it('pads, rounds each inside dimension up to the box step, sorts largest first and adds two boards', () => {
-    const box = shippingBox([190, 165, 244], 735, { paddingMm: 20, boxStepMm: 10, boardThicknessMm: 4, boardGsm: 550, fillMassG: 40 });
+    const box = shippingBox([190, 165, 244], 735, {
+      paddingMm: 20,
+      boxStepMm: 10,
+      boardThicknessMm: 4,
+      boardGsm: 550,
+      fillMassG: 40,
+    });
     expect(box.innerMm).toEqual([290, 230, 210]); // 284 -> 290, 230 -> 230, 205 -> 210
     expect(box.outerMm).toEqual([298, 238, 218]);
     const areaM2 = (2 * (298 * 238 + 298 * 218 + 238 * 218)) / 1e6;

@@ -51,7 +51,9 @@ describe('variant spec sheet', () => {
 
   it('holds the hole height, material and colour, mass, back fit and price', () => {
     const facts = suite.fixture.variants[0].report.facts;
-    expect(text).toContain(`${Math.round(facts.holeAboveFloorMm)} mm (${(facts.holeAboveFloorMm / 25.4).toFixed(2)} in)`);
+    expect(text).toContain(
+      `${Math.round(facts.holeAboveFloorMm)} mm (${(facts.holeAboveFloorMm / 25.4).toFixed(2)} in)`,
+    );
     expect(text).toContain('PLA, Sand');
     expect(text).toContain(`${Math.round(suite.fixture.variants[0].report.massG)} g`);
     expect(text).toMatch(/Flat back/);
@@ -59,7 +61,8 @@ describe('variant spec sheet', () => {
   });
 
   it('holds the cautions (heat, perches, mounting height, predator guards, local rules) and the care', () => {
-    for (const title of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.']) expect(text).toContain(title);
+    for (const title of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.'])
+      expect(text).toContain(title);
     expect(text).toContain('41.7 °C'); // Audubon (2024) via trade-facts §1d: > 107 °F (41.7 °C) is lethal to nestlings
     expect(text).toMatch(/perch under the entry/); // USFWS "For the Birds" via trade-facts §1c
     expect(text).toMatch(/outside only/); // NestWatch FAQ via trade-facts §1c: paint the exterior only
@@ -121,7 +124,10 @@ describe('variant spec sheet', () => {
 describe('family spec sheet and errors', () => {
   it('puts every published variant of the family in one PDF, two pages each', async () => {
     const manager = await suite.t.agent('catalogue_manager');
-    const res = await manager.get(`/api/families/${suite.fixture.familyId}/spec-sheet.pdf`).buffer(true).parse(binaryBody);
+    const res = await manager
+      .get(`/api/families/${suite.fixture.familyId}/spec-sheet.pdf`)
+      .buffer(true)
+      .parse(binaryBody);
     expect(res.status).toBe(200);
     const file = savePdf(res.body as Buffer);
     expect(run('pdfinfo', [file])).toMatch(new RegExp(`Pages:\\s+${2 * suite.fixture.variants.length}\\b`));
@@ -134,12 +140,16 @@ describe('family spec sheet and errors', () => {
     expect(text).toMatch(/The roof can pass that temperature and may sag or warp/);
   }, 60_000);
 
-  it('shows the family\'s sample-print photo instead of the rendered view once one is uploaded', async () => {
+  it("shows the family's sample-print photo instead of the rendered view once one is uploaded", async () => {
     const designer = await suite.t.agent('designer');
     // a small PNG "photo" made with sharp
     const sharp = (await import('sharp')).default;
-    const png = await sharp({ create: { width: 240, height: 180, channels: 3, background: '#8a6649' } }).png().toBuffer();
-    const uploaded = await designer.post(`/api/families/${suite.fixture.familyId}/photos`).attach('photo', png, 'sample.png');
+    const png = await sharp({ create: { width: 240, height: 180, channels: 3, background: '#8a6649' } })
+      .png()
+      .toBuffer();
+    const uploaded = await designer
+      .post(`/api/families/${suite.fixture.familyId}/photos`)
+      .attach('photo', png, 'sample.png');
     expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
     const sales = await suite.t.agent('sales');
     const res = await sales.get(`/api/variants/${FIXTURE_SKUS[1]}/spec-sheet.pdf`).buffer(true).parse(binaryBody);
@@ -160,7 +170,12 @@ describe('woffToSfnt', () => {
   // fontkit (pdfkit's font reader, an outside library) opens both the WOFF and the unwrapped font; they must agree.
   const require = createRequire(import.meta.url);
   const fontkit = require('fontkit') as {
-    create(bytes: Buffer): { numGlyphs: number; postscriptName: string; type: string; glyphForCodePoint(cp: number): { advanceWidth: number } };
+    create(bytes: Buffer): {
+      numGlyphs: number;
+      postscriptName: string;
+      type: string;
+      glyphForCodePoint(cp: number): { advanceWidth: number };
+    };
   };
   it.each([
     '@fontsource/source-sans-3/files/source-sans-3-latin-400-normal.woff',
@@ -175,7 +190,9 @@ describe('woffToSfnt', () => {
     expect(plain.numGlyphs).toBe(packed.numGlyphs);
     expect(plain.postscriptName).toBe(packed.postscriptName);
     for (const ch of 'SKU 32 mm (1.26 in) €×³') {
-      expect(plain.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth).toBe(packed.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth);
+      expect(plain.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth).toBe(
+        packed.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth,
+      );
     }
   });
 });

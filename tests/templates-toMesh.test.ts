@@ -17,7 +17,10 @@ const { union } = jscad.booleans;
 describe('toMesh', () => {
   it('repairs the T-junctions of a JSCAD union into a closed manifold mesh', async () => {
     // A small block on a big one: the big top face is split where the small block's edges meet it (T-junctions).
-    const geometry = union(cuboid({ size: [40, 40, 10], center: [0, 0, 5] }), cuboid({ size: [10, 10, 10], center: [5, 3, 15] }));
+    const geometry = union(
+      cuboid({ size: [40, 40, 10], center: [0, 0, 5] }),
+      cuboid({ size: [10, 10, 10], center: [5, 3, 15] }),
+    );
     const mesh = toMesh([{ name: 'body', geometry }]);
     const report = await manifoldReport(mesh);
     // source: manifold-3d — NoError means closed and 2-manifold; volume analytic 40·40·10 + 10·10·10
@@ -40,7 +43,11 @@ describe('toMesh', () => {
       const copies = output.parts.map((part) => ({
         name: part.name,
         geometry: jscad.geometries.geom3.create(
-          jscad.geometries.geom3.toPolygons(part.geometry).map((polygon) => ({ vertices: polygon.vertices.map((v) => [v[0], v[1], v[2]] as [number, number, number]) })),
+          jscad.geometries.geom3
+            .toPolygons(part.geometry)
+            .map((polygon) => ({
+              vertices: polygon.vertices.map((v) => [v[0], v[1], v[2]] as [number, number, number]),
+            })),
         ),
       }));
       expect(await meshHash(toMesh(copies))).toBe(await meshHash(toMesh(output.parts)));

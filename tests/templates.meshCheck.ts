@@ -88,16 +88,24 @@ export async function admeshReport(mesh: IndexedMesh): Promise<AdmeshReport> {
 }
 
 /** Per-triangle area and unit normal, computed here (not by the code under test). */
-export function triangleFacets(mesh: IndexedMesh): { areaMm2: number; nx: number; ny: number; nz: number; minZ: number; cx: number; cy: number; cz: number }[] {
+export function triangleFacets(
+  mesh: IndexedMesh,
+): { areaMm2: number; nx: number; ny: number; nz: number; minZ: number; cx: number; cy: number; cz: number }[] {
   const p = mesh.positions;
   const out = [];
   for (let t = 0; t < mesh.indices.length; t += 3) {
     const a = mesh.indices[t] * 3;
     const b = mesh.indices[t + 1] * 3;
     const c = mesh.indices[t + 2] * 3;
-    const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
-    const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
-    const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
+    const ux = p[b] - p[a],
+      uy = p[b + 1] - p[a + 1],
+      uz = p[b + 2] - p[a + 2];
+    const vx = p[c] - p[a],
+      vy = p[c + 1] - p[a + 1],
+      vz = p[c + 2] - p[a + 2];
+    const nx = uy * vz - uz * vy,
+      ny = uz * vx - ux * vz,
+      nz = ux * vy - uy * vx;
     const len = Math.hypot(nx, ny, nz);
     if (len === 0) continue;
     out.push({

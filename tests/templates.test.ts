@@ -36,8 +36,20 @@ function cornerSets(template: AnyTemplate): { label: string; params: Record<stri
     { label: 'defaults', params: {} },
     { label: 'all minimum', params: low },
     { label: 'all maximum', params: high },
-    { label: 'maximum with flags off', params: { ...high, ...Object.fromEntries(described.filter((p) => p.kind === 'boolean').map((p) => [p.key, false])) } },
-    { label: 'minimum with flags on', params: { ...low, ...Object.fromEntries(described.filter((p) => p.kind === 'boolean').map((p) => [p.key, true])) } },
+    {
+      label: 'maximum with flags off',
+      params: {
+        ...high,
+        ...Object.fromEntries(described.filter((p) => p.kind === 'boolean').map((p) => [p.key, false])),
+      },
+    },
+    {
+      label: 'minimum with flags on',
+      params: {
+        ...low,
+        ...Object.fromEntries(described.filter((p) => p.kind === 'boolean').map((p) => [p.key, true])),
+      },
+    },
   ];
   for (const p of described.filter((d) => d.kind === 'choice')) {
     for (const option of p.options ?? []) sets.push({ label: `${p.key}=${option}`, params: { [p.key]: option } });
@@ -125,27 +137,67 @@ describe.each(TEMPLATES.map((template) => [template.id, template] as const))('te
 describe('regressions found by the property test', () => {
   it.each([
     // a smooth trunk whose back cut only grazed the outside left slivers (4 bodies)
-    ['bark-trunk', { cavityDiameterMm: 155, cavityDepthMm: 141, storeys: 2, wallThicknessMm: 4, barkDepthMm: 0, knotRimMm: 0, mountRadiusMm: 479.7, ventilationSlots: 5, drainageHoles: 0, hangingHole: false }],
+    [
+      'bark-trunk',
+      {
+        cavityDiameterMm: 155,
+        cavityDepthMm: 141,
+        storeys: 2,
+        wallThicknessMm: 4,
+        barkDepthMm: 0,
+        knotRimMm: 0,
+        mountRadiusMm: 479.7,
+        ventilationSlots: 5,
+        drainageHoles: 0,
+        hangingHole: false,
+      },
+    ],
     // a knot rim of almost zero width along a wide hole left a zero-volume sliver (2 bodies); found with the entry at
     // 121 mm, which the geometry then lowered to 105 mm (now parseParams rejects over 105.3 mm for this cavity)
-    ['bark-trunk', { entryHoleDiameterMm: 57.53, holeAboveFloorMm: 105, cavityDiameterMm: 90, cavityDepthMm: 158, wallThicknessMm: 6.02, barkDepthMm: 3, barkSeed: 10, knotRimMm: 1e-9, mountRadiusMm: 133.4, ventilationSlots: 4, drainageHoles: 6, hangingHole: false, cleaningAccess: false, printClearanceMm: 1 }],
-  ] as const)('%s %o', async (id, params) => {
-    await expectValid(await generate(id, params));
-  }, 60_000);
+    [
+      'bark-trunk',
+      {
+        entryHoleDiameterMm: 57.53,
+        holeAboveFloorMm: 105,
+        cavityDiameterMm: 90,
+        cavityDepthMm: 158,
+        wallThicknessMm: 6.02,
+        barkDepthMm: 3,
+        barkSeed: 10,
+        knotRimMm: 1e-9,
+        mountRadiusMm: 133.4,
+        ventilationSlots: 4,
+        drainageHoles: 6,
+        hangingHole: false,
+        cleaningAccess: false,
+        printClearanceMm: 1,
+      },
+    ],
+  ] as const)(
+    '%s %o',
+    async (id, params) => {
+      await expectValid(await generate(id, params));
+    },
+    60_000,
+  );
 });
 
 describe('default designs suit a small cavity nester', () => {
-  it.each(TEMPLATES.map((t) => [t.id] as const))('%s: 32 mm hole at least 125 mm above the floor, walls ≥ 10 mm', async (id) => {
-    const { facts } = await generate(id, {});
-    // source: NABU/BUND 32 mm and RSPB ≥ 125 mm via trade-facts §1b
-    expect(facts.entryHoleDiameterMm).toBe(32);
-    expect(facts.holeAboveFloorMm).toBeGreaterThanOrEqual(125);
-    // source: NABU 12 × 12 cm base via trade-facts §1b (round chambers: diameter ≥ 10 cm, from memory close enough)
-    expect(facts.floorWidthMm).toBeGreaterThanOrEqual(100);
-    // walls: printed walls with air-filled infill; 10 mm is our choice (trade-facts §7.4 gives 15–20 mm for wood)
-    expect(facts.wallThicknessMm).toBeGreaterThanOrEqual(10);
-    expect(facts.hasPerch).toBe(false);
-    expect(facts.drainageHoleCount).toBeGreaterThan(0);
-    expect(facts.ventilationAreaMm2).toBeGreaterThan(0);
-  }, 60_000);
+  it.each(TEMPLATES.map((t) => [t.id] as const))(
+    '%s: 32 mm hole at least 125 mm above the floor, walls ≥ 10 mm',
+    async (id) => {
+      const { facts } = await generate(id, {});
+      // source: NABU/BUND 32 mm and RSPB ≥ 125 mm via trade-facts §1b
+      expect(facts.entryHoleDiameterMm).toBe(32);
+      expect(facts.holeAboveFloorMm).toBeGreaterThanOrEqual(125);
+      // source: NABU 12 × 12 cm base via trade-facts §1b (round chambers: diameter ≥ 10 cm, from memory close enough)
+      expect(facts.floorWidthMm).toBeGreaterThanOrEqual(100);
+      // walls: printed walls with air-filled infill; 10 mm is our choice (trade-facts §7.4 gives 15–20 mm for wood)
+      expect(facts.wallThicknessMm).toBeGreaterThanOrEqual(10);
+      expect(facts.hasPerch).toBe(false);
+      expect(facts.drainageHoleCount).toBeGreaterThan(0);
+      expect(facts.ventilationAreaMm2).toBeGreaterThan(0);
+    },
+    60_000,
+  );
 });

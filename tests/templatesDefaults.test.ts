@@ -42,13 +42,35 @@ describe('fitPartSizes (shared part-fit rule)', () => {
 
   it('packs complete sets by hand-checked counts', () => {
     // Two 100 × 100 parts with 10 mm gaps on a 220 × 220 plate: a 2 × 2 grid holds 4 parts = 2 sets (analytic).
-    expect(fitPartSizes([[100, 100, 50], [100, 100, 10]], [220, 220, 250])).toMatchObject({ fits: true, setsPerPlate: 2, copiesPerPlate: 2 });
+    expect(
+      fitPartSizes(
+        [
+          [100, 100, 50],
+          [100, 100, 10],
+        ],
+        [220, 220, 250],
+      ),
+    ).toMatchObject({ fits: true, setsPerPlate: 2, copiesPerPlate: 2 });
     // A 190 × 165 body and a 140 × 140 plug on 256 × 256: side by side 190 + 10 + 140 = 340 and stacked
     // 165 + 10 + 140 = 315, both over 256, so no set fits one plate; each part fits alone (1 body per plate).
-    const apart = fitPartSizes([[190, 165, 240], [140, 140, 18]], [256, 256, 256]);
+    const apart = fitPartSizes(
+      [
+        [190, 165, 240],
+        [140, 140, 18],
+      ],
+      [256, 256, 256],
+    );
     expect(apart).toMatchObject({ fits: true, setsPerPlate: 0, copiesPerPlate: 1, heightMm: 240 });
     // A part taller than the build height does not fit, whatever its footprint.
-    expect(fitPartSizes([[100, 100, 260], [50, 50, 10]], [256, 256, 256]).fits).toBe(false);
+    expect(
+      fitPartSizes(
+        [
+          [100, 100, 260],
+          [50, 50, 10],
+        ],
+        [256, 256, 256],
+      ).fits,
+    ).toBe(false);
   });
 });
 
@@ -56,7 +78,13 @@ describe('analyzeMesh plate fit with known parts', () => {
   it('fits the gable box part by part where the side-by-side layout as a whole is too wide', async () => {
     const result = await generate('gable-box', {});
     const printer = DEFAULT_PRINTERS.find((p) => p.id === 'cube-256')!;
-    const options = { printer, material: DEFAULT_MATERIALS[0], settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES, geometry: { supportMaxRays: 20_000, wallSamples: 200 } };
+    const options = {
+      printer,
+      material: DEFAULT_MATERIALS[0],
+      settings: DEFAULT_SETTINGS,
+      rates: DEFAULT_RATES,
+      geometry: { supportMaxRays: 20_000, wallSamples: 200 },
+    };
     const whole = analyzeMesh(result.mesh, options).report;
     // body 182 mm + 10 mm gap + plug 132 mm laid side by side: over 256 mm as one block (measured layout)
     expect(whole.bbox.sizeMm[0]).toBeGreaterThan(256);
@@ -66,7 +94,10 @@ describe('analyzeMesh plate fit with known parts', () => {
     expect(parts.warnings.join(' ')).not.toMatch(/does not fit/);
     // An exported file does not say where one part ends: its connected parts are fitted the same way.
     expect(whole.components).toBe(2);
-    expect(whole.buildPlate).toMatchObject({ fits: parts.buildPlate.fits, copiesPerPlate: parts.buildPlate.copiesPerPlate });
+    expect(whole.buildPlate).toMatchObject({
+      fits: parts.buildPlate.fits,
+      copiesPerPlate: parts.buildPlate.copiesPerPlate,
+    });
   }, 60_000);
 
   it('ignores the inner shell of a hollow part when fitting connected parts', () => {
@@ -116,7 +147,13 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
       expect(fit.copiesPerPlate).toBeGreaterThanOrEqual(1);
       const printer = DEFAULT_PRINTERS.find((p) => p.id === printerId)!;
       const material = DEFAULT_MATERIALS[0];
-      const choice = { printer, material, colour: material.colours[0], settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES };
+      const choice = {
+        printer,
+        material,
+        colour: material.colours[0],
+        settings: DEFAULT_SETTINGS,
+        rates: DEFAULT_RATES,
+      };
       expect(computeDesignFigures(result, choice).figures.fitsPrinter).toBe(true);
     }
   }, 60_000);
@@ -130,7 +167,8 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
     const bodyTriangles = result.partTriangles[0];
     const r = (result.params.entryHoleDiameterMm as number) / 2;
     let topZ = -Infinity;
-    for (let i = 0; i < bodyTriangles * 3; i++) topZ = Math.max(topZ, result.mesh.positions[result.mesh.indices[i] * 3 + 2]);
+    for (let i = 0; i < bodyTriangles * 3; i++)
+      topZ = Math.max(topZ, result.mesh.positions[result.mesh.indices[i] * 3 + 2]);
     // Floor of the cavity in print coordinates. The gable prints roof-down: its open bottom is the body's top and the
     // floor is the plug's 8 mm boss (PLUG_BOSS_MM in templates/gableBox.ts) inside it.
     const floorZ = upright ? floorTopAtCentre(result.mesh, bodyTriangles) : topZ - 8;
@@ -149,12 +187,16 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
     }
     const measuredMm = Math.abs(open - floorZ);
     // Tolerance 0.5 mm: the teardrop's pointed edge is a polygon of 48 segments (template geometry, analytic bound).
-    expect(Math.abs(measuredMm - param), `${id}: hole bottom ${measuredMm.toFixed(2)} mm vs ${param} mm`).toBeLessThan(0.5);
+    expect(Math.abs(measuredMm - param), `${id}: hole bottom ${measuredMm.toFixed(2)} mm vs ${param} mm`).toBeLessThan(
+      0.5,
+    );
   }, 60_000);
 
   it('raises no blocking bird-fit warning except thin walls', async () => {
     const result = await generate(id, {});
-    const blocking = assessBirdFit(result.facts).warnings.filter((w) => w.severity === 'warning').map((w) => w.code);
+    const blocking = assessBirdFit(result.facts)
+      .warnings.filter((w) => w.severity === 'warning')
+      .map((w) => w.code);
     // 'thin-walls' is true for every printed PLA box: 10 mm of PLA is thinner than the 15–19 mm wood that guidance
     // asks for (trade-facts §2a), so it stays and says how to compensate.
     expect(blocking.filter((code) => code !== 'thin-walls')).toEqual([]);
@@ -163,7 +205,9 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
   it('rejects an entry too high for the cavity by field and range, never moving it silently', async () => {
     // 220 mm is the declared maximum; at the default cavity the entry would cut into the roof.
     await expect(generate(id, { holeAboveFloorMm: 220 })).rejects.toThrow(TemplateParamError);
-    await expect(generate(id, { holeAboveFloorMm: 220 })).rejects.toThrow(/^holeAboveFloorMm must be between 60 and \d+(\.\d)? mm for /);
+    await expect(generate(id, { holeAboveFloorMm: 220 })).rejects.toThrow(
+      /^holeAboveFloorMm must be between 60 and \d+(\.\d)? mm for /,
+    );
   });
 });
 
@@ -191,11 +235,14 @@ function hollowCube(outer: number, inner: number): IndexedMesh {
   const corners = (size: number) => {
     const h = size / 2;
     const out: number[] = [];
-    for (const z of [-h, h]) for (const y of [-h, h]) for (const x of [-h, h]) out.push(x + outer / 2, y + outer / 2, z + outer / 2);
+    for (const z of [-h, h])
+      for (const y of [-h, h]) for (const x of [-h, h]) out.push(x + outer / 2, y + outer / 2, z + outer / 2);
     return out;
   };
   // faces of a cube over corners 0..7 (x fastest), counter-clockwise seen from outside
-  const faces = [0, 2, 1, 1, 2, 3, 4, 5, 6, 5, 7, 6, 0, 1, 4, 1, 5, 4, 2, 6, 3, 3, 6, 7, 0, 4, 2, 2, 4, 6, 1, 3, 5, 3, 7, 5];
+  const faces = [
+    0, 2, 1, 1, 2, 3, 4, 5, 6, 5, 7, 6, 0, 1, 4, 1, 5, 4, 2, 6, 3, 3, 6, 7, 0, 4, 2, 2, 4, 6, 1, 3, 5, 3, 7, 5,
+  ];
   const indices = [...faces, ...faces.map((v, i) => (i % 3 === 1 ? faces[i + 1] : i % 3 === 2 ? faces[i - 1] : v) + 8)];
   return { positions: new Float32Array([...corners(outer), ...corners(inner)]), indices: new Uint32Array(indices) };
 }

@@ -121,10 +121,14 @@ export async function seedFamilies(db: Db, log: (line: string) => void): Promise
       const computed = await acknowledgeForDemo(ctx, designer, family.id);
       await transitionFamily(ctx, designer, family.id, 'submit');
       if (target === 'published') {
-        await transitionFamily(ctx, manager, family.id, 'approve', { comment: 'Checked the matrix and the photos of the 28 mm sample.' });
+        await transitionFamily(ctx, manager, family.id, 'approve', {
+          comment: 'Checked the matrix and the photos of the 28 mm sample.',
+        });
         await transitionFamily(ctx, manager, family.id, 'publish');
       }
-      log(`  demo family ${body.code}: ${computed} variants computed, ${target} (${Math.round(performance.now() - started)} ms)`);
+      log(
+        `  demo family ${body.code}: ${computed} variants computed, ${target} (${Math.round(performance.now() - started)} ms)`,
+      );
     } else log(`  demo family ${body.code}: draft, not computed`);
   }
 }

@@ -27,7 +27,8 @@ const steps: SeedStep[] = [];
  * @param step - the step
  */
 export function registerSeedStep(step: SeedStep): void {
-  if (steps.some((existing) => existing.name === step.name)) throw new Error(`Seed step "${step.name}" is registered twice`);
+  if (steps.some((existing) => existing.name === step.name))
+    throw new Error(`Seed step "${step.name}" is registered twice`);
   steps.push(step);
 }
 

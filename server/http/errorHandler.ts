@@ -37,7 +37,9 @@ export function errorHandler(logError: (err: unknown) => void): ErrorRequestHand
       if (err.details !== undefined) body.error.details = err.details;
     } else if (isExposed(err)) {
       status = err.status ?? 400;
-      body = { error: BODY_ERRORS[err.type ?? ''] ?? { code: 'bad_request', message: 'The request was not understood.' } };
+      body = {
+        error: BODY_ERRORS[err.type ?? ''] ?? { code: 'bad_request', message: 'The request was not understood.' },
+      };
     } else {
       logError(err);
     }

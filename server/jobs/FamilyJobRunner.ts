@@ -46,7 +46,16 @@ export class FamilyJobRunner {
     await db.transaction(async (tx) => {
       await tx
         .update(familyVariants)
-        .set({ status: 'pending', sha256: null, report: null, cost: null, verdict: null, reasons: [], birdFitWarnings: [], error: null })
+        .set({
+          status: 'pending',
+          sha256: null,
+          report: null,
+          cost: null,
+          verdict: null,
+          reasons: [],
+          birdFitWarnings: [],
+          error: null,
+        })
         .where(eq(familyVariants.revisionId, revisionId));
       const [{ total }] = await tx
         .select({ total: sql<number>`count(*)::int` })

@@ -69,13 +69,24 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
       update = { status: 'done', sha256: geometry.sha256, params: geometry.params, ...evaluation, error: null };
     } catch (err) {
       if (options.isCancelled()) return false;
-      update = { status: 'failed', verdict: 'fail', reasons: ['the template could not build it'], error: (err as Error).message };
+      update = {
+        status: 'failed',
+        verdict: 'fail',
+        reasons: ['the template could not build it'],
+        error: (err as Error).message,
+      };
     }
     if (options.isCancelled()) return false;
     done += 1;
     await db.transaction(async (tx) => {
-      await tx.update(familyVariants).set({ ...update, updatedAt: new Date() }).where(eq(familyVariants.id, variant.id));
-      await tx.update(familyRevisions).set({ computeDone: done, updatedAt: new Date() }).where(eq(familyRevisions.id, revisionId));
+      await tx
+        .update(familyVariants)
+        .set({ ...update, updatedAt: new Date() })
+        .where(eq(familyVariants.id, variant.id));
+      await tx
+        .update(familyRevisions)
+        .set({ computeDone: done, updatedAt: new Date() })
+        .where(eq(familyRevisions.id, revisionId));
     });
     options.onVariant?.(done, total, { sku: variant.sku, verdict: update.verdict });
   }

@@ -63,7 +63,8 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
   );
   const warnings: string[] = [];
   if (fitsPrinter && partsFit.setsPerPlate === 0) warnings.push('the parts need separate build plates on this printer');
-  if (geometry.maxBridgeSpanMm > 10) warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
+  if (geometry.maxBridgeSpanMm > 10)
+    warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
   const birdFit = assessBirdFit(geometry.facts, context.region ? { region: context.region } : {});
   const report: VariantReport = {
     triangles: geometry.triangles,

@@ -47,7 +47,10 @@ export interface VariantGeometry {
  * @param params - raw parameters (missing keys take defaults)
  * @throws TemplateParamError / MeshValidationError from generate()
  */
-export async function computeVariantGeometry(templateId: string, params: Record<string, unknown>): Promise<VariantGeometry> {
+export async function computeVariantGeometry(
+  templateId: string,
+  params: Record<string, unknown>,
+): Promise<VariantGeometry> {
   const started = performance.now();
   const result = await generate(templateId, params);
   const built = performance.now();

@@ -14,12 +14,12 @@ export interface VariantWorkerRequest {
 
 /** The worker's answer. */
 export type VariantWorkerResponse =
-  | { requestId: number; ok: true; geometry: VariantGeometry }
-  | { requestId: number; ok: false; error: string };
+  { requestId: number; ok: true; geometry: VariantGeometry } | { requestId: number; ok: false; error: string };
 
 parentPort?.on('message', (request: VariantWorkerRequest) => {
   computeVariantGeometry(request.templateId, request.params).then(
-    (geometry) => parentPort?.postMessage({ requestId: request.requestId, ok: true, geometry } satisfies VariantWorkerResponse),
+    (geometry) =>
+      parentPort?.postMessage({ requestId: request.requestId, ok: true, geometry } satisfies VariantWorkerResponse),
     (err: unknown) =>
       parentPort?.postMessage({
         requestId: request.requestId,

@@ -33,7 +33,10 @@ export class FakeSmtpServer {
           this.db
             .insert(mailMessages)
             .values({ from, to, subject, text })
-            .then(() => callback(), (err: Error) => callback(err));
+            .then(
+              () => callback(),
+              (err: Error) => callback(err),
+            );
         });
       },
     });

@@ -6,10 +6,13 @@ export interface ParsedMail {
 
 /** Decodes RFC 2047 encoded words (`=?UTF-8?B?...?=`, `=?UTF-8?Q?...?=`) in a header value. */
 function decodeWords(value: string): string {
-  return value.replace(/=\?([^?]+)\?([bBqQ])\?([^?]*)\?=\s*/g, (_match, _charset: string, encoding: string, data: string) => {
-    if (encoding.toUpperCase() === 'B') return Buffer.from(data, 'base64').toString('utf8');
-    return decodeQuotedPrintable(data.replace(/_/g, ' '));
-  });
+  return value.replace(
+    /=\?([^?]+)\?([bBqQ])\?([^?]*)\?=\s*/g,
+    (_match, _charset: string, encoding: string, data: string) => {
+      if (encoding.toUpperCase() === 'B') return Buffer.from(data, 'base64').toString('utf8');
+      return decodeQuotedPrintable(data.replace(/_/g, ' '));
+    },
+  );
 }
 
 /** Decodes quoted-printable text (soft line breaks and =XX bytes) as UTF-8. */

@@ -59,15 +59,26 @@ export function drawOrthographicViews(doc: PDFKit.PDFDocument, drawing: Orthogra
   horizontalDim(doc, sideOrigin.x, sideOrigin.x + side.widthMm * s, sideOrigin.y + 12, drawing.overallMm.depthMm);
 
   doc.font(FONT.body).fontSize(7.5).fillColor('#6c675b');
-  doc.text(`Scale 1:${scaleN} on A4 at 100 %. Third-angle projection. Hidden edges dashed.`, box.x, box.y + box.height - 10, {
-    width: box.width,
-    align: 'right',
-    lineBreak: false,
-  });
+  doc.text(
+    `Scale 1:${scaleN} on A4 at 100 %. Third-angle projection. Hidden edges dashed.`,
+    box.x,
+    box.y + box.height - 10,
+    {
+      width: box.width,
+      align: 'right',
+      lineBreak: false,
+    },
+  );
   return scaleN;
 }
 
-function drawView(doc: PDFKit.PDFDocument, view: OrthographicView, origin: { x: number; y: number }, s: number, label: string): void {
+function drawView(
+  doc: PDFKit.PDFDocument,
+  view: OrthographicView,
+  origin: { x: number; y: number },
+  s: number,
+  label: string,
+): void {
   const px = (u: number) => origin.x + (u - view.minMm[0]) * s;
   const py = (v: number) => origin.y - (v - view.minMm[1]) * s;
   doc.save();
@@ -86,7 +97,8 @@ function strokeSegments(
   px: (u: number) => number,
   py: (v: number) => number,
 ): void {
-  for (let i = 0; i < segments.length; i += 4) doc.moveTo(px(segments[i]), py(segments[i + 1])).lineTo(px(segments[i + 2]), py(segments[i + 3]));
+  for (let i = 0; i < segments.length; i += 4)
+    doc.moveTo(px(segments[i]), py(segments[i + 1])).lineTo(px(segments[i + 2]), py(segments[i + 3]));
   if (segments.length > 0) doc.stroke();
 }
 
@@ -96,7 +108,12 @@ function dimLabel(mm: number): string {
 
 function horizontalDim(doc: PDFKit.PDFDocument, x1: number, x2: number, y: number, mm: number): void {
   doc.save().lineWidth(0.4).strokeColor(DIM).fillColor(DIM);
-  doc.moveTo(x1, y - 9).lineTo(x1, y + 3).moveTo(x2, y - 9).lineTo(x2, y + 3).stroke();
+  doc
+    .moveTo(x1, y - 9)
+    .lineTo(x1, y + 3)
+    .moveTo(x2, y - 9)
+    .lineTo(x2, y + 3)
+    .stroke();
   doc.moveTo(x1, y).lineTo(x2, y).stroke();
   arrow(doc, x1, y, 1, 0);
   arrow(doc, x2, y, -1, 0);
@@ -108,7 +125,12 @@ function horizontalDim(doc: PDFKit.PDFDocument, x1: number, x2: number, y: numbe
 
 function verticalDim(doc: PDFKit.PDFDocument, x: number, y1: number, y2: number, mm: number): void {
   doc.save().lineWidth(0.4).strokeColor(DIM).fillColor(DIM);
-  doc.moveTo(x - 3, y1).lineTo(x + 9, y1).moveTo(x - 3, y2).lineTo(x + 9, y2).stroke();
+  doc
+    .moveTo(x - 3, y1)
+    .lineTo(x + 9, y1)
+    .moveTo(x - 3, y2)
+    .lineTo(x + 9, y2)
+    .stroke();
   doc.moveTo(x, y1).lineTo(x, y2).stroke();
   arrow(doc, x, y1, 0, 1);
   arrow(doc, x, y2, 0, -1);

@@ -31,7 +31,9 @@ const FILES: Record<(typeof FONT)[keyof typeof FONT], string> = {
  * @param doc - a new pdfkit document
  */
 export function registerPdfFonts(doc: PDFKit.PDFDocument): void {
-  fonts ??= Object.entries(FILES).map(([name, file]) => [name, woffToSfnt(readFileSync(require.resolve(file)))] as const);
+  fonts ??= Object.entries(FILES).map(
+    ([name, file]) => [name, woffToSfnt(readFileSync(require.resolve(file)))] as const,
+  );
   for (const [name, bytes] of fonts) doc.registerFont(name, bytes);
   doc.font(FONT.body);
 }
@@ -43,7 +45,16 @@ let fonts: ReadonlyArray<readonly [string, Buffer]> | undefined;
 export type PdfDoc = InstanceType<typeof PDFDocument>;
 
 /** Characters the shipped latin font subsets lack, and what to print instead. */
-const MISSING_GLYPHS: Record<string, string> = { '≥': '>=', '≤': '<=', '→': '->', '≈': '~', '⅛': '1/8', '⅜': '3/8', '⅝': '5/8', '⅞': '7/8' };
+const MISSING_GLYPHS: Record<string, string> = {
+  '≥': '>=',
+  '≤': '<=',
+  '→': '->',
+  '≈': '~',
+  '⅛': '1/8',
+  '⅜': '3/8',
+  '⅝': '5/8',
+  '⅞': '7/8',
+};
 
 /**
  * Text with the characters the shipped fonts cannot show replaced by plain equivalents (`≥` -> `>=`), for text that

@@ -22,7 +22,12 @@ export function pageHeader(doc: PDFKit.PDFDocument, studioName: string, kind: st
   doc.text(studioName.toUpperCase(), margin, 22, { characterSpacing: 1.2, lineBreak: false });
   doc.font(FONT.body).fontSize(8).fillColor(INK.muted);
   doc.text(kind, margin, 22, { width: CONTENT_WIDTH, align: 'right', lineBreak: false });
-  doc.moveTo(margin, 36).lineTo(PAGE.width - margin, 36).lineWidth(0.5).strokeColor(INK.rule).stroke();
+  doc
+    .moveTo(margin, 36)
+    .lineTo(PAGE.width - margin, 36)
+    .lineWidth(0.5)
+    .strokeColor(INK.rule)
+    .stroke();
 }
 
 /**
@@ -35,13 +40,22 @@ export function pageFooters(doc: PDFKit.PDFDocument, note: string): void {
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
     const y = PAGE.height - PAGE.margin + 14;
-    doc.moveTo(PAGE.margin, y - 6).lineTo(PAGE.width - PAGE.margin, y - 6).lineWidth(0.5).strokeColor(INK.rule).stroke();
+    doc
+      .moveTo(PAGE.margin, y - 6)
+      .lineTo(PAGE.width - PAGE.margin, y - 6)
+      .lineWidth(0.5)
+      .strokeColor(INK.rule)
+      .stroke();
     doc.font(FONT.body).fontSize(7).fillColor(INK.muted);
     // Writing below the bottom margin would add a page: lift the margin for the footer line.
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
     doc.text(note, PAGE.margin, y, { width: CONTENT_WIDTH - 80, lineBreak: false });
-    doc.text(`Page ${i - range.start + 1} of ${range.count}`, PAGE.margin, y, { width: CONTENT_WIDTH, align: 'right', lineBreak: false });
+    doc.text(`Page ${i - range.start + 1} of ${range.count}`, PAGE.margin, y, {
+      width: CONTENT_WIDTH,
+      align: 'right',
+      lineBreak: false,
+    });
     doc.page.margins.bottom = bottom;
   }
 }
@@ -57,7 +71,12 @@ export function pageFooters(doc: PDFKit.PDFDocument, note: string): void {
 export function sectionHeading(doc: PDFKit.PDFDocument, title: string, x: number, y: number, width: number): number {
   doc.font(FONT.bodyBold).fontSize(9.5).fillColor(INK.accent);
   doc.text(title.toUpperCase(), x, y, { characterSpacing: 0.9, lineBreak: false });
-  doc.moveTo(x, y + 13).lineTo(x + width, y + 13).lineWidth(0.5).strokeColor(INK.rule).stroke();
+  doc
+    .moveTo(x, y + 13)
+    .lineTo(x + width, y + 13)
+    .lineWidth(0.5)
+    .strokeColor(INK.rule)
+    .stroke();
   return y + 19;
 }
 
@@ -83,8 +102,16 @@ export function keyValueRows(
     doc.font(FONT.body).fontSize(8.5);
     const h = Math.max(doc.heightOfString(value, { width: width - labelWidth - 6 }), 10) + 5;
     if (i % 2 === 0) doc.rect(x, cursor - 2, width, h).fill(INK.band);
-    doc.font(FONT.bodySemibold).fontSize(8.5).fillColor(INK.muted).text(label, x + 4, cursor + 1, { width: labelWidth - 4 });
-    doc.font(FONT.body).fontSize(8.5).fillColor(INK.text).text(value, x + labelWidth, cursor + 1, { width: width - labelWidth - 6 });
+    doc
+      .font(FONT.bodySemibold)
+      .fontSize(8.5)
+      .fillColor(INK.muted)
+      .text(label, x + 4, cursor + 1, { width: labelWidth - 4 });
+    doc
+      .font(FONT.body)
+      .fontSize(8.5)
+      .fillColor(INK.text)
+      .text(value, x + labelWidth, cursor + 1, { width: width - labelWidth - 6 });
     cursor += h;
   });
   return cursor + 2;

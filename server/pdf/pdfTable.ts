@@ -11,7 +11,14 @@ import { INK } from './pdfPageFrame';
  * @param x - left edge
  * @param y - top
  */
-export function pdfTable(doc: PDFKit.PDFDocument, head: string[], rows: string[][], widths: number[], x: number, y: number): number {
+export function pdfTable(
+  doc: PDFKit.PDFDocument,
+  head: string[],
+  rows: string[][],
+  widths: number[],
+  x: number,
+  y: number,
+): number {
   const total = widths.reduce((a, b) => a + b, 0);
   doc.rect(x, y, total, 15).fill(INK.accent);
   let cx = x;
@@ -33,6 +40,11 @@ export function pdfTable(doc: PDFKit.PDFDocument, head: string[], rows: string[]
     });
     cursor += h;
   });
-  doc.moveTo(x, cursor).lineTo(x + total, cursor).lineWidth(0.5).strokeColor(INK.rule).stroke();
+  doc
+    .moveTo(x, cursor)
+    .lineTo(x + total, cursor)
+    .lineWidth(0.5)
+    .strokeColor(INK.rule)
+    .stroke();
   return cursor + 6;
 }

@@ -23,7 +23,11 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
   pageHeader(doc, studioName, 'Wholesale quote');
   const x = PAGE.margin;
   doc.font(FONT.display).fontSize(22).fillColor(INK.text).text(`Quote ${quote.reference}`, x, 48);
-  doc.font(FONT.body).fontSize(10).fillColor(INK.muted).text(`For ${quote.customerName} · issued ${quote.createdAt.slice(0, 10)}`, x, doc.y + 2);
+  doc
+    .font(FONT.body)
+    .fontSize(10)
+    .fillColor(INK.muted)
+    .text(`For ${quote.customerName} · issued ${quote.createdAt.slice(0, 10)}`, x, doc.y + 2);
 
   const m = (cents: number) => money(cents, quote.currency);
   let y = sectionHeading(doc, 'Goods', x, doc.y + 16, CONTENT_WIDTH);
@@ -78,7 +82,10 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
     y = pdfTable(
       doc,
       ['From quantity', 'Discount', 'Unit price'],
-      [['1', '0 %', m(quote.listPriceCents)], ...quote.breaks.map((b) => [String(b.minQuantity), `${b.discountPct} %`, m(b.unitPriceCents)])],
+      [
+        ['1', '0 %', m(quote.listPriceCents)],
+        ...quote.breaks.map((b) => [String(b.minQuantity), `${b.discountPct} %`, m(b.unitPriceCents)]),
+      ],
       [140, 140, 140],
       x,
       y,

@@ -84,7 +84,8 @@ export async function renderSpecSheetsPdf(sheets: SpecSheetInput[]): Promise<Buf
     bufferPages: true,
     autoFirstPage: false,
     info: {
-      Title: sheets.length === 1 ? `Spec sheet ${first.sku} – ${first.productName}` : `Spec sheets – ${first.familyName}`,
+      Title:
+        sheets.length === 1 ? `Spec sheet ${first.sku} – ${first.productName}` : `Spec sheets – ${first.familyName}`,
       Author: first?.studioName ?? 'Nestwright',
       Subject: 'Product specification',
     },
@@ -106,13 +107,25 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   doc.addPage();
   pageHeader(doc, s.studioName, 'Product specification');
   const x = PAGE.margin;
-  doc.font(FONT.display).fontSize(22).fillColor(INK.text).text(s.productName, x, 48, { width: CONTENT_WIDTH - 150 });
+  doc
+    .font(FONT.display)
+    .fontSize(22)
+    .fillColor(INK.text)
+    .text(s.productName, x, 48, { width: CONTENT_WIDTH - 150 });
   const afterTitle = doc.y;
-  doc.font(FONT.mono).fontSize(10).fillColor(INK.accent).text(`SKU ${s.sku}`, x, afterTitle + 2, { lineBreak: false });
+  doc
+    .font(FONT.mono)
+    .fontSize(10)
+    .fillColor(INK.accent)
+    .text(`SKU ${s.sku}`, x, afterTitle + 2, { lineBreak: false });
   doc.font(FONT.body).fontSize(9).fillColor(INK.muted);
   doc.text(`${s.familyName} family · ${s.templateName} template`, x, afterTitle + 16, { lineBreak: false });
   doc.rect(PAGE.width - PAGE.margin - 140, 50, 140, 38).fill(INK.band);
-  doc.font(FONT.body).fontSize(7.5).fillColor(INK.muted).text('ENTRY HOLE', PAGE.width - PAGE.margin - 134, 55, { lineBreak: false, characterSpacing: 0.8 });
+  doc
+    .font(FONT.body)
+    .fontSize(7.5)
+    .fillColor(INK.muted)
+    .text('ENTRY HOLE', PAGE.width - PAGE.margin - 134, 55, { lineBreak: false, characterSpacing: 0.8 });
   doc.font(FONT.bodyBold).fontSize(12).fillColor(INK.text);
   doc.text(mmIn(s.entryHoleDiameterMm), PAGE.width - PAGE.margin - 134, 66, { width: 130, lineBreak: false });
 
@@ -121,7 +134,11 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   const pictureH = 180;
   doc.rect(x, top, pictureW, pictureH).fill('#fcfaf4');
   doc.image(s.picturePng, x + 8, top + 8, { fit: [pictureW - 16, pictureH - 24], align: 'center', valign: 'center' });
-  doc.font(FONT.body).fontSize(7).fillColor(INK.muted).text(s.pictureCaption, x + 6, top + pictureH - 12, { width: pictureW - 12, lineBreak: false });
+  doc
+    .font(FONT.body)
+    .fontSize(7)
+    .fillColor(INK.muted)
+    .text(s.pictureCaption, x + 6, top + pictureH - 12, { width: pictureW - 12, lineBreak: false });
 
   const colX = x + pictureW + 18;
   const colW = CONTENT_WIDTH - pictureW - 18;
@@ -156,12 +173,25 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
     104,
   );
   doc.rect(colX, y + 2, 10, 10).fill(s.colour.hex);
-  doc.rect(colX, y + 2, 10, 10).lineWidth(0.4).strokeColor(INK.rule).stroke();
-  doc.font(FONT.body).fontSize(7.5).fillColor(INK.muted).text(`Colour sample: ${s.colour.name} (${s.colour.hex})`, colX + 15, y + 3.5, { lineBreak: false });
+  doc
+    .rect(colX, y + 2, 10, 10)
+    .lineWidth(0.4)
+    .strokeColor(INK.rule)
+    .stroke();
+  doc
+    .font(FONT.body)
+    .fontSize(7.5)
+    .fillColor(INK.muted)
+    .text(`Colour sample: ${s.colour.name} (${s.colour.hex})`, colX + 15, y + 3.5, { lineBreak: false });
 
   const drawTop = Math.max(top + pictureH, y + 16) + 8;
   const headY = sectionHeading(doc, 'Dimensioned drawing', x, drawTop, CONTENT_WIDTH);
-  drawOrthographicViews(doc, s.drawing, { x, y: headY, width: CONTENT_WIDTH, height: PAGE.height - PAGE.margin - 16 - headY });
+  drawOrthographicViews(doc, s.drawing, {
+    x,
+    y: headY,
+    width: CONTENT_WIDTH,
+    height: PAGE.height - PAGE.margin - 16 - headY,
+  });
 }
 
 /** Page 2: the birds, shipping, care and cautions. */
@@ -171,7 +201,11 @@ function detailsPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   const x = PAGE.margin;
   let y = sectionHeading(doc, 'Birds it suits', x, 48, CONTENT_WIDTH);
   if (s.species.length === 0) {
-    doc.font(FONT.body).fontSize(8.5).fillColor(INK.text).text('No species in our table matches every measure of this box.', x, y);
+    doc
+      .font(FONT.body)
+      .fontSize(8.5)
+      .fillColor(INK.text)
+      .text('No species in our table matches every measure of this box.', x, y);
     y = doc.y + 6;
   } else {
     y = pdfTable(
@@ -200,7 +234,10 @@ function detailsPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
     [
       ['Box, outside (L × W × H)', mmInTriple(s.box.outerMm)],
       ['Box, inside', mmInTriple(s.box.innerMm)],
-      ['Actual weight', `${massGLb(s.box.actualMassG)}: product ${massGLb(s.massG)} + carton and fill ${massGLb(s.box.packagingMassG)}`],
+      [
+        'Actual weight',
+        `${massGLb(s.box.actualMassG)}: product ${massGLb(s.massG)} + carton and fill ${massGLb(s.box.packagingMassG)}`,
+      ],
     ],
     x,
     y,
@@ -240,7 +277,11 @@ function detailsPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
 
   y = sectionHeading(doc, 'Cautions', x, y + 8, CONTENT_WIDTH);
   for (const caution of s.cautions) {
-    doc.font(FONT.bodyBold).fontSize(8.5).fillColor(INK.text).text(`${caution.title}. `, x, y, { width: CONTENT_WIDTH, continued: true });
+    doc
+      .font(FONT.bodyBold)
+      .fontSize(8.5)
+      .fillColor(INK.text)
+      .text(`${caution.title}. `, x, y, { width: CONTENT_WIDTH, continued: true });
     doc.font(FONT.body).text(caution.text, { continued: caution.source !== '' });
     if (caution.source !== '') doc.fillColor(INK.muted).fontSize(7.5).text(`  Source: ${caution.source}`);
     y = doc.y + 4;
@@ -250,7 +291,11 @@ function detailsPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
 function bullets(doc: PDFKit.PDFDocument, lines: string[], x: number, y: number): number {
   let cursor = y;
   for (const line of lines) {
-    doc.font(FONT.body).fontSize(8.5).fillColor(INK.accent).text('•', x + 2, cursor, { lineBreak: false });
+    doc
+      .font(FONT.body)
+      .fontSize(8.5)
+      .fillColor(INK.accent)
+      .text('•', x + 2, cursor, { lineBreak: false });
     doc.fillColor(INK.text).text(line, x + 12, cursor, { width: CONTENT_WIDTH - 12 });
     cursor = doc.y + 2;
   }

@@ -34,7 +34,8 @@ export function woffToSfnt(woff: Buffer): Buffer {
     const checksum = woff.readUInt32BE(entry + 16);
     const raw = woff.subarray(offset, offset + compLength);
     const data = compLength < origLength ? inflateSync(raw) : raw;
-    if (data.length !== origLength) throw new WoffFormatError(`table ${i} inflates to ${data.length} bytes, not ${origLength}`);
+    if (data.length !== origLength)
+      throw new WoffFormatError(`table ${i} inflates to ${data.length} bytes, not ${origLength}`);
     tables.push({ tag, checksum, data });
   }
   let searchRange = 1;

@@ -6,22 +6,34 @@ import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { HttpError, badRequest } from '../http/HttpError';
 import { parsedBody, validate } from '../http/validate';
-import { ANALYSIS_MAX_UPLOAD_BYTES, analysisOptions, analyzeUpload, defaultCatalogue, type AnalysisCatalogue } from '../services/analysis';
+import {
+  ANALYSIS_MAX_UPLOAD_BYTES,
+  analysisOptions,
+  analyzeUpload,
+  defaultCatalogue,
+  type AnalysisCatalogue,
+} from '../services/analysis';
 import { AnalysisWorker } from '../services/analysisWorker';
 import { loadMaterials, loadPrinters } from '../services/familyProduction';
 
 /** Multipart upload of one mesh file in memory; a file over the limit is a bad mesh (400), like any other. */
 const meshUpload: RequestHandler = (req, res, next) => {
-  multer({ storage: multer.memoryStorage(), limits: { fileSize: ANALYSIS_MAX_UPLOAD_BYTES, files: 1, fields: 8 } }).single(
-    'file',
-  )(req, res, (err: unknown) => {
+  multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: ANALYSIS_MAX_UPLOAD_BYTES, files: 1, fields: 8 },
+  }).single('file')(req, res, (err: unknown) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
         return next(
-          new HttpError(400, 'bad_mesh', `file: the file is larger than ${ANALYSIS_MAX_UPLOAD_BYTES / 1024 / 1024} MB`, {
-            reason: 'too_large',
-          }),
+          new HttpError(
+            400,
+            'bad_mesh',
+            `file: the file is larger than ${ANALYSIS_MAX_UPLOAD_BYTES / 1024 / 1024} MB`,
+            {
+              reason: 'too_large',
+            },
+          ),
         );
       }
       return next(badRequest(`${err.field ?? 'file'}: ${err.message}`));

@@ -12,8 +12,13 @@ import { listCatalogueVariants } from '../services/catalogue';
  */
 export function catalogueRouter(ctx: AppContext): Router {
   const router = Router();
-  router.get('/', requireRole('sales', 'catalogue_manager', 'designer'), validate({ query: CatalogueQuerySchema }), async (_req, res) => {
-    res.json({ variants: await listCatalogueVariants(ctx, parsedQuery<CatalogueQuery>(res)) });
-  });
+  router.get(
+    '/',
+    requireRole('sales', 'catalogue_manager', 'designer'),
+    validate({ query: CatalogueQuerySchema }),
+    async (_req, res) => {
+      res.json({ variants: await listCatalogueVariants(ctx, parsedQuery<CatalogueQuery>(res)) });
+    },
+  );
   return router;
 }

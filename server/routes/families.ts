@@ -38,20 +38,20 @@ const READERS = ['designer', 'catalogue_manager'] as const;
 
 /** Multipart upload of one photo, kept in memory (at most PHOTO_MAX_BYTES) and checked by content afterwards. */
 const photoUpload: RequestHandler = (req, res, next) => {
-  multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 4 } }).single('photo')(
-    req,
-    res,
-    (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') {
-          return next(new HttpError(413, 'payload_too_large', `photo: the file is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB`));
-        }
-        return next(badRequest(`${err.field ?? 'photo'}: ${err.message}`));
+  multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 4 } }).single(
+    'photo',
+  )(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof multer.MulterError) {
+      if (err.code === 'LIMIT_FILE_SIZE') {
+        return next(
+          new HttpError(413, 'payload_too_large', `photo: the file is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB`),
+        );
       }
-      next(err);
-    },
-  );
+      return next(badRequest(`${err.field ?? 'photo'}: ${err.message}`));
+    }
+    next(err);
+  });
 };
 
 /**
@@ -102,7 +102,8 @@ export function familiesRouter(ctx: AppContext): Router {
       Connection: 'keep-alive',
       'X-Accel-Buffering': 'no',
     });
-    const send = (event: 'progress' | 'done', data: unknown) => res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
+    const send = (event: 'progress' | 'done', data: unknown) =>
+      res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
     let closed = false;
     // Subscribe before reading the state so no event falls between the two.
     const stop = jobs.subscribe(row.revisionId, (event, done) => {
@@ -126,16 +127,26 @@ export function familiesRouter(ctx: AppContext): Router {
     }
   });
 
-  router.get('/:id/variants', readers, validate({ params: IdParamsSchema, query: VariantListQuerySchema }), async (_req, res) => {
-    res.json(await families.listVariants(ctx, idOf(res), parsedQuery<VariantListQuery>(res)));
-  });
+  router.get(
+    '/:id/variants',
+    readers,
+    validate({ params: IdParamsSchema, query: VariantListQuerySchema }),
+    async (_req, res) => {
+      res.json(await families.listVariants(ctx, idOf(res), parsedQuery<VariantListQuery>(res)));
+    },
+  );
 
   router.post(
     '/:id/acknowledgements',
     designers,
     validate({ params: IdParamsSchema, body: AcknowledgementsCreateSchema }),
     async (_req, res) => {
-      const family = await families.acknowledgeWarnings(ctx, signedInPerson(res), idOf(res), parsedBody<AcknowledgementsCreate>(res));
+      const family = await families.acknowledgeWarnings(
+        ctx,
+        signedInPerson(res),
+        idOf(res),
+        parsedBody<AcknowledgementsCreate>(res),
+      );
       res.json({ family });
     },
   );
@@ -158,19 +169,25 @@ export function familiesRouter(ctx: AppContext): Router {
     router.post(`/:id/${action}`, guard, validate({ params: IdParamsSchema, body: bodies[action] }), step(action));
   }
 
-  router.get('/:id/diff', readers, validate({ params: IdParamsSchema, query: RevisionDiffQuerySchema }), async (_req, res) => {
-    const { from, to } = parsedQuery<{ from: number; to: number }>(res);
-    res.json(await families.diffRevisions(ctx, idOf(res), from, to));
-  });
+  router.get(
+    '/:id/diff',
+    readers,
+    validate({ params: IdParamsSchema, query: RevisionDiffQuerySchema }),
+    async (_req, res) => {
+      const { from, to } = parsedQuery<{ from: number; to: number }>(res);
+      res.json(await families.diffRevisions(ctx, idOf(res), from, to));
+    },
+  );
 
   router.get('/:id/audit', readers, idParams, async (_req, res) => {
     res.json(await families.familyAudit(ctx, idOf(res)));
   });
 
   router.post('/:id/photos', designers, idParams, photoUpload, async (req, res) => {
-    if (!req.file) throw badRequest('photo: attach one image file in the form field "photo"', [
-      { in: 'body', path: 'photo', message: 'required' },
-    ]);
+    if (!req.file)
+      throw badRequest('photo: attach one image file in the form field "photo"', [
+        { in: 'body', path: 'photo', message: 'required' },
+      ]);
     const caption = typeof req.body?.caption === 'string' ? req.body.caption.trim().slice(0, 200) : '';
     const photo = await addPhoto(ctx, signedInPerson(res), idOf(res), req.file.buffer, caption);
     res.status(201).json({ photo });

@@ -15,10 +15,17 @@ const PhotoParamsSchema = z.object({ id: z.uuid() });
 export function photosRouter(ctx: AppContext): Router {
   const router = Router();
   router.use(requireAuth);
-  for (const [path, size] of [['/:id', 'normal'], ['/:id/thumb', 'thumb']] as const) {
+  for (const [path, size] of [
+    ['/:id', 'normal'],
+    ['/:id/thumb', 'thumb'],
+  ] as const) {
     router.get(path, validate({ params: PhotoParamsSchema }), async (_req, res) => {
       const bytes = await readPhoto(ctx, parsedParams<{ id: string }>(res).id, size);
-      res.set({ 'Content-Type': 'image/webp', 'X-Content-Type-Options': 'nosniff', 'Cache-Control': 'private, max-age=3600' });
+      res.set({
+        'Content-Type': 'image/webp',
+        'X-Content-Type-Options': 'nosniff',
+        'Cache-Control': 'private, max-age=3600',
+      });
       res.send(bytes);
     });
   }

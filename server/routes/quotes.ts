@@ -28,7 +28,10 @@ export function quotesRouter(ctx: AppContext): Router {
     const person = signedInPerson(res);
     const body = parsedBody<QuoteCreate>(res);
     const variant = await getVariantBySku(ctx, body.sku);
-    if (!variant) throw badRequest(`sku: no published variant ${body.sku}`, [{ in: 'body', path: 'sku', message: 'not in the catalogue' }]);
+    if (!variant)
+      throw badRequest(`sku: no published variant ${body.sku}`, [
+        { in: 'body', path: 'sku', message: 'not in the catalogue' },
+      ]);
     const { settings } = await getSalesSettings(ctx.db);
     const quote = await insertQuote(ctx.db, computeQuote(variant, body, settings, new Date()), person);
     res.status(201).json(quote);

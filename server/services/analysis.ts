@@ -42,7 +42,8 @@ export function analysisOptions(request: AnalysisRequest, catalogue: AnalysisCat
     printer: pick(catalogue.printers, request.printerId, 'printerId'),
     material,
     colourId: request.colourId,
-    settings: request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct },
+    settings:
+      request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct },
     rates: DEFAULT_RATES,
     overhangDeg: request.overhangDeg,
   };
@@ -68,7 +69,8 @@ export async function analyzeUpload(
     if (err instanceof AnalysisError && err.kind === 'mesh') {
       throw new HttpError(400, 'bad_mesh', err.message, { reason: err.reason });
     }
-    if (err instanceof AnalysisError && err.kind === 'timeout') throw new HttpError(504, 'analysis_timeout', err.message);
+    if (err instanceof AnalysisError && err.kind === 'timeout')
+      throw new HttpError(504, 'analysis_timeout', err.message);
     throw err;
   }
 }

@@ -32,7 +32,11 @@ export class AnalysisError extends Error {
  * request over the time limit terminates the thread and rejects with `timeout`; the next request starts a new one.
  */
 export class AnalysisWorker {
-  private readonly runner: TimedWorker<Omit<AnalysisWorkerRequest, 'requestId'>, AnalysisWorkerResponse, AnalysisReport>;
+  private readonly runner: TimedWorker<
+    Omit<AnalysisWorkerRequest, 'requestId'>,
+    AnalysisWorkerResponse,
+    AnalysisReport
+  >;
 
   /** @param timeLimitMs - the longest one analysis may take */
   constructor(timeLimitMs = ANALYSIS_TIME_LIMIT_MS) {
@@ -40,7 +44,8 @@ export class AnalysisWorker {
       entryUrl: WORKER_URL,
       jobName: 'analysis',
       timeLimitMs,
-      timeoutError: (limitMs) => new AnalysisError('timeout', `the analysis took longer than ${limitMs / 1000} s and was stopped`),
+      timeoutError: (limitMs) =>
+        new AnalysisError('timeout', `the analysis took longer than ${limitMs / 1000} s and was stopped`),
       failedError: (message) => new AnalysisError('failed', message),
       settle: (message) => {
         if (message.ok) return message.report;

@@ -32,7 +32,8 @@ export function handleAnalysis(request: AnalysisWorkerRequest): AnalysisWorkerRe
     return { requestId: request.requestId, ok: true, report: analyzeMesh(mesh, request.options).report };
   } catch (err) {
     const error = err instanceof Error ? err.message : String(err);
-    if (err instanceof MeshFormatError) return { requestId: request.requestId, ok: false, kind: 'mesh', reason: err.reason, error };
+    if (err instanceof MeshFormatError)
+      return { requestId: request.requestId, ok: false, kind: 'mesh', reason: err.reason, error };
     return { requestId: request.requestId, ok: false, kind: 'failed', error };
   }
 }

@@ -20,7 +20,10 @@ export type CatalogueFilter = Partial<CatalogueQuery> & {
  * @param ctx - app context
  * @param filter - search text (SKU or family name), family, colour, material, SKUs
  */
-export async function listCatalogueVariants(ctx: AppContext, filter: CatalogueFilter = {}): Promise<CatalogueVariant[]> {
+export async function listCatalogueVariants(
+  ctx: AppContext,
+  filter: CatalogueFilter = {},
+): Promise<CatalogueVariant[]> {
   const { db } = ctx;
   const published = await db
     .select({ family: families, revision: familyRevisions })
@@ -52,9 +55,17 @@ export async function listCatalogueVariants(ctx: AppContext, filter: CatalogueFi
   const photoRows = await db
     .select()
     .from(familyPhotos)
-    .where(inArray(familyPhotos.familyId, published.map((row) => row.family.id)))
+    .where(
+      inArray(
+        familyPhotos.familyId,
+        published.map((row) => row.family.id),
+      ),
+    )
     .orderBy(asc(familyPhotos.createdAt));
-  const names = await actorsById(db, photoRows.map((row) => row.uploadedBy));
+  const names = await actorsById(
+    db,
+    photoRows.map((row) => row.uploadedBy),
+  );
   const photosByFamily = new Map<string, Photo[]>();
   for (const row of photoRows) {
     const list = photosByFamily.get(row.familyId) ?? [];
@@ -68,7 +79,13 @@ export async function listCatalogueVariants(ctx: AppContext, filter: CatalogueFi
   const result: CatalogueVariant[] = [];
   for (const { family, revision } of published.sort((a, b) => a.revision.name.localeCompare(b.revision.name))) {
     for (const variant of variants.filter((v) => v.revisionId === revision.id)) {
-      const item = toCatalogueVariant(variant, family, revision, photosByFamily.get(family.id) ?? [], acksByRevision.get(revision.id) ?? []);
+      const item = toCatalogueVariant(
+        variant,
+        family,
+        revision,
+        photosByFamily.get(family.id) ?? [],
+        acksByRevision.get(revision.id) ?? [],
+      );
       if (!item) continue;
       if (q && !item.sku.toLowerCase().includes(q) && !item.family.name.toLowerCase().includes(q)) continue;
       if (filter.colour && item.attributes.colour !== filter.colour) continue;

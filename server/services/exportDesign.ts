@@ -41,7 +41,8 @@ export async function exportDesign(worker: ExportWorker, request: ExportRequest)
     if (!(err instanceof ExportError)) throw err;
     if (err.kind === 'params') throw paramError(err.field ?? 'params', err.message);
     if (err.kind === 'timeout') throw new HttpError(504, 'generation_timeout', `Export stopped: ${err.message}.`);
-    if (err.kind === 'mesh') throw new HttpError(422, 'invalid_mesh', `The design did not give a printable mesh: ${err.message}.`);
+    if (err.kind === 'mesh')
+      throw new HttpError(422, 'invalid_mesh', `The design did not give a printable mesh: ${err.message}.`);
     throw new HttpError(422, 'generation_failed', `The design could not be generated: ${err.message}.`);
   }
 }

@@ -1,6 +1,11 @@
 /** Printers and materials the family features use: the database rows, checked by the shared schemas. */
 import { eq } from 'drizzle-orm';
-import { MaterialSchema, PrinterProfileSchema, type Material, type PrinterProfile } from '../../shared/schemas/production';
+import {
+  MaterialSchema,
+  PrinterProfileSchema,
+  type Material,
+  type PrinterProfile,
+} from '../../shared/schemas/production';
 import type { Queryable } from '../db/client';
 import { materials, printerProfiles } from '../db/schema';
 

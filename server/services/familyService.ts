@@ -56,7 +56,10 @@ function invalidState(message: string): HttpError {
 }
 
 function stateChanged(): HttpError {
-  return conflict('state_changed', 'the family changed while you were looking at it (someone else acted first); reload and try again');
+  return conflict(
+    'state_changed',
+    'the family changed while you were looking at it (someone else acted first); reload and try again',
+  );
 }
 
 async function loadFamily(db: Queryable, id: string): Promise<{ family: FamilyRow; current: FamilyRevisionRow }> {
@@ -80,7 +83,12 @@ async function view(ctx: FamilyContext, id: string, person: Person): Promise<Fam
 async function insertVariants(db: Queryable, revisionId: string, code: string, spec: SpecToCheck): Promise<number> {
   const template = findTemplate(spec.templateId);
   if (!template) throw new Error(`unknown template ${spec.templateId}`);
-  const cells = buildVariantMatrix({ familyCode: code, axes: spec.axes, baseParams: spec.baseParams, materialId: spec.materialId });
+  const cells = buildVariantMatrix({
+    familyCode: code,
+    axes: spec.axes,
+    baseParams: spec.baseParams,
+    materialId: spec.materialId,
+  });
   const rows = cells.map((cell) => ({
     revisionId,
     index: cell.index,
@@ -179,7 +187,12 @@ export async function createFamily(ctx: FamilyContext, person: Person, body: Fam
  * @param id - family id
  * @param patch - the fields to change
  */
-export async function updateFamily(ctx: FamilyContext, person: Person, id: string, patch: FamilyUpdate): Promise<Family> {
+export async function updateFamily(
+  ctx: FamilyContext,
+  person: Person,
+  id: string,
+  patch: FamilyUpdate,
+): Promise<Family> {
   const printers = await loadPrinters(ctx.db);
   const materials = await loadMaterials(ctx.db);
   const { current: before } = await loadFamily(ctx.db, id);
@@ -205,7 +218,8 @@ export async function updateFamily(ctx: FamilyContext, person: Person, id: strin
       region: patch.region !== undefined ? patch.region : current.region,
     };
     const checked = checkFamilySpec(spec, printers, materials);
-    const templateVersion = templateChanged || patch.templateVersion === 'latest' ? checked.templateVersion : current.templateVersion;
+    const templateVersion =
+      templateChanged || patch.templateVersion === 'latest' ? checked.templateVersion : current.templateVersion;
     const changed = Object.keys(patch).filter((key) => key !== 'expectedLock');
     const reset = {
       computeState: 'idle' as const,
@@ -348,7 +362,10 @@ export interface TransitionInput {
 }
 
 async function emailsOfRole(db: Queryable, role: 'catalogue_manager'): Promise<string[]> {
-  const rows = await db.select({ email: people.email }).from(people).where(sql`${role} = any(${people.roles})`);
+  const rows = await db
+    .select({ email: people.email })
+    .from(people)
+    .where(sql`${role} = any(${people.roles})`);
   return rows.map((row) => row.email);
 }
 
@@ -384,7 +401,8 @@ export async function transitionFamily(
     if (input.expectedRevision !== undefined && input.expectedRevision !== family.currentRevision) throw stateChanged();
     let target = current;
     if (action === 'retire') {
-      if (family.publishedRevision === null) throw invalidState('cannot retire a family that has no published revision');
+      if (family.publishedRevision === null)
+        throw invalidState('cannot retire a family that has no published revision');
       const [published] = await tx
         .select()
         .from(familyRevisions)
@@ -397,7 +415,12 @@ export async function transitionFamily(
     if (action === 'submit') {
       const gate = await gateOf(tx, target);
       if (!gate.ok) {
-        throw new HttpError(409, 'gate_failed', `cannot submit: ${gate.blockers.map((b) => b.message).join('; ')}`, gate);
+        throw new HttpError(
+          409,
+          'gate_failed',
+          `cannot submit: ${gate.blockers.map((b) => b.message).join('; ')}`,
+          gate,
+        );
       }
     }
     const now = new Date();
@@ -419,7 +442,11 @@ export async function transitionFamily(
       .update(familyRevisions)
       .set({ state: transition.to, comments, lock: sql`${familyRevisions.lock} + 1`, updatedAt: now, ...stamps })
       .where(
-        and(eq(familyRevisions.id, target.id), eq(familyRevisions.state, target.state), eq(familyRevisions.lock, target.lock)),
+        and(
+          eq(familyRevisions.id, target.id),
+          eq(familyRevisions.state, target.state),
+          eq(familyRevisions.lock, target.lock),
+        ),
       )
       .returning({ id: familyRevisions.id });
     if (!updated) throw stateChanged();
@@ -479,7 +506,11 @@ const VERDICT_ORDER = { fail: 0, warn: 1, pass: 2 } as const;
  * @param id - family id
  * @param query - revision, filters, sort and page
  */
-export async function listVariants(ctx: FamilyContext, id: string, query: VariantListQuery): Promise<VariantListResponse> {
+export async function listVariants(
+  ctx: FamilyContext,
+  id: string,
+  query: VariantListQuery,
+): Promise<VariantListResponse> {
   const { family } = await loadFamily(ctx.db, id);
   const number = query.revision ?? family.currentRevision;
   const [revision] = await ctx.db
@@ -572,7 +603,10 @@ export async function familyAudit(ctx: FamilyContext, id: string): Promise<Audit
     .from(auditEvents)
     .where(eq(auditEvents.subject, familySubject(id)))
     .orderBy(desc(auditEvents.id));
-  const names = await actorsById(ctx.db, rows.map((row) => row.actorId));
+  const names = await actorsById(
+    ctx.db,
+    rows.map((row) => row.actorId),
+  );
   return {
     events: rows.map((row) => ({
       id: row.id,

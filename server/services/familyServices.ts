@@ -13,11 +13,19 @@ import { startMail, stopMail, type StartMailOptions } from './mailService';
  * @param server - the HTTP server whose close stops them
  * @param options - mail settings (process.env by default)
  */
-export async function startFamilyServices(ctx: AppContext, server: Server, options: StartMailOptions = {}): Promise<void> {
+export async function startFamilyServices(
+  ctx: AppContext,
+  server: Server,
+  options: StartMailOptions = {},
+): Promise<void> {
   // A computation cut off by a restart cannot resume: say so instead of showing it running forever.
   const interrupted = await ctx.db
     .update(familyRevisions)
-    .set({ computeState: 'failed', computeError: 'the server restarted during the computation; compute again', computeFinishedAt: new Date() })
+    .set({
+      computeState: 'failed',
+      computeError: 'the server restarted during the computation; compute again',
+      computeFinishedAt: new Date(),
+    })
     .where(inArray(familyRevisions.computeState, ['queued', 'running']))
     .returning({ id: familyRevisions.id });
   if (interrupted.length > 0) ctx.log(`  families: ${interrupted.length} interrupted computation(s) marked failed`);

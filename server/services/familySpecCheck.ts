@@ -41,7 +41,10 @@ export function checkFamilySpec(
     throw fieldError('printerId', `unknown printer "${spec.printerId}" (known: ${[...printers.keys()].join(', ')})`);
   }
   if (!materials.has(spec.materialId)) {
-    throw fieldError('materialId', `unknown material "${spec.materialId}" (known: ${[...materials.keys()].join(', ')})`);
+    throw fieldError(
+      'materialId',
+      `unknown material "${spec.materialId}" (known: ${[...materials.keys()].join(', ')})`,
+    );
   }
   try {
     parseParams(template, spec.baseParams);
@@ -63,7 +66,8 @@ export function checkFamilySpec(
         try {
           parseParams(template, { ...spec.baseParams, [axis.key]: value });
         } catch (err) {
-          if (err instanceof TemplateParamError) throw fieldError(`axes.${axisIndex}.values.${valueIndex}`, err.message);
+          if (err instanceof TemplateParamError)
+            throw fieldError(`axes.${axisIndex}.values.${valueIndex}`, err.message);
           throw err;
         }
       });

@@ -105,8 +105,16 @@ export async function acknowledgementsOf(db: Queryable, revisionId: string): Pro
     .from(familyAcknowledgements)
     .where(eq(familyAcknowledgements.revisionId, revisionId))
     .orderBy(asc(familyAcknowledgements.id));
-  const names = await actorsById(db, rows.map((row) => row.personId));
-  return rows.map((row) => ({ code: row.code, text: row.text, by: actor(names, row.personId), at: row.at.toISOString() }));
+  const names = await actorsById(
+    db,
+    rows.map((row) => row.personId),
+  );
+  return rows.map((row) => ({
+    code: row.code,
+    text: row.text,
+    by: actor(names, row.personId),
+    at: row.at.toISOString(),
+  }));
 }
 
 /**
@@ -154,7 +162,11 @@ export async function familyView(db: Queryable, id: string, person: Person): Pro
     .orderBy(asc(familyRevisions.number));
   const current = revisions.find((revision) => revision.number === family.currentRevision);
   if (!current) throw new Error(`Family ${id} has no revision ${family.currentRevision}`);
-  const photos = await db.select().from(familyPhotos).where(eq(familyPhotos.familyId, id)).orderBy(desc(familyPhotos.createdAt));
+  const photos = await db
+    .select()
+    .from(familyPhotos)
+    .where(eq(familyPhotos.familyId, id))
+    .orderBy(desc(familyPhotos.createdAt));
   const names = await actorsById(db, [family.ownerId, ...photos.map((photo) => photo.uploadedBy)]);
   const gate = await gateOf(db, current);
   return {
@@ -194,7 +206,10 @@ export async function familyView(db: Queryable, id: string, person: Person): Pro
 }
 
 async function countVariants(db: Queryable, revisionId: string): Promise<number> {
-  const rows = await db.select({ id: familyVariants.id }).from(familyVariants).where(eq(familyVariants.revisionId, revisionId));
+  const rows = await db
+    .select({ id: familyVariants.id })
+    .from(familyVariants)
+    .where(eq(familyVariants.revisionId, revisionId));
   return rows.length;
 }
 
@@ -205,7 +220,10 @@ async function countVariants(db: Queryable, revisionId: string): Promise<number>
 export async function familySummaries(db: Queryable): Promise<FamilySummary[]> {
   const rows = await db.select().from(families);
   const revisions = await db.select().from(familyRevisions);
-  const names = await actorsById(db, rows.map((row) => row.ownerId));
+  const names = await actorsById(
+    db,
+    rows.map((row) => row.ownerId),
+  );
   const summaries: FamilySummary[] = [];
   for (const family of rows) {
     const current = revisions.find((r) => r.familyId === family.id && r.number === family.currentRevision);

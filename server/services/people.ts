@@ -45,7 +45,8 @@ export async function createPerson(
   actorId: string | null,
   studioId?: string,
 ): Promise<Person> {
-  if (await findPersonByEmail(db, input.email)) throw conflict('email_taken', `email: ${input.email} is already in use.`);
+  if (await findPersonByEmail(db, input.email))
+    throw conflict('email_taken', `email: ${input.email} is already in use.`);
   const passwordHash = await hashPassword(input.password);
   const roles = uniqueRoles(input.roles);
   const created = db.transaction(async (tx) => {

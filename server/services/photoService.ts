@@ -57,9 +57,10 @@ export async function addPhoto(
   const [family] = await ctx.db.select({ id: families.id }).from(families).where(eq(families.id, familyId));
   if (!family) throw notFound('No such family.');
   const type = detectPhotoType(file);
-  if (!type) throw badRequest('photo: the file is not a JPEG, PNG or WebP image (checked by its content)', [
-    { in: 'body', path: 'photo', message: 'not a JPEG, PNG or WebP image' },
-  ]);
+  if (!type)
+    throw badRequest('photo: the file is not a JPEG, PNG or WebP image (checked by its content)', [
+      { in: 'body', path: 'photo', message: 'not a JPEG, PNG or WebP image' },
+    ]);
   let normal: { data: Buffer; info: OutputInfo };
   let thumb: Buffer;
   try {
@@ -69,7 +70,11 @@ export async function addPhoto(
       .resize(PHOTO_NORMAL_PX, PHOTO_NORMAL_PX, { fit: 'inside', withoutEnlargement: true })
       .webp({ quality: 82 })
       .toBuffer({ resolveWithObject: true });
-    thumb = await image.clone().resize(PHOTO_THUMB_PX, PHOTO_THUMB_PX, { fit: 'inside' }).webp({ quality: 75 }).toBuffer();
+    thumb = await image
+      .clone()
+      .resize(PHOTO_THUMB_PX, PHOTO_THUMB_PX, { fit: 'inside' })
+      .webp({ quality: 75 })
+      .toBuffer();
   } catch (err) {
     throw badRequest(`photo: the image could not be read (${(err as Error).message})`, [
       { in: 'body', path: 'photo', message: 'unreadable image' },

@@ -16,7 +16,10 @@ export function checkPresetParams(
   input: unknown,
 ): { params: Record<string, unknown>; templateVersion: number } {
   const template = findTemplate(templateId);
-  if (!template) throw badRequest(`templateId: unknown template "${templateId}"`, [{ in: 'body', path: 'templateId', message: 'unknown template' }]);
+  if (!template)
+    throw badRequest(`templateId: unknown template "${templateId}"`, [
+      { in: 'body', path: 'templateId', message: 'unknown template' },
+    ]);
   try {
     return { params: parseParams(template, input), templateVersion: template.version };
   } catch (err) {

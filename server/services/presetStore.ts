@@ -30,7 +30,11 @@ export function presetFromRow(row: PresetRow): Preset {
  * @param err - anything thrown by a query (drizzle wraps the driver error in `cause`)
  */
 export function isUniqueViolation(err: unknown): boolean {
-  for (let current: unknown = err; current && typeof current === 'object'; current = (current as { cause?: unknown }).cause) {
+  for (
+    let current: unknown = err;
+    current && typeof current === 'object';
+    current = (current as { cause?: unknown }).cause
+  ) {
     if ((current as { code?: unknown }).code === UNIQUE_VIOLATION) return true;
   }
   return false;
@@ -82,7 +86,11 @@ export async function presetNameTaken(
 ): Promise<boolean> {
   const conditions = [eq(presets.ownerId, ownerId), eq(presets.templateId, templateId), eq(presets.name, name)];
   if (exceptId) conditions.push(ne(presets.id, exceptId));
-  const rows = await db.select({ id: presets.id }).from(presets).where(and(...conditions)).limit(1);
+  const rows = await db
+    .select({ id: presets.id })
+    .from(presets)
+    .where(and(...conditions))
+    .limit(1);
   return rows.length > 0;
 }
 

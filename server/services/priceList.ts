@@ -67,7 +67,9 @@ function cells(row: PriceListRow): Array<string | number> {
 export function priceListCsv(rows: PriceListRow[]): string {
   const priceColumn = PRICE_LIST_COLUMNS.length - 1;
   const records = rows.map((row) =>
-    cells(row).map((cell, i) => (typeof cell === 'number' ? (i === priceColumn ? cell.toFixed(2) : String(cell)) : cell)),
+    cells(row).map((cell, i) =>
+      typeof cell === 'number' ? (i === priceColumn ? cell.toFixed(2) : String(cell)) : cell,
+    ),
   );
   return stringify([[...PRICE_LIST_COLUMNS], ...records], { record_delimiter: 'windows' });
 }
@@ -82,7 +84,11 @@ export async function priceListXlsx(rows: PriceListRow[], issuedOn = new Date())
   workbook.creator = STUDIO_NAME;
   workbook.created = issuedOn;
   const sheet = workbook.addWorksheet('Price list', { views: [{ state: 'frozen', ySplit: 1 }] });
-  sheet.columns = PRICE_LIST_COLUMNS.map((title) => ({ header: title, key: title, width: Math.max(12, title.length + 2) }));
+  sheet.columns = PRICE_LIST_COLUMNS.map((title) => ({
+    header: title,
+    key: title,
+    width: Math.max(12, title.length + 2),
+  }));
   sheet.getColumn(2).width = 44;
   sheet.getColumn(1).width = 24;
   for (const row of rows) sheet.addRow(cells(row));

@@ -21,7 +21,12 @@ export type QuoteFigures = Omit<Quote, 'id' | 'reference' | 'createdBy' | 'creat
  * @param settings - farm settings and quantity breaks
  * @param today - the quote date (UTC day is used)
  */
-export function computeQuote(variant: CatalogueVariant, request: QuoteCreate, settings: SalesSettings, today: Date): QuoteFigures {
+export function computeQuote(
+  variant: CatalogueVariant,
+  request: QuoteCreate,
+  settings: SalesSettings,
+  today: Date,
+): QuoteFigures {
   const listPriceCents = variant.priceCents;
   const applicable = settings.quantityBreaks.filter((b) => b.minQuantity <= request.quantity);
   const discountPct = applicable.length > 0 ? applicable[applicable.length - 1].discountPct : 0;

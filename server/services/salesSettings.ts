@@ -73,7 +73,11 @@ export async function getSalesSettings(db: Db): Promise<StoredSalesSettings> {
  * @param settings - the complete settings
  * @param personId - who saved them
  */
-export async function saveSalesSettings(db: Db, settings: SalesSettings, personId: string): Promise<StoredSalesSettings> {
+export async function saveSalesSettings(
+  db: Db,
+  settings: SalesSettings,
+  personId: string,
+): Promise<StoredSalesSettings> {
   const now = new Date();
   const [row] = await db
     .insert(salesSettings)

@@ -47,15 +47,22 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
   const outdoor = outdoorOf(variant, material, colour.id);
 
   const picture = options.photo
-    ? { png: await sharp(options.photo).rotate().resize(800, 800, { fit: 'inside' }).png().toBuffer(), caption: 'Photo of the sample print' }
+    ? {
+        png: await sharp(options.photo).rotate().resize(800, 800, { fit: 'inside' }).png().toBuffer(),
+        caption: 'Photo of the sample print',
+      }
     : {
-        png: await sharp(Buffer.from(shadedViewSvg(product.mesh, { colourHex: colour.hex, widthPx: 700 }))).png().toBuffer(),
+        png: await sharp(Buffer.from(shadedViewSvg(product.mesh, { colourHex: colour.hex, widthPx: 700 })))
+          .png()
+          .toBuffer(),
         caption: product.upright ? 'Rendered view from the design' : 'Rendered view, as printed',
       };
 
   const o = drawing.overallMm;
   const box = shippingBox([o.widthMm, o.depthMm, o.heightMm], variant.report.massG, options.settings.packaging);
-  const weights = options.settings.dimDivisors.map((divisor) => dimensionalWeight(box.outerMm, box.actualMassG, divisor));
+  const weights = options.settings.dimDivisors.map((divisor) =>
+    dimensionalWeight(box.outerMm, box.actualMassG, divisor),
+  );
 
   const fit = assessBirdFit(facts);
   const sources: string[] = [];
@@ -91,7 +98,12 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
     material: material?.name ?? variant.attributes.material.toUpperCase(),
     colour: { name: colour.name, hex: colour.hex },
     outdoor: outdoor
-      ? { roofC: outdoor.roof.solAirC, wallC: outdoor.wall.solAirC, heatDeflectionC: outdoor.heatDeflectionC, airC: outdoor.airC }
+      ? {
+          roofC: outdoor.roof.solAirC,
+          wallC: outdoor.wall.solAirC,
+          heatDeflectionC: outdoor.heatDeflectionC,
+          airC: outdoor.airC,
+        }
       : undefined,
     massG: variant.report.massG,
     backFit: backFit(variant.templateId, variant.params, o.widthMm),
@@ -133,7 +145,8 @@ export async function renderSpecSheets(variants: CatalogueVariant[], options: Sp
  */
 export function productName(variant: CatalogueVariant): string {
   // Entry hole first, other shape axes next, colour, material and finish last.
-  const rank = (key: string) => (key === 'entryHoleDiameterMm' ? 0 : ['colour', 'material', 'finish'].includes(key) ? 2 : 1);
+  const rank = (key: string) =>
+    key === 'entryHoleDiameterMm' ? 0 : ['colour', 'material', 'finish'].includes(key) ? 2 : 1;
   const parts = Object.entries(variant.axisValues)
     .sort(([a], [b]) => rank(a) - rank(b))
     .map(([key, value]) => axisLabel(key, value));
@@ -141,11 +154,16 @@ export function productName(variant: CatalogueVariant): string {
 }
 
 function axisLabel(key: string, value: unknown): string {
-  const words = (k: string) => k.replace(/(Mm|Deg|Pct|Style)$/, '').replace(/([A-Z])/g, ' $1').toLowerCase();
+  const words = (k: string) =>
+    k
+      .replace(/(Mm|Deg|Pct|Style)$/, '')
+      .replace(/([A-Z])/g, ' $1')
+      .toLowerCase();
   if (key === 'entryHoleDiameterMm' && typeof value === 'number') return `${value} mm entry`;
   if (typeof value === 'boolean') return `${value ? 'with' : 'no'} ${words(key)}`;
   if (key === 'colour' || key === 'material' || key === 'finish') return String(value).replace(/-/g, ' ');
-  if (typeof value === 'string') return value === 'none' ? `no ${words(key)}` : `${value.replace(/-/g, ' ')} ${words(key)}`;
+  if (typeof value === 'string')
+    return value === 'none' ? `no ${words(key)}` : `${value.replace(/-/g, ' ')} ${words(key)}`;
   const unit = key.endsWith('Mm') ? ' mm' : key.endsWith('Deg') ? '°' : key.endsWith('Pct') ? ' %' : '';
   return `${words(key)} ${String(value)}${unit}`;
 }
@@ -186,7 +204,11 @@ const CARE = [
 ];
 
 /** The variant's stored outdoor assessment when it matches its colour, else one made now; null for an unknown material. */
-function outdoorOf(variant: CatalogueVariant, material: Material | undefined, colourId: string): OutdoorAssessment | null {
+function outdoorOf(
+  variant: CatalogueVariant,
+  material: Material | undefined,
+  colourId: string,
+): OutdoorAssessment | null {
   const stored = variant.report.outdoor;
   if (stored && stored.colourId === colourId && stored.materialId === variant.attributes.material) return stored;
   if (!material || !material.colours.some((c) => c.id === colourId)) return null;
@@ -228,7 +250,11 @@ function cautions(
       text:
         'A plastic box in full sun gets much hotter than the air, and above 41.7 °C (107 °F) inside is lethal to nestlings. ' +
         (outdoor && material
-          ? sunHeatText(outdoor, material.name, material.colours.find((c) => c.id === outdoor.colourId)?.name ?? outdoor.colourId)
+          ? sunHeatText(
+              outdoor,
+              material.name,
+              material.colours.find((c) => c.id === outdoor.colourId)?.name ?? outdoor.colourId,
+            )
           : material
             ? `The material softens from about ${material.heatDeflectionC} °C. `
             : '') +

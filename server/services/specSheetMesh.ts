@@ -57,7 +57,11 @@ export async function productMesh(templateId: string, rawParams: unknown): Promi
 /** Applies the turn, then rests the mesh on z = 0 and centres it on x and y. */
 function standUpright(mesh: IndexedMesh, turn: 'none' | 'turn-over-y'): IndexedMesh {
   const p = Float32Array.from(mesh.positions);
-  if (turn === 'turn-over-y') for (let i = 0; i < p.length; i += 3) { p[i] = -p[i]; p[i + 2] = -p[i + 2]; }
+  if (turn === 'turn-over-y')
+    for (let i = 0; i < p.length; i += 3) {
+      p[i] = -p[i];
+      p[i + 2] = -p[i + 2];
+    }
   const min = [Infinity, Infinity, Infinity];
   const max = [-Infinity, -Infinity, -Infinity];
   for (let i = 0; i < p.length; i++) {

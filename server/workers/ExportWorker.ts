@@ -44,7 +44,8 @@ export class ExportWorker {
       entryUrl: WORKER_URL,
       jobName: 'export',
       timeLimitMs,
-      timeoutError: (limitMs) => new ExportError('timeout', `generation took longer than ${limitMs / 1000} s and was stopped`),
+      timeoutError: (limitMs) =>
+        new ExportError('timeout', `generation took longer than ${limitMs / 1000} s and was stopped`),
       failedError: (message) => new ExportError('failed', message),
       settle: (message) => {
         if (message.ok) return { file: message.file, summary: message.summary };

@@ -63,7 +63,9 @@ export class TimedWorker<TRequest extends object, TResponse extends { requestId:
     await this.restart(this.options.failedError(`the ${this.options.jobName} worker was stopped`));
   }
 
-  private async restart(reason = this.options.failedError(`the ${this.options.jobName} worker was restarted`)): Promise<void> {
+  private async restart(
+    reason = this.options.failedError(`the ${this.options.jobName} worker was restarted`),
+  ): Promise<void> {
     const worker = this.worker;
     this.worker = undefined;
     if (!worker) return;

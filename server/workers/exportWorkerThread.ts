@@ -57,7 +57,8 @@ async function handle(request: ExportWorkerRequest): Promise<ExportWorkerRespons
     };
   } catch (err) {
     const error = err instanceof Error ? err.message : String(err);
-    if (err instanceof TemplateParamError) return { requestId: request.requestId, ok: false, kind: 'params', field: err.field, error };
+    if (err instanceof TemplateParamError)
+      return { requestId: request.requestId, ok: false, kind: 'params', field: err.field, error };
     if (err instanceof MeshValidationError) return { requestId: request.requestId, ok: false, kind: 'mesh', error };
     return { requestId: request.requestId, ok: false, kind: 'failed', error };
   }

@@ -36,9 +36,13 @@ export class TriangleBvh {
     const p = mesh.positions;
     const idx = mesh.indices;
     for (let t = 0; t < triangles; t++) {
-      const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
+      const a = idx[t * 3] * 3,
+        b = idx[t * 3 + 1] * 3,
+        c = idx[t * 3 + 2] * 3;
       for (let d = 0; d < 3; d++) {
-        const va = p[a + d], vb = p[b + d], vc = p[c + d];
+        const va = p[a + d],
+          vb = p[b + d],
+          vc = p[c + d];
         const lo = va < vb ? (va < vc ? va : vc) : vb < vc ? vb : vc;
         const hi = va > vb ? (va > vc ? va : vc) : vb > vc ? vb : vc;
         boxes[t * 6 + d] = lo;
@@ -54,8 +58,18 @@ export class TriangleBvh {
 
   private build(first: number, end: number, centroids: Float32Array, boxes: Float32Array): number {
     const node = this.nodeCount++;
-    let mnx = Infinity, mny = Infinity, mnz = Infinity, mxx = -Infinity, mxy = -Infinity, mxz = -Infinity;
-    let cmnx = Infinity, cmny = Infinity, cmnz = Infinity, cmxx = -Infinity, cmxy = -Infinity, cmxz = -Infinity;
+    let mnx = Infinity,
+      mny = Infinity,
+      mnz = Infinity,
+      mxx = -Infinity,
+      mxy = -Infinity,
+      mxz = -Infinity;
+    let cmnx = Infinity,
+      cmny = Infinity,
+      cmnz = Infinity,
+      cmxx = -Infinity,
+      cmxy = -Infinity,
+      cmxz = -Infinity;
     for (let i = first; i < end; i++) {
       const t = this.order[i];
       const o = t * 6;
@@ -65,7 +79,9 @@ export class TriangleBvh {
       if (boxes[o + 3] > mxx) mxx = boxes[o + 3];
       if (boxes[o + 4] > mxy) mxy = boxes[o + 4];
       if (boxes[o + 5] > mxz) mxz = boxes[o + 5];
-      const cx = centroids[t * 3], cy = centroids[t * 3 + 1], cz = centroids[t * 3 + 2];
+      const cx = centroids[t * 3],
+        cy = centroids[t * 3 + 1],
+        cz = centroids[t * 3 + 2];
       if (cx < cmnx) cmnx = cx;
       if (cy < cmny) cmny = cy;
       if (cz < cmnz) cmnz = cz;
@@ -81,7 +97,9 @@ export class TriangleBvh {
     this.bounds[b + 4] = mxy;
     this.bounds[b + 5] = mxz;
     const count = end - first;
-    const ex = cmxx - cmnx, ey = cmxy - cmny, ez = cmxz - cmnz;
+    const ex = cmxx - cmnx,
+      ey = cmxy - cmny,
+      ez = cmxz - cmnz;
     if (count <= LEAF_SIZE || Math.max(ex, ey, ez) === 0) {
       this.links[node * 2] = first;
       this.links[node * 2 + 1] = -count;
@@ -136,13 +154,19 @@ export class TriangleBvh {
    * @returns the nearest hit, or null
    */
   raycast(
-    ox: number, oy: number, oz: number,
-    dx: number, dy: number, dz: number,
+    ox: number,
+    oy: number,
+    oz: number,
+    dx: number,
+    dy: number,
+    dz: number,
     minDistanceMm = 1e-4,
     skipTriangle = -1,
   ): RayHit | null {
     if (this.nodeCount === 0) return null;
-    const ix = 1 / dx, iy = 1 / dy, iz = 1 / dz;
+    const ix = 1 / dx,
+      iy = 1 / dy,
+      iz = 1 / dz;
     const stack = this.stack;
     let top = 0;
     stack[top++] = 0;
@@ -176,18 +200,30 @@ export class TriangleBvh {
       for (let i = first; i < first - right; i++) {
         const t = this.order[i];
         if (t === skipTriangle) continue;
-        const a = idx[t * 3] * 3, bb = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
+        const a = idx[t * 3] * 3,
+          bb = idx[t * 3 + 1] * 3,
+          c = idx[t * 3 + 2] * 3;
         // Möller–Trumbore
-        const e1x = p[bb] - p[a], e1y = p[bb + 1] - p[a + 1], e1z = p[bb + 2] - p[a + 2];
-        const e2x = p[c] - p[a], e2y = p[c + 1] - p[a + 1], e2z = p[c + 2] - p[a + 2];
-        const px = dy * e2z - dz * e2y, py = dz * e2x - dx * e2z, pz = dx * e2y - dy * e2x;
+        const e1x = p[bb] - p[a],
+          e1y = p[bb + 1] - p[a + 1],
+          e1z = p[bb + 2] - p[a + 2];
+        const e2x = p[c] - p[a],
+          e2y = p[c + 1] - p[a + 1],
+          e2z = p[c + 2] - p[a + 2];
+        const px = dy * e2z - dz * e2y,
+          py = dz * e2x - dx * e2z,
+          pz = dx * e2y - dy * e2x;
         const det = e1x * px + e1y * py + e1z * pz;
         if (det > -1e-12 && det < 1e-12) continue;
         const inv = 1 / det;
-        const sx = ox - p[a], sy = oy - p[a + 1], sz = oz - p[a + 2];
+        const sx = ox - p[a],
+          sy = oy - p[a + 1],
+          sz = oz - p[a + 2];
         const u = (sx * px + sy * py + sz * pz) * inv;
         if (u < 0 || u > 1) continue;
-        const qx = sy * e1z - sz * e1y, qy = sz * e1x - sx * e1z, qz = sx * e1y - sy * e1x;
+        const qx = sy * e1z - sz * e1y,
+          qy = sz * e1x - sx * e1z,
+          qz = sx * e1y - sy * e1x;
         const v = (dx * qx + dy * qy + dz * qz) * inv;
         if (v < 0 || u + v > 1) continue;
         const dist = (e2x * qx + e2y * qy + e2z * qz) * inv;

@@ -48,10 +48,15 @@ export function analyzeGeometry(mesh: IndexedMesh, options: GeometryOptions = {}
   const support = supportVolume(oriented, m.overhangMask, m.minMm, m.maxMm, { maxRays: options.supportMaxRays });
   const warnSpanMm = options.bridges?.warnSpanMm ?? 10;
   const failSpanMm = options.bridges?.failSpanMm ?? 20;
-  const bridges = findBridges(oriented, topology.neighbours, m.minMm[2], { ...options.bridges, warnSpanMm, failSpanMm });
-  const wall = topology.openEdges === 0 && m.triangles > 0
-    ? thinnestWall(oriented, new TriangleBvh(oriented), m.surfaceAreaMm2, options.wallSamples)
-    : null;
+  const bridges = findBridges(oriented, topology.neighbours, m.minMm[2], {
+    ...options.bridges,
+    warnSpanMm,
+    failSpanMm,
+  });
+  const wall =
+    topology.openEdges === 0 && m.triangles > 0
+      ? thinnestWall(oriented, new TriangleBvh(oriented), m.surfaceAreaMm2, options.wallSamples)
+      : null;
   const size: [number, number, number] = [m.maxMm[0] - m.minMm[0], m.maxMm[1] - m.minMm[1], m.maxMm[2] - m.minMm[2]];
   const report: GeometryReport = {
     triangles: m.triangles,

@@ -62,7 +62,11 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
   const { report: geometry, overhangMask, oriented } = analyzeGeometry(mesh, { ...options.geometry, up, overhangDeg });
   const { printer, material } = options;
   const spacingMm = options.plateSpacingMm ?? 10;
-  const buildVolumeMm: [number, number, number] = [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z];
+  const buildVolumeMm: [number, number, number] = [
+    printer.buildVolumeMm.x,
+    printer.buildVolumeMm.y,
+    printer.buildVolumeMm.z,
+  ];
   const fit =
     options.partTriangles && options.partTriangles.length > 1
       ? { ...fitParts(oriented, options.partTriangles, buildVolumeMm, spacingMm), turnedOnPlate: false }
@@ -90,7 +94,14 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
     ...geometry,
     up: requested,
     orientationSearch: search,
-    buildPlate: { printerId: printer.id, buildVolumeMm, fits: fit.fits, copiesPerPlate: fit.copiesPerPlate, spacingMm, turnedOnPlate: fit.turnedOnPlate },
+    buildPlate: {
+      printerId: printer.id,
+      buildVolumeMm,
+      fits: fit.fits,
+      copiesPerPlate: fit.copiesPerPlate,
+      spacingMm,
+      turnedOnPlate: fit.turnedOnPlate,
+    },
     materialId: material.id,
     production,
     outdoor,
@@ -110,9 +121,18 @@ function outdoorFor(g: GeometryReport, options: AnalyzeMeshOptions): AnalysisOut
     wall:
       wallThicknessMm === null
         ? undefined
-        : { wallThicknessMm, wallLoops: settings.wallLoops, lineWidthMm: printer.lineWidthMm, infillPct: settings.infillPct },
+        : {
+            wallThicknessMm,
+            wallLoops: settings.wallLoops,
+            lineWidthMm: printer.lineWidthMm,
+            infillPct: settings.infillPct,
+          },
   });
-  return { ...assessment, wallThicknessMm, wallThicknessFrom: given !== undefined ? 'options' : measured !== null ? 'measured' : null };
+  return {
+    ...assessment,
+    wallThicknessMm,
+    wallThicknessFrom: given !== undefined ? 'options' : measured !== null ? 'measured' : null,
+  };
 }
 
 function outdoorWarnings(o: AnalysisOutdoor, material: Material): string[] {
@@ -136,10 +156,14 @@ function warningsFor(g: GeometryReport, fits: boolean, printer: PrinterProfile):
   if (g.volumeMm3 < 0) out.push('The mesh is wound inside out (negative volume); its normals point inward.');
   if (!fits) {
     const [x, y, z] = g.bbox.sizeMm.map((v) => v.toFixed(0));
-    out.push(`The part (${x} × ${y} × ${z} mm) does not fit ${printer.name}'s build volume; split it or choose another printer.`);
+    out.push(
+      `The part (${x} × ${y} × ${z} mm) does not fit ${printer.name}'s build volume; split it or choose another printer.`,
+    );
   }
   if (g.supportVolumeMm3 > 0) {
-    out.push(`Needs about ${(g.supportVolumeMm3 / 1000).toFixed(1)} cm³ of support under ${(g.overhang.areaMm2 / 100).toFixed(1)} cm² of overhang.`);
+    out.push(
+      `Needs about ${(g.supportVolumeMm3 / 1000).toFixed(1)} cm³ of support under ${(g.overhang.areaMm2 / 100).toFixed(1)} cm² of overhang.`,
+    );
   }
   for (const bridge of g.bridges.regions) {
     if (bridge.status === 'ok') continue;

@@ -13,16 +13,14 @@ export interface PlateFit {
  * @param spacingMm - gap between copies (10 mm: common practice, no source)
  * @returns fit, copies and whether the copies are turned
  */
-export function buildPlateFit(
-  sizeMm: readonly number[],
-  buildVolumeMm: readonly number[],
-  spacingMm = 10,
-): PlateFit {
+export function buildPlateFit(sizeMm: readonly number[], buildVolumeMm: readonly number[], spacingMm = 10): PlateFit {
   const [fx, fy, fz] = sizeMm;
   const [bx, by, bz] = buildVolumeMm;
   if (fz > bz) return { fits: false, copiesPerPlate: 0, turnedOnPlate: false };
   const count = (w: number, d: number): number =>
-    w <= bx && d <= by ? Math.floor((bx + spacingMm) / (w + spacingMm)) * Math.floor((by + spacingMm) / (d + spacingMm)) : 0;
+    w <= bx && d <= by
+      ? Math.floor((bx + spacingMm) / (w + spacingMm)) * Math.floor((by + spacingMm) / (d + spacingMm))
+      : 0;
   const straight = count(fx, fy);
   const turned = count(fy, fx);
   if (straight === 0 && turned === 0) return { fits: false, copiesPerPlate: 0, turnedOnPlate: false };

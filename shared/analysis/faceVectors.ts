@@ -10,12 +10,25 @@ export const FACE_VECTOR_LENGTH = 9;
  * @param out - receives the nine values (length ≥ {@link FACE_VECTOR_LENGTH})
  * @returns |n|, twice the triangle's area in mm²
  */
-export function faceVectors(positions: ArrayLike<number>, indices: ArrayLike<number>, t: number, out: Float64Array): number {
+export function faceVectors(
+  positions: ArrayLike<number>,
+  indices: ArrayLike<number>,
+  t: number,
+  out: Float64Array,
+): number {
   const p = positions;
-  const a = indices[t * 3] * 3, b = indices[t * 3 + 1] * 3, c = indices[t * 3 + 2] * 3;
-  const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
-  const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
-  const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
+  const a = indices[t * 3] * 3,
+    b = indices[t * 3 + 1] * 3,
+    c = indices[t * 3 + 2] * 3;
+  const ux = p[b] - p[a],
+    uy = p[b + 1] - p[a + 1],
+    uz = p[b + 2] - p[a + 2];
+  const vx = p[c] - p[a],
+    vy = p[c + 1] - p[a + 1],
+    vz = p[c + 2] - p[a + 2];
+  const nx = uy * vz - uz * vy,
+    ny = uz * vx - ux * vz,
+    nz = ux * vy - uy * vx;
   out[0] = ux;
   out[1] = uy;
   out[2] = uz;

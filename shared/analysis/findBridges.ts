@@ -41,7 +41,9 @@ export function findBridges(
   const minZ = new Float64Array(triangles);
   const face = new Float64Array(FACE_VECTOR_LENGTH);
   for (let t = 0; t < triangles; t++) {
-    const a = idx[t * 3] * 3, b = idx[t * 3 + 1] * 3, c = idx[t * 3 + 2] * 3;
+    const a = idx[t * 3] * 3,
+      b = idx[t * 3 + 1] * 3,
+      c = idx[t * 3 + 2] * 3;
     const len = faceVectors(p, idx, t, face);
     const nz = face[8];
     area[t] = len / 2;
@@ -68,7 +70,12 @@ export function findBridges(
         }
       }
     }
-    let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity, zSum = 0, areaSum = 0;
+    let x0 = Infinity,
+      x1 = -Infinity,
+      y0 = Infinity,
+      y1 = -Infinity,
+      zSum = 0,
+      areaSum = 0;
     for (const t of faces) {
       for (let k = 0; k < 3; k++) {
         const v = idx[t * 3 + k] * 3;
@@ -84,7 +91,10 @@ export function findBridges(
     // Held at both ends along x, along y, or both: the span is the extent between the holding walls.
     const reachX = Math.max((x1 - x0) * 0.1, 0.5);
     const reachY = Math.max((y1 - y0) * 0.1, 0.5);
-    let heldX0 = false, heldX1 = false, heldY0 = false, heldY1 = false;
+    let heldX0 = false,
+      heldX1 = false,
+      heldY0 = false,
+      heldY1 = false;
     for (const t of faces) {
       for (let k = 0; k < 3; k++) {
         const n = neighbours[t * 3 + k];

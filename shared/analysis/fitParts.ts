@@ -116,7 +116,11 @@ export function fitParts(
 }
 
 /** Largest k such that k copies of every part shelf-pack on the plate, trying four ways to turn the parts. */
-function maxSetsPerPlate(sizesMm: ReadonlyArray<readonly number[]>, buildVolumeMm: readonly number[], s: number): number {
+function maxSetsPerPlate(
+  sizesMm: ReadonlyArray<readonly number[]>,
+  buildVolumeMm: readonly number[],
+  s: number,
+): number {
   const [bx, by] = buildVolumeMm;
   const cells = sizesMm.map((size) => [size[0] + s, size[1] + s] as const);
   const setArea = cells.reduce((sum, [w, d]) => sum + w * d, 0);

@@ -34,7 +34,7 @@ export function meshTopology(mesh: IndexedMesh): MeshTopology {
   const start = new Uint32Array(vertexCount + 1);
   for (let u = 0; u < uses; u++) {
     const a = idx[u];
-    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    const b = idx[u - (u % 3) + (((u % 3) + 1) % 3)];
     start[(a < b ? a : b) + 1]++;
   }
   for (let v = 0; v < vertexCount; v++) start[v + 1] += start[v];
@@ -42,7 +42,7 @@ export function meshTopology(mesh: IndexedMesh): MeshTopology {
   const useOf = new Uint32Array(uses);
   for (let u = 0; u < uses; u++) {
     const a = idx[u];
-    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    const b = idx[u - (u % 3) + (((u % 3) + 1) % 3)];
     useOf[fill[a < b ? a : b]++] = u;
   }
   const neighbours = new Int32Array(uses).fill(-1);
@@ -52,10 +52,10 @@ export function meshTopology(mesh: IndexedMesh): MeshTopology {
   let misorientedEdges = 0;
   const hiOf = (u: number): number => {
     const a = idx[u];
-    const b = idx[u - (u % 3) + ((u % 3) + 1) % 3];
+    const b = idx[u - (u % 3) + (((u % 3) + 1) % 3)];
     return a < b ? b : a;
   };
-  const forwardOf = (u: number): boolean => idx[u] < idx[u - (u % 3) + ((u % 3) + 1) % 3];
+  const forwardOf = (u: number): boolean => idx[u] < idx[u - (u % 3) + (((u % 3) + 1) % 3)];
   for (let v = 0; v < vertexCount; v++) {
     const end = start[v + 1];
     for (let i = start[v]; i < end; i++) {

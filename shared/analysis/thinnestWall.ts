@@ -42,9 +42,15 @@ export function thinnestWall(
     const len = faceVectors(p, idx, t, face);
     if (len === 0) continue;
     const a = idx[t * 3] * 3;
-    const ux = face[0], uy = face[1], uz = face[2];
-    const vx = face[3], vy = face[4], vz = face[5];
-    const nx = face[6], ny = face[7], nz = face[8];
+    const ux = face[0],
+      uy = face[1],
+      uz = face[2];
+    const vx = face[3],
+      vy = face[4],
+      vz = face[5];
+    const nx = face[6],
+      ny = face[7],
+      nz = face[8];
     carry += (len / 2) * perMm2;
     const count = Math.floor(carry);
     carry -= count;

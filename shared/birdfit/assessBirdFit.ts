@@ -33,7 +33,8 @@ function fitOne(facts: NestBoxFacts, s: Species): SpeciesFit {
   const hole = facts.entryHoleDiameterMm;
   const lo = s.holeDiameterMm.min - HOLE_TOLERANCE_MM;
   const hi = s.holeDiameterMm.max + HOLE_TOLERANCE_MM;
-  const range = (r: { min: number; max: number }) => (r.min === r.max ? `${fmt(r.min)}` : `${fmt(r.min)}–${fmt(r.max)}`);
+  const range = (r: { min: number; max: number }) =>
+    r.min === r.max ? `${fmt(r.min)}` : `${fmt(r.min)}–${fmt(r.max)}`;
   if (hole < lo || hole > hi) {
     reasons.push(`entry ${fmt(hole)} mm; the table gives ${range(s.holeDiameterMm)} mm`);
   }
@@ -104,7 +105,8 @@ export function assessBirdFit(facts: NestBoxFacts, options: AssessBirdFitOptions
         `A ${fmt(hole)} mm entry is wider than 1½ in (38 mm) and lets in European starlings, an introduced species ` +
         'in North America that takes boxes from native birds. Keep to 1½ in unless the box is meant for larger ' +
         'native species, and then monitor it; follow local rules on managing introduced species.',
-      source: 'Bureau of Biological Survey table (starling 2 in hole); "a 1½ in hole keeps starlings out" (low-authority web source)',
+      source:
+        'Bureau of Biological Survey table (starling 2 in hole); "a 1½ in hole keeps starlings out" (low-authority web source)',
     });
   }
   if (Math.min(hole, entryHeight) >= HOUSE_SPARROW_HOLE_MM - 1) {
@@ -176,14 +178,16 @@ export function assessBirdFit(facts: NestBoxFacts, options: AssessBirdFitOptions
         `conducts heat about as well as pine, so a solid wall this thick insulates only about ${Math.round(ratio * 100)} % ` +
         'as well as a ¾ in pine board. Compensate with thicker walls holding closed air cells (check the wall resistance), ' +
         'a light colour, ventilation, a roof overhang and a shaded site.',
-      source: 'Cornell (¾ in walls); BTO and Which? (≥ 15 mm; thin plastic boxes overheat); PLA and pine conductivity (Zmeskal 2020; USDA Wood Handbook)',
+      source:
+        'Cornell (¾ in walls); BTO and Which? (≥ 15 mm; thin plastic boxes overheat); PLA and pine conductivity (Zmeskal 2020; USDA Wood Handbook)',
     });
   }
   if (!f.cleaningAccess) {
     warnings.push({
       code: 'no-cleaning-access',
       severity: 'warning',
-      message: 'Give the box an opening side or roof so old nests can be cleared out after the season and the box monitored.',
+      message:
+        'Give the box an opening side or roof so old nests can be cleared out after the season and the box monitored.',
       source: 'Cornell nest-box features; USFWS "For the Birds"',
     });
   }

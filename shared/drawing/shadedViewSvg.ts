@@ -27,16 +27,25 @@ export function shadedViewSvg(mesh: IndexedMesh, options: ShadedViewOptions): st
   // Camera basis: forward looks from the front-right, above, towards the part.
   const fwd = [-Math.sin(az) * Math.cos(el), Math.cos(az) * Math.cos(el), -Math.sin(el)];
   const right = [Math.cos(az), Math.sin(az), 0];
-  const up = [right[1] * fwd[2] - right[2] * fwd[1], right[2] * fwd[0] - right[0] * fwd[2], right[0] * fwd[1] - right[1] * fwd[0]];
+  const up = [
+    right[1] * fwd[2] - right[2] * fwd[1],
+    right[2] * fwd[0] - right[0] * fwd[2],
+    right[0] * fwd[1] - right[1] * fwd[0],
+  ];
   const light = normalise([-0.45, -0.7, 0.8]);
   const [r0, g0, b0] = hexToRgb(options.colourHex);
 
   const p = mesh.positions;
   const idx = mesh.indices;
   const faces: Array<{ depth: number; pts: number[]; shade: number }> = [];
-  let minU = Infinity, maxU = -Infinity, minV = Infinity, maxV = -Infinity;
+  let minU = Infinity,
+    maxU = -Infinity,
+    minV = Infinity,
+    maxV = -Infinity;
   for (let t = 0; t < idx.length; t += 3) {
-    const a = idx[t] * 3, b = idx[t + 1] * 3, c = idx[t + 2] * 3;
+    const a = idx[t] * 3,
+      b = idx[t + 1] * 3,
+      c = idx[t + 2] * 3;
     const e1 = [p[b] - p[a], p[b + 1] - p[a + 1], p[b + 2] - p[a + 2]];
     const e2 = [p[c] - p[a], p[c + 1] - p[a + 1], p[c + 2] - p[a + 2]];
     const n = normalise([e1[1] * e2[2] - e1[2] * e2[1], e1[2] * e2[0] - e1[0] * e2[2], e1[0] * e2[1] - e1[1] * e2[0]]);
@@ -49,7 +58,10 @@ export function shadedViewSvg(mesh: IndexedMesh, options: ShadedViewOptions): st
       const w = dot(q, up);
       pts.push(u, w);
       depth += dot(q, fwd);
-      minU = Math.min(minU, u); maxU = Math.max(maxU, u); minV = Math.min(minV, w); maxV = Math.max(maxV, w);
+      minU = Math.min(minU, u);
+      maxU = Math.max(maxU, u);
+      minV = Math.min(minV, w);
+      maxV = Math.max(maxV, w);
     }
     faces.push({ depth, pts, shade: 0.45 + 0.55 * Math.max(0, dot(n, light)) });
   }

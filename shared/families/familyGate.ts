@@ -50,15 +50,27 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
     });
   }
   const failed = input.variants.filter((variant) => variant.status === 'failed');
-  block('generation_failed', 'the template could not build these variants', failed.map((variant) => variant.sku));
+  block(
+    'generation_failed',
+    'the template could not build these variants',
+    failed.map((variant) => variant.sku),
+  );
   const done = input.variants.filter((variant) => variant.status === 'done' && variant.report);
   block(
     'not_closed',
     'the mesh is not closed (open edges)',
     done.filter((v) => !v.report!.watertight || v.report!.openEdges > 0).map((v) => v.sku),
   );
-  block('not_manifold', 'the mesh is not manifold', done.filter((v) => v.report!.nonManifoldEdges > 0).map((v) => v.sku));
-  block('does_not_fit', 'a part does not fit the printer', done.filter((v) => !v.report!.fitsPrinter).map((v) => v.sku));
+  block(
+    'not_manifold',
+    'the mesh is not manifold',
+    done.filter((v) => v.report!.nonManifoldEdges > 0).map((v) => v.sku),
+  );
+  block(
+    'does_not_fit',
+    'a part does not fit the printer',
+    done.filter((v) => !v.report!.fitsPrinter).map((v) => v.sku),
+  );
   block(
     'over_support_budget',
     `support volume is over the family budget of ${Math.round(input.supportBudgetMm3)} mm³`,
@@ -102,7 +114,7 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
     const heat: GateWarning = {
       code: 'outdoor-heat',
       severity: 'warning',
-      message: hottest.cautions[0] ?? 'a roof or wall in full sun passes the material\'s heat-deflection temperature',
+      message: hottest.cautions[0] ?? "a roof or wall in full sun passes the material's heat-deflection temperature",
       source: OUTDOOR_HEAT_SOURCE,
       skus: hot.map((variant) => variant.sku),
       acknowledgement: input.acknowledgements.find((ack) => ack.code === 'outdoor-heat') ?? null,
@@ -112,7 +124,7 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
       blockers.push({
         code: 'outdoor_unacknowledged',
         message:
-          'some colours get hotter in full sun than the material\'s heat-deflection temperature; acknowledge outdoor-heat in writing',
+          "some colours get hotter in full sun than the material's heat-deflection temperature; acknowledge outdoor-heat in writing",
         skus: heat.skus,
       });
     }

@@ -15,7 +15,10 @@ export const OUTDOOR_HEAT_SOURCE =
  */
 export function outdoorHeatReasons(outdoor: OutdoorAssessment, materialName: string): string[] {
   const reasons: string[] = [];
-  for (const [name, surface] of [['roof', outdoor.roof], ['wall', outdoor.wall]] as const) {
+  for (const [name, surface] of [
+    ['roof', outdoor.roof],
+    ['wall', outdoor.wall],
+  ] as const) {
     if (surface.verdict !== 'fail') continue;
     reasons.push(
       `${name} in full sun reaches ${Math.round(surface.solAirC)} °C, above ${materialName}'s ${outdoor.heatDeflectionC} °C`,

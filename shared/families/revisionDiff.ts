@@ -4,7 +4,15 @@ import { variantCount } from './variantMatrix';
 /** What the diff reads of a revision. */
 export type DiffableRevision = Pick<
   FamilySpec,
-  'name' | 'description' | 'templateId' | 'baseParams' | 'axes' | 'supportBudgetMm3' | 'printerId' | 'materialId' | 'region'
+  | 'name'
+  | 'description'
+  | 'templateId'
+  | 'baseParams'
+  | 'axes'
+  | 'supportBudgetMm3'
+  | 'printerId'
+  | 'materialId'
+  | 'region'
 > & { number: number; templateVersion: number };
 
 const same = (a: unknown, b: unknown): boolean => JSON.stringify(a) === JSON.stringify(b);
@@ -21,7 +29,16 @@ function valuesOf(axis: Axis | undefined): AxisValue[] {
  */
 export function revisionDiff(from: DiffableRevision, to: DiffableRevision): RevisionDiff {
   const fields: RevisionDiff['fields'] = [];
-  const scalar = ['name', 'description', 'templateId', 'templateVersion', 'supportBudgetMm3', 'printerId', 'materialId', 'region'] as const;
+  const scalar = [
+    'name',
+    'description',
+    'templateId',
+    'templateVersion',
+    'supportBudgetMm3',
+    'printerId',
+    'materialId',
+    'region',
+  ] as const;
   for (const field of scalar) {
     if (!same(from[field], to[field])) fields.push({ field, from: from[field], to: to[field] });
   }
@@ -39,7 +56,13 @@ export function revisionDiff(from: DiffableRevision, to: DiffableRevision): Revi
     const after = valuesOf(b);
     const addedValues = after.filter((value) => !before.some((old) => same(old, value)));
     const removedValues = before.filter((value) => !after.some((next) => same(next, value)));
-    const change = !a ? 'added' : !b ? 'removed' : addedValues.length || removedValues.length || !same(before, after) ? 'changed' : 'same';
+    const change = !a
+      ? 'added'
+      : !b
+        ? 'removed'
+        : addedValues.length || removedValues.length || !same(before, after)
+          ? 'changed'
+          : 'same';
     return { key, kind: (a ?? b)!.kind, change, addedValues, removedValues } as RevisionDiff['axes'][number];
   });
   return {

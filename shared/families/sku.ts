@@ -25,7 +25,11 @@ export function axisValueCode(value: AxisValue): string {
  * @param axes - the family's axes, in order
  * @param axisValues - the variant's value per axis key
  */
-export function skuFor(familyCode: string, axes: readonly Axis[], axisValues: Readonly<Record<string, AxisValue>>): string {
+export function skuFor(
+  familyCode: string,
+  axes: readonly Axis[],
+  axisValues: Readonly<Record<string, AxisValue>>,
+): string {
   const segments = axes.map((axis) => axisValueCode(axisValues[axis.key]));
   return [SKU_PREFIX, familyCode, ...segments].join('-');
 }

@@ -24,7 +24,10 @@ export function needsAcknowledgement(warning: Pick<BirdFitWarning, 'severity'>):
  * @returns the verdict and every reason for it
  */
 export function variantVerdict(
-  report: Pick<VariantReport, 'watertight' | 'openEdges' | 'nonManifoldEdges' | 'fitsPrinter' | 'printerId' | 'supportVolumeMm3'> &
+  report: Pick<
+    VariantReport,
+    'watertight' | 'openEdges' | 'nonManifoldEdges' | 'fitsPrinter' | 'printerId' | 'supportVolumeMm3'
+  > &
     Partial<Pick<VariantReport, 'outdoor'>>,
   supportBudgetMm3: number,
   warnings: readonly Pick<BirdFitWarning, 'code' | 'severity'>[],

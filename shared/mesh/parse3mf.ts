@@ -66,7 +66,8 @@ export function parse3mf(bytes: Uint8Array): IndexedMesh {
   const model = doc.model;
   if (!model) throw new MeshFormatError('not_a_mesh', 'The 3MF model part has no <model> element.');
   const scale = UNIT_TO_MM[model.unit ?? 'millimeter'];
-  if (scale === undefined) throw new MeshFormatError('not_a_mesh', `The 3MF unit "${model.unit}" is not one the standard names.`);
+  if (scale === undefined)
+    throw new MeshFormatError('not_a_mesh', `The 3MF unit "${model.unit}" is not one the standard names.`);
   const resources = model.resources as { object?: XmlObject[] } | undefined;
   const objects = new Map<string, XmlObject>();
   for (const object of resources?.object ?? []) if (object.id !== undefined) objects.set(object.id, object);

@@ -23,7 +23,8 @@ export function parseStl(bytes: Uint8Array): IndexedMesh {
   if (bytes.length >= HEADER_BYTES + 4) {
     const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     const declared = view.getUint32(HEADER_BYTES, true);
-    if (HEADER_BYTES + 4 + FACET_BYTES * declared === bytes.length) return nonEmpty(weldVertices(readBinary(view, declared)));
+    if (HEADER_BYTES + 4 + FACET_BYTES * declared === bytes.length)
+      return nonEmpty(weldVertices(readBinary(view, declared)));
   }
   if (looksLikeAsciiStl(bytes)) return nonEmpty(weldVertices(readAscii(bytes)));
   if (!looksBinary(bytes)) throw new MeshFormatError('not_a_mesh', 'The file is text but not an ASCII STL.');
@@ -34,7 +35,10 @@ export function parseStl(bytes: Uint8Array): IndexedMesh {
   const declared = view.getUint32(HEADER_BYTES, true);
   const expected = HEADER_BYTES + 4 + FACET_BYTES * declared;
   if (declared > MAX_MESH_TRIANGLES) {
-    throw new MeshFormatError('too_large', `The file declares ${declared} triangles; the limit is ${MAX_MESH_TRIANGLES}.`);
+    throw new MeshFormatError(
+      'too_large',
+      `The file declares ${declared} triangles; the limit is ${MAX_MESH_TRIANGLES}.`,
+    );
   }
   if (bytes.length < expected) {
     throw new MeshFormatError(
@@ -114,7 +118,10 @@ function readAscii(bytes: Uint8Array): Float32Array {
         const value = Number(raw);
         if (!Number.isFinite(value)) {
           const what = /^[-+]?(nan|inf)/i.test(raw) ? 'non_finite' : 'not_a_mesh';
-          throw new MeshFormatError(what, `Vertex ${Math.floor(count / 3) + 1} has the coordinate "${raw}", not a finite number.`);
+          throw new MeshFormatError(
+            what,
+            `Vertex ${Math.floor(count / 3) + 1} has the coordinate "${raw}", not a finite number.`,
+          );
         }
         values[count++] = value;
       }

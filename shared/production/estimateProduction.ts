@@ -79,12 +79,10 @@ export function estimateProduction(
   const materialCents = (massG / 1000) * m.priceCentsPerKg;
   const machineTimeCents = printTimeH * p.machineRateCentsPerHour;
   const energyCents = energyKwh * r.electricityCentsPerKwh;
-  const supportLabourCents =
-    ((part.supportVolumeMm3 / 1000) * r.supportRemovalMinPerCm3 * r.labourCentsPerHour) / 60;
+  const supportLabourCents = ((part.supportVolumeMm3 / 1000) * r.supportRemovalMinPerCm3 * r.labourCentsPerHour) / 60;
   const handlingLabourCents = (r.handlingMinPerUnit * r.labourCentsPerHour) / 60;
   const failureShare = r.failureAllowancePct / 100;
-  const failureAllowanceCents =
-    (materialCents + machineTimeCents + energyCents) * (failureShare / (1 - failureShare));
+  const failureAllowanceCents = (materialCents + machineTimeCents + energyCents) * (failureShare / (1 - failureShare));
 
   const parts = {
     materialCents: Math.round(materialCents),

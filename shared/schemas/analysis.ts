@@ -11,10 +11,7 @@ export const AxisUpSchema = z.enum(['+z', '-z', '+x', '-x', '+y', '-y']);
 export type AxisUp = z.infer<typeof AxisUpSchema>;
 
 /** Build orientation: a named up direction, or an explicit row-major 3×3 rotation (p' = R·p). */
-export const BuildOrientationSchema = z.union([
-  AxisUpSchema,
-  z.object({ rotation: z.array(z.number()).length(9) }),
-]);
+export const BuildOrientationSchema = z.union([AxisUpSchema, z.object({ rotation: z.array(z.number()).length(9) })]);
 /** A build orientation (see {@link BuildOrientationSchema}). */
 export type BuildOrientation = z.infer<typeof BuildOrientationSchema>;
 

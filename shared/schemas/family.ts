@@ -160,7 +160,8 @@ export const AxesSchema = z
   .superRefine((axes, ctx) => {
     const seen = new Set<string>();
     axes.forEach((axis, index) => {
-      if (seen.has(axis.key)) ctx.addIssue({ code: 'custom', path: [index, 'key'], message: `duplicate axis ${axis.key}` });
+      if (seen.has(axis.key))
+        ctx.addIssue({ code: 'custom', path: [index, 'key'], message: `duplicate axis ${axis.key}` });
       seen.add(axis.key);
     });
   });

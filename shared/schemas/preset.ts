@@ -18,7 +18,11 @@ export const PresetThumbnailSchema = z
   });
 
 /** A preset's display name: trimmed, 1 to 80 characters. */
-export const PresetNameSchema = z.string().trim().min(1, 'name is required').max(80, 'name must be at most 80 characters');
+export const PresetNameSchema = z
+  .string()
+  .trim()
+  .min(1, 'name is required')
+  .max(80, 'name must be at most 80 characters');
 
 /**
  * A designer's named parameter set for one template. `params` holds millimetres (and booleans / choices) exactly as

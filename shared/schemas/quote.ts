@@ -6,7 +6,11 @@ export const QUOTE_MAX_QUANTITY = 100_000;
 /** Body of `POST /api/quotes`: what the customer asks for. */
 export const QuoteCreateSchema = z.object({
   sku: z.string().trim().min(1, 'sku is required').max(80),
-  quantity: z.number().int('quantity must be a whole number').positive('quantity must be at least 1').max(QUOTE_MAX_QUANTITY),
+  quantity: z
+    .number()
+    .int('quantity must be a whole number')
+    .positive('quantity must be at least 1')
+    .max(QUOTE_MAX_QUANTITY),
   /** Date the customer wants the goods, YYYY-MM-DD. */
   deliveryDate: z.iso.date('deliveryDate must be a date like 2027-03-01'),
   customerName: z.string().trim().min(1, 'customerName is required').max(120),

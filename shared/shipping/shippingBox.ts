@@ -8,7 +8,11 @@ import type { BoxDimensionsMm, PackagingRules, ShippingBox } from '../schemas/sh
  * @param productMassG - mass of the product
  * @param rules - padding, box step, board and fill
  */
-export function shippingBox(productSizeMm: readonly number[], productMassG: number, rules: PackagingRules): ShippingBox {
+export function shippingBox(
+  productSizeMm: readonly number[],
+  productMassG: number,
+  rules: PackagingRules,
+): ShippingBox {
   const inner = productSizeMm
     .map((mm) => Math.ceil((mm + 2 * rules.paddingMm) / rules.boxStepMm - 1e-9) * rules.boxStepMm)
     .sort((a, b) => b - a) as BoxDimensionsMm;

@@ -54,7 +54,10 @@ export function assessOutdoor(options: AssessOutdoorOptions): OutdoorAssessment 
   const verdict = ORDER[Math.max(ORDER.indexOf(roof.verdict), ORDER.indexOf(wall.verdict))]!;
 
   const cautions: string[] = [];
-  for (const [name, s] of [['roof', roof], ['wall', wall]] as const) {
+  for (const [name, s] of [
+    ['roof', roof],
+    ['wall', wall],
+  ] as const) {
     if (s.verdict === 'fail') {
       cautions.push(
         `In full sun the ${name} can reach about ${s.solAirC.toFixed(1)} °C, above the ${m.name} heat-deflection ` +
@@ -69,10 +72,14 @@ export function assessOutdoor(options: AssessOutdoorOptions): OutdoorAssessment 
     }
   }
   if (a > 0.7) {
-    cautions.push('Dark colours run much hotter in sun; tests of painted boxes and panels found light colours coolest.');
+    cautions.push(
+      'Dark colours run much hotter in sun; tests of painted boxes and panels found light colours coolest.',
+    );
   }
   if (m.heatDeflectionC < 60) {
-    cautions.push(`${m.name} softens and creeps from about 50 °C and is not UV-stabilised: expect a shorter outdoor life.`);
+    cautions.push(
+      `${m.name} softens and creeps from about 50 °C and is not UV-stabilised: expect a shorter outdoor life.`,
+    );
   }
   cautions.push(
     `Plastic boxes with thin walls can overheat or hold condensation. Nestlings die above about ${NESTLING_LETHAL_C} °C ` +
@@ -82,7 +89,9 @@ export function assessOutdoor(options: AssessOutdoorOptions): OutdoorAssessment 
       'local bird-conservation groups on siting and materials.',
   );
   if (o.airC >= 35) {
-    cautions.push('Where days regularly pass 35 °C, guidance is to paint or choose light colours and to shade the box.');
+    cautions.push(
+      'Where days regularly pass 35 °C, guidance is to paint or choose light colours and to shade the box.',
+    );
   }
 
   const assessment: OutdoorAssessment = {

@@ -55,7 +55,11 @@ export async function api<T = unknown>(path: string, request: ApiRequest<T> = {}
     try {
       json = JSON.parse(text);
     } catch {
-      throw new ApiError(res.status, 'bad_response', `The server sent an answer that is not JSON (HTTP ${res.status}).`);
+      throw new ApiError(
+        res.status,
+        'bad_response',
+        `The server sent an answer that is not JSON (HTTP ${res.status}).`,
+      );
     }
   }
   if (!res.ok) {
@@ -71,7 +75,11 @@ export async function api<T = unknown>(path: string, request: ApiRequest<T> = {}
   if (!request.schema) return json as T;
   const checked = request.schema.safeParse(json);
   if (!checked.success) {
-    throw new ApiError(res.status, 'bad_response', `The server's answer did not have the expected shape: ${checked.error.issues[0]?.message ?? 'unknown'}`);
+    throw new ApiError(
+      res.status,
+      'bad_response',
+      `The server's answer did not have the expected shape: ${checked.error.issues[0]?.message ?? 'unknown'}`,
+    );
   }
   return checked.data;
 }

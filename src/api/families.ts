@@ -119,7 +119,8 @@ export function listVariants(id: string, query: VariantQuery = {}): Promise<Vari
  * @param body - one text per warning code
  */
 export async function acknowledgeWarnings(id: string, body: AcknowledgementsCreate): Promise<Family> {
-  return (await api(familyPath(id, '/acknowledgements'), { method: 'POST', body, schema: FamilyResponseSchema })).family;
+  return (await api(familyPath(id, '/acknowledgements'), { method: 'POST', body, schema: FamilyResponseSchema }))
+    .family;
 }
 
 /** The body each workflow action takes. */

@@ -16,7 +16,11 @@ export const PHOTO_ACCEPT = 'image/jpeg,image/png,image/webp';
 export async function uploadPhoto(familyId: string, file: Blob, caption = '', signal?: AbortSignal): Promise<Photo> {
   if (file.size > PHOTO_MAX_BYTES) {
     const limitMb = PHOTO_MAX_BYTES / (1024 * 1024);
-    throw new ApiError(413, 'too_large', `The photo is ${(file.size / 1048576).toFixed(1)} MB; at most ${limitMb} MB is accepted.`);
+    throw new ApiError(
+      413,
+      'too_large',
+      `The photo is ${(file.size / 1048576).toFixed(1)} MB; at most ${limitMb} MB is accepted.`,
+    );
   }
   const form = new FormData();
   form.append('photo', file, file instanceof File ? file.name : 'photo');
@@ -37,10 +41,12 @@ export async function uploadPhoto(familyId: string, file: Blob, caption = '', si
   const json: unknown = await res.json().catch(() => undefined);
   if (!res.ok) {
     const parsed = ApiErrorSchema.safeParse(json);
-    if (parsed.success) throw new ApiError(res.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.details);
+    if (parsed.success)
+      throw new ApiError(res.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.details);
     throw new ApiError(res.status, 'http_error', `The server answered HTTP ${res.status}.`);
   }
   const checked = PhotoResponseSchema.safeParse(json);
-  if (!checked.success) throw new ApiError(res.status, 'bad_response', 'The server answered the upload with an unexpected shape.');
+  if (!checked.success)
+    throw new ApiError(res.status, 'bad_response', 'The server answered the upload with an unexpected shape.');
   return checked.data.photo;
 }

@@ -23,7 +23,12 @@ export function downloadBlob(blob: Blob, fileName: string): void {
  * @param sha256 - mesh content hash
  * @param extension - `stl` or `3mf`
  */
-export function exportFileName(templateId: string, presetName: string | null, sha256: string, extension: string): string {
+export function exportFileName(
+  templateId: string,
+  presetName: string | null,
+  sha256: string,
+  extension: string,
+): string {
   const slug = (presetName ?? 'design')
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, '-')

@@ -76,5 +76,16 @@ export const useDesignStore = defineStore('design', () => {
     if (typeof localStorage !== 'undefined') localStorage.setItem('nw.lengthDisplay', display);
   }
 
-  return { templateId, params, preset, dirty, lengthDisplay, startNew, openPreset, markSaved, setParam, setLengthDisplay };
+  return {
+    templateId,
+    params,
+    preset,
+    dirty,
+    lengthDisplay,
+    startNew,
+    openPreset,
+    markSaved,
+    setParam,
+    setLengthDisplay,
+  };
 });

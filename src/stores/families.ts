@@ -95,7 +95,8 @@ export const useFamiliesStore = defineStore('families', () => {
     const seen = current.value?.id === id ? current.value : null;
     const guard = seen ? { expectedRevision: seen.revision, expectedLock: seen.lock } : {};
     let family: Family;
-    if (action === 'return') family = await familiesApi.transitionFamily(id, 'return', { ...guard, comments: comments ?? '' });
+    if (action === 'return')
+      family = await familiesApi.transitionFamily(id, 'return', { ...guard, comments: comments ?? '' });
     else if (action === 'approve')
       family = await familiesApi.transitionFamily(id, 'approve', comments ? { ...guard, comment: comments } : guard);
     else family = await familiesApi.transitionFamily(id, action, guard);

@@ -10,7 +10,9 @@ export function signInErrorMessage(err: unknown): string {
   if (err.status === 401) return 'E-mail or password is wrong.';
   if (err.status === 429) {
     const minutes = retryMinutes(err);
-    return minutes ? `Too many attempts, try again in ${minutes} minute${minutes === 1 ? '' : 's'}.` : 'Too many attempts, try again later.';
+    return minutes
+      ? `Too many attempts, try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`
+      : 'Too many attempts, try again later.';
   }
   if (err.status === 0) return err.message;
   if (err.status === 400) return 'Check the e-mail address and password.';

@@ -20,7 +20,12 @@ function post(response: GeometryResponse, transfer: ArrayBufferLike[] = []): voi
 
 function fail(requestId: number, err: unknown): void {
   if (err instanceof TemplateParamError) post({ requestId, ok: false, field: err.field, message: err.message });
-  else post({ requestId, ok: false, message: `The model could not be built: ${err instanceof Error ? err.message : String(err)}` });
+  else
+    post({
+      requestId,
+      ok: false,
+      message: `The model could not be built: ${err instanceof Error ? err.message : String(err)}`,
+    });
 }
 
 /** Lets queued messages arrive (they update newestRequestId) before deciding whether to analyse. */
@@ -66,7 +71,11 @@ async function handle(request: GeometryRequest): Promise<void> {
       overhangMask ? [overhangMask.buffer] : [],
     );
   } catch (err) {
-    post({ requestId, ok: false, message: `The figures could not be computed: ${err instanceof Error ? err.message : String(err)}` });
+    post({
+      requestId,
+      ok: false,
+      message: `The figures could not be computed: ${err instanceof Error ? err.message : String(err)}`,
+    });
   }
 }
 

@@ -23,8 +23,7 @@ export function describeParameters(template: AnyTemplate): ParameterDescription[
     properties?: Record<string, JsonSchemaField>;
   };
   return Object.entries(json.properties ?? {}).map(([key, field]) => {
-    const kind: ParameterDescription['kind'] =
-      field.type === 'boolean' ? 'boolean' : field.enum ? 'choice' : 'number';
+    const kind: ParameterDescription['kind'] = field.type === 'boolean' ? 'boolean' : field.enum ? 'choice' : 'number';
     if (field.default === undefined) throw new Error(`Template ${template.id}: parameter ${key} has no default`);
     const description: ParameterDescription = {
       key,

@@ -59,7 +59,9 @@ function polygonsOf(mesh: IndexedMesh): Poly3[] {
   const polygons: Poly3[] = new Array(mesh.indices.length / 3);
   for (let t = 0; t < polygons.length; t++) {
     // A JSCAD poly3 is a plain { vertices } object; building it directly skips a copy per triangle.
-    polygons[t] = { vertices: [point(mesh.indices[t * 3]), point(mesh.indices[t * 3 + 1]), point(mesh.indices[t * 3 + 2])] };
+    polygons[t] = {
+      vertices: [point(mesh.indices[t * 3]), point(mesh.indices[t * 3 + 1]), point(mesh.indices[t * 3 + 2])],
+    };
   }
   return polygons;
 }

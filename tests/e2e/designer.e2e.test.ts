@@ -181,7 +181,9 @@ describe('designer configurator', () => {
 
     // Inches only at the edge of the UI: switching the display converts the shown value and builds nothing new.
     await page.getByText('inch', { exact: true }).click();
-    await page.waitForFunction(() => document.querySelector('#input-entryHoleDiameterMm')?.closest('[data-testid]')?.textContent?.includes(' in'));
+    await page.waitForFunction(() =>
+      document.querySelector('#input-entryHoleDiameterMm')?.closest('[data-testid]')?.textContent?.includes(' in'),
+    );
     // source: 1 in = 25.4 mm exactly (international inch, 1959)
     expect(await entryInputValue(page)).toBeCloseTo(entryMm / 25.4, 2);
     expect((await page.getByTestId('mesh-hash').textContent())!.trim()).toBe(hash);
@@ -261,7 +263,9 @@ describe('designer configurator', () => {
     await page.getByTestId('save-preset').click();
     await page.getByText('Saved “Browser test, small entry”.').waitFor();
     expect(await page.getByTestId('unsaved').count()).toBe(0);
-    const updated = (await (await page.request.get(`/api/presets/${presetId}`)).json()) as { params: Record<string, number> };
+    const updated = (await (await page.request.get(`/api/presets/${presetId}`)).json()) as {
+      params: Record<string, number>;
+    };
     expect(updated.params.entryHoleDiameterMm).toBeCloseTo(changedMm, 6);
     expect(changedHash).not.toBe(hash);
 

@@ -93,7 +93,12 @@ async function submitFamilyThroughApi(page: Page, code: string, name: string): P
     await expectJson(
       await page.request.post(`/api/families/${id}/acknowledgements`, {
         headers,
-        data: { acknowledgements: open.map((w) => ({ code: w.code, text: 'Accepted for this test family; the listing carries the caution.' })) },
+        data: {
+          acknowledgements: open.map((w) => ({
+            code: w.code,
+            text: 'Accepted for this test family; the listing carries the caution.',
+          })),
+        },
       }),
       200,
     );
@@ -147,10 +152,14 @@ describe('variant families: build, review, publish, catalogue', () => {
 
     await page.getByTestId('save-family').click();
     await page
-      .waitForURL((url) => /^\/families\/[^/]+$/.test(url.pathname) && !url.pathname.endsWith('/new'), { timeout: 15_000 })
+      .waitForURL((url) => /^\/families\/[^/]+$/.test(url.pathname) && !url.pathname.endsWith('/new'), {
+        timeout: 15_000,
+      })
       .catch(async (err: unknown) => {
         await page.screenshot({ path: `${SHOTS}/family-save-failed.png`, fullPage: true });
-        const shown = (await page.getByTestId('save-error').count()) ? await textOf(page, 'save-error') : 'no error shown';
+        const shown = (await page.getByTestId('save-error').count())
+          ? await textOf(page, 'save-error')
+          : 'no error shown';
         throw new Error(`the family was not saved: ${shown} (${String(err)})`);
       });
     familyId = new URL(page.url()).pathname.split('/').pop()!;
@@ -159,7 +168,8 @@ describe('variant families: build, review, publish, catalogue', () => {
     // Compute: the progress bar runs to 6 / 6 through the server-sent events.
     await page.getByTestId('start-compute').click();
     await page.waitForFunction(
-      () => document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'running' ||
+      () =>
+        document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'running' ||
         document.querySelector('[data-testid="compute-panel"]')?.getAttribute('data-state') === 'done',
       undefined,
       { timeout: 20_000 },
@@ -175,7 +185,9 @@ describe('variant families: build, review, publish, catalogue', () => {
 
     // The matrix lists the six SKUs of the scheme FH-<code>-<hole>-<colour>.
     const skus = page.getByTestId('variant-sku');
-    await page.waitForFunction(() => document.querySelectorAll('[data-testid="variant-sku"]').length === 6, undefined, { timeout: 15_000 });
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid="variant-sku"]').length === 6, undefined, {
+      timeout: 15_000,
+    });
     const skuTexts = (await skus.allTextContents()).map((s) => s.trim()).sort();
     expect(skuTexts).toEqual(
       ['28', '32'].flatMap((mm) => ['MOSS', 'SAND', 'WHIT'].map((c) => `FH-${CODE}-${mm}-${c}`)).sort(),
@@ -185,21 +197,41 @@ describe('variant families: build, review, publish, catalogue', () => {
     const acks = page.locator('textarea[id^="ack-"]');
     const ackCount = await acks.count();
     for (let i = 0; i < ackCount; i++) {
-      await acks.nth(i).fill('Sold with a printed note: mount 2–4 m high, no perch, clean out each autumn; checked with the studio ecologist.');
+      await acks
+        .nth(i)
+        .fill(
+          'Sold with a printed note: mount 2–4 m high, no perch, clean out each autumn; checked with the studio ecologist.',
+        );
     }
     if (ackCount) {
       await page.getByTestId('save-acks').click();
-      await page.waitForFunction(() => !document.querySelector('[data-testid="save-acks"]')?.closest('button')?.classList.contains('n-button--loading'));
+      await page.waitForFunction(
+        () =>
+          !document
+            .querySelector('[data-testid="save-acks"]')
+            ?.closest('button')
+            ?.classList.contains('n-button--loading'),
+      );
     }
-    await page.waitForFunction(() => document.querySelector('[data-testid="gate-panel"]')?.getAttribute('data-ok') === 'true', undefined, {
-      timeout: 15_000,
-    }).catch(async (err: unknown) => {
-      throw new Error(`gate stays blocked: ${await textOf(page, 'gate-panel')} (${String(err)})`);
-    });
+    await page
+      .waitForFunction(
+        () => document.querySelector('[data-testid="gate-panel"]')?.getAttribute('data-ok') === 'true',
+        undefined,
+        {
+          timeout: 15_000,
+        },
+      )
+      .catch(async (err: unknown) => {
+        throw new Error(`gate stays blocked: ${await textOf(page, 'gate-panel')} (${String(err)})`);
+      });
 
     // A text file named like a PNG is refused by its content, and the page says so.
     const fileInput = page.getByTestId('photo-gallery').locator('input[type="file"]');
-    await fileInput.setInputFiles({ name: 'not-a-photo.png', mimeType: 'image/png', buffer: Buffer.from('just some words, no pixels') });
+    await fileInput.setInputFiles({
+      name: 'not-a-photo.png',
+      mimeType: 'image/png',
+      buffer: Buffer.from('just some words, no pixels'),
+    });
     await page.getByTestId('photo-error').waitFor();
     await expect(textOf(page, 'photo-error')).resolves.toContain('not-a-photo.png');
     expect(await page.getByTestId('photo').count()).toBe(0);
@@ -223,7 +255,9 @@ describe('variant families: build, review, publish, catalogue', () => {
     expect(await page.getByTestId('action-approve').count()).toBe(0);
 
     await page.getByTestId('action-submit').click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('In review'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('In review'),
+    );
     await page.screenshot({ path: `${SHOTS}/family-submitted.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
@@ -242,16 +276,24 @@ describe('variant families: build, review, publish, catalogue', () => {
     await page.waitForURL(`**/review/${familyId}`);
 
     // Every variant's report is open, and the designer's photo is there.
-    await page.waitForFunction(() => document.querySelectorAll('[data-testid^="variant-report-"]').length === 6, undefined, { timeout: 15_000 });
+    await page.waitForFunction(
+      () => document.querySelectorAll('[data-testid^="variant-report-"]').length === 6,
+      undefined,
+      { timeout: 15_000 },
+    );
     await page.getByTestId('photo').first().locator('img').waitFor();
     expect(await page.getByTestId('action-submit').count()).toBe(0);
     await page.screenshot({ path: `${SHOTS}/review-family.png`, fullPage: true });
 
     await page.getByTestId('action-approve').click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Approved'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Approved'),
+    );
     await page.getByTestId('action-publish').click();
     await page.locator('.n-dialog').getByRole('button', { name: 'Publish', exact: true }).click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'),
+    );
     await page.screenshot({ path: `${SHOTS}/review-published.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
@@ -279,7 +321,9 @@ describe('variant families: build, review, publish, catalogue', () => {
     const { variants } = (await listed.json()) as { variants: { sku: string; priceCents: number; currency: string }[] };
     const variant = variants.find((item) => item.sku === sku)!;
     expect(variant.priceCents).toBeGreaterThan(0);
-    const money = new Intl.NumberFormat('en', { style: 'currency', currency: variant.currency }).format(variant.priceCents / 100);
+    const money = new Intl.NumberFormat('en', { style: 'currency', currency: variant.currency }).format(
+      variant.priceCents / 100,
+    );
     await expect(row.textContent()).resolves.toContain(money);
     await page.screenshot({ path: `${SHOTS}/catalogue.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
@@ -289,10 +333,15 @@ describe('variant families: build, review, publish, catalogue', () => {
   it('a designer who tries to publish through the API gets 403 and sees no publish button', async () => {
     const page = await e2e.newPage();
     await e2e.signInAs(page, 'designer');
-    const answer = await page.request.post(`/api/families/${familyId}/publish`, { data: {}, headers: { Origin: e2e.baseUrl } });
+    const answer = await page.request.post(`/api/families/${familyId}/publish`, {
+      data: {},
+      headers: { Origin: e2e.baseUrl },
+    });
     expect(answer.status()).toBe(403);
     await page.goto(`/families/${familyId}`);
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'),
+    );
     expect(await page.getByTestId('action-publish').count()).toBe(0);
     expect(await page.getByTestId('action-retire').count()).toBe(0);
     // The review area is not the designer's: the router shows the forbidden page.
@@ -312,9 +361,13 @@ describe('variant families: build, review, publish, catalogue', () => {
     await expect(textOf(page, 'variant-count')).resolves.toMatch(/^9\s*variants/);
     await page.getByTestId('save-family').click();
     await page.waitForURL((url) => url.pathname === `/families/${familyId}`);
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'),
+    );
     const diff = page.getByTestId('revision-diff');
-    await page.waitForFunction(() => /Variants: 6 → 9/.test(document.querySelector('[data-testid="revision-diff"]')?.textContent ?? ''));
+    await page.waitForFunction(() =>
+      /Variants: 6 → 9/.test(document.querySelector('[data-testid="revision-diff"]')?.textContent ?? ''),
+    );
     await expect(diff.textContent()).resolves.toContain('+25');
     await page.screenshot({ path: `${SHOTS}/family-revision-2.png`, fullPage: true });
     expect(e2e.problems(page)).toEqual([]);
@@ -323,7 +376,10 @@ describe('variant families: build, review, publish, catalogue', () => {
     // Sales still sees the six published variants of revision 1, none with the new 25 mm hole.
     const sales = await e2e.newPage();
     await e2e.signInAs(sales, 'sales');
-    const listed = await expectJson<{ variants: { sku: string; revision: number }[] }>(await sales.request.get(`/api/catalogue?q=${CODE}`), 200);
+    const listed = await expectJson<{ variants: { sku: string; revision: number }[] }>(
+      await sales.request.get(`/api/catalogue?q=${CODE}`),
+      200,
+    );
     expect(listed.variants.map((v) => v.sku).filter((sku) => sku.startsWith(`FH-${CODE}-`))).toHaveLength(6);
     expect(listed.variants.every((v) => v.revision === 1)).toBe(true);
     await sales.context().close();
@@ -343,7 +399,9 @@ describe('variant families: build, review, publish, catalogue', () => {
     const comments = 'Please add a drainage note to the listing and a photo of the 32 mm sample.';
     await page.locator('#return-comments').fill(comments);
     await page.getByTestId('confirm-return').click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'));
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'),
+    );
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
 
@@ -397,7 +455,8 @@ describe('variant families: build, review, publish, catalogue', () => {
       await page.getByTestId(`axis-add-${key}`).click();
     }
     await page.getByTestId('add-colour-axis').click();
-    for (const colour of ['white', 'sand', 'moss-green', 'bark-brown', 'black']) await page.getByTestId(`colour-${colour}`).click();
+    for (const colour of ['white', 'sand', 'moss-green', 'bark-brown', 'black'])
+      await page.getByTestId(`colour-${colour}`).click();
     await expect(textOf(page, 'variant-count')).resolves.toMatch(/^550\s*variants/);
     await expect(textOf(page, 'variant-limit')).resolves.toContain('at most 500 variants; these axes make 550');
     await expect(page.getByTestId('save-family').isDisabled()).resolves.toBe(true);
@@ -473,7 +532,10 @@ describe('variant families: build, review, publish, catalogue', () => {
     // The seeded demo family in the catalogue (a draft revision would make "retire" wait for its own review).
     const published = listed.families.find((family) => family.code !== CODE);
     expect(published, 'a published family to retire').toBeDefined();
-    const before = await expectJson<{ variants: { family: { id: string } }[] }>(await page.request.get('/api/catalogue'), 200);
+    const before = await expectJson<{ variants: { family: { id: string } }[] }>(
+      await page.request.get('/api/catalogue'),
+      200,
+    );
     expect(before.variants.some((v) => v.family.id === published!.id)).toBe(true);
 
     await page.goto('/review');
@@ -484,8 +546,13 @@ describe('variant families: build, review, publish, catalogue', () => {
     await expect(textOf(page, 'family-state')).resolves.toBe('Published');
     await page.getByTestId('action-retire').click();
     await page.locator('.n-dialog').getByRole('button', { name: 'Retire', exact: true }).click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Retired'));
-    const after = await expectJson<{ variants: { family: { id: string } }[] }>(await page.request.get('/api/catalogue'), 200);
+    await page.waitForFunction(() =>
+      document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Retired'),
+    );
+    const after = await expectJson<{ variants: { family: { id: string } }[] }>(
+      await page.request.get('/api/catalogue'),
+      200,
+    );
     expect(after.variants.some((v) => v.family.id === published!.id)).toBe(false);
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();

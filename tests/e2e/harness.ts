@@ -153,7 +153,8 @@ export async function startE2E(options: StartE2EOptions = {}): Promise<E2E> {
       page.on('console', (msg) => {
         if (options.verbose) console.log(`[browser ${msg.type()}] ${msg.text()}`);
         // Expected 401/403/429 answers show up as console errors of the failed fetch; keep only script errors.
-        if (msg.type() === 'error' && !/Failed to load resource/.test(msg.text())) problems.push(`console: ${msg.text()}`);
+        if (msg.type() === 'error' && !/Failed to load resource/.test(msg.text()))
+          problems.push(`console: ${msg.text()}`);
       });
       return page;
     },

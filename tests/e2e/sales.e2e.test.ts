@@ -56,17 +56,23 @@ describe('sales in the browser', () => {
     expect(sheet).toContain(sku);
     const holeMm = variant.report.facts.entryHoleDiameterMm;
     expect(sheet).toContain(`${holeMm.toFixed(0)} mm (${(holeMm / 25.4).toFixed(2)} in)`); // 1 in = 25.4 mm
-    for (const caution of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.']) expect(sheet).toContain(caution);
+    for (const caution of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.'])
+      expect(sheet).toContain(caution);
     await page.screenshot({ path: join(SHOTS, 'sales-catalogue.png') });
 
     // The quotes screen carries the price list downloads.
     await page.getByRole('link', { name: 'Quotes' }).first().click();
     await page.getByRole('heading', { name: 'Quotes', level: 1 }).waitFor();
     const csvPath = await download(page, () => page.getByTestId('price-list-csv').click(), 'sales-price-list.csv');
-    const rows = parse(readFileSync(csvPath, 'utf8'), { columns: true, skip_empty_lines: true }) as Array<Record<string, string>>;
+    const rows = parse(readFileSync(csvPath, 'utf8'), { columns: true, skip_empty_lines: true }) as Array<
+      Record<string, string>
+    >;
     expect(rows.map((r) => r.SKU).sort()).toEqual(catalogue.variants.map((v) => v.sku).sort());
     const csvSum = rows.reduce((sum, r) => sum + Number(r['Unit price']), 0);
-    expect(csvSum).toBeCloseTo(catalogue.variants.reduce((sum, v) => sum + v.priceCents / 100, 0), 6);
+    expect(csvSum).toBeCloseTo(
+      catalogue.variants.reduce((sum, v) => sum + v.priceCents / 100, 0),
+      6,
+    );
 
     // A quote started from the catalogue row arrives with its SKU chosen.
     await page.goto('/catalogue');

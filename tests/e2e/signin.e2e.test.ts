@@ -42,44 +42,51 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
   });
 
   // The areas each role should see come from the same registry the nav uses; the roles come from the seed.
-  it.each(ROLES.map((role) => [role]))('signs in as the demo %s, shows their home screen and signs out', async (role: Role) => {
-    const person = demoPerson(role);
-    const page = await e2e.newPage();
-    await e2e.signIn(page, person.email, person.password);
-    expect(new URL(page.url()).pathname).toBe('/');
+  it.each(ROLES.map((role) => [role]))(
+    'signs in as the demo %s, shows their home screen and signs out',
+    async (role: Role) => {
+      const person = demoPerson(role);
+      const page = await e2e.newPage();
+      await e2e.signIn(page, person.email, person.password);
+      expect(new URL(page.url()).pathname).toBe('/');
 
-    const heading = page.getByRole('heading', { level: 1 });
-    await heading.waitFor();
-    expect(await heading.textContent()).toContain(person.name.split(' ')[0]);
-    expect(await page.getByTestId('person-name').textContent()).toBe(person.name);
+      const heading = page.getByRole('heading', { level: 1 });
+      await heading.waitFor();
+      expect(await heading.textContent()).toContain(person.name.split(' ')[0]);
+      expect(await page.getByTestId('person-name').textContent()).toBe(person.name);
 
-    const expectedAreas = areasFor(person.roles);
-    const cards = page.locator('.area-card');
-    expect(await cards.count()).toBe(expectedAreas.length);
-    for (const area of expectedAreas) {
-      const card = page.locator(`.area-card[data-area="${area.id}"]`);
-      expect(await card.textContent()).toContain(area.label);
-      // Nav shows the same area, and only the areas this person's roles allow.
-      await expect(page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: area.label }).isVisible()).resolves.toBe(true);
-    }
-    // Home plus the person's areas, nothing more.
-    expect(await page.getByRole('navigation', { name: 'Areas' }).getByRole('link').count()).toBe(expectedAreas.length + 1);
-    if (expectedAreas.length === 0) expect(await page.getByTestId('no-areas').isVisible()).toBe(true);
-    await settle(page);
-    await page.screenshot({ path: `${SHOTS}/home-${role}.png` });
+      const expectedAreas = areasFor(person.roles);
+      const cards = page.locator('.area-card');
+      expect(await cards.count()).toBe(expectedAreas.length);
+      for (const area of expectedAreas) {
+        const card = page.locator(`.area-card[data-area="${area.id}"]`);
+        expect(await card.textContent()).toContain(area.label);
+        // Nav shows the same area, and only the areas this person's roles allow.
+        await expect(
+          page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: area.label }).isVisible(),
+        ).resolves.toBe(true);
+      }
+      // Home plus the person's areas, nothing more.
+      expect(await page.getByRole('navigation', { name: 'Areas' }).getByRole('link').count()).toBe(
+        expectedAreas.length + 1,
+      );
+      if (expectedAreas.length === 0) expect(await page.getByTestId('no-areas').isVisible()).toBe(true);
+      await settle(page);
+      await page.screenshot({ path: `${SHOTS}/home-${role}.png` });
 
-    await page.getByRole('button', { name: `Account menu for ${person.name}` }).click();
-    await page.getByText('Sign out', { exact: true }).click();
-    await page.waitForURL((url) => url.pathname === '/sign-in');
+      await page.getByRole('button', { name: `Account menu for ${person.name}` }).click();
+      await page.getByText('Sign out', { exact: true }).click();
+      await page.waitForURL((url) => url.pathname === '/sign-in');
 
-    // Signed out for real: the server no longer knows the session, and the app sends the visitor to sign in.
-    const me = await page.request.get('/api/auth/me');
-    expect(me.status()).toBe(401);
-    await page.goto('/');
-    await page.waitForURL((url) => url.pathname === '/sign-in');
-    expect(e2e.problems(page)).toEqual([]);
-    await page.context().close();
-  });
+      // Signed out for real: the server no longer knows the session, and the app sends the visitor to sign in.
+      const me = await page.request.get('/api/auth/me');
+      expect(me.status()).toBe(401);
+      await page.goto('/');
+      await page.waitForURL((url) => url.pathname === '/sign-in');
+      expect(e2e.problems(page)).toEqual([]);
+      await page.context().close();
+    },
+  );
 
   it('says clearly that the e-mail or password is wrong, without moving the form', async () => {
     const person = demoPerson('designer');
@@ -133,7 +140,10 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
     await page.getByLabel('Password', { exact: true }).fill('one-more-guess');
     await page.getByRole('button', { name: 'Sign in' }).click();
     // The server's window is 15 minutes (server/auth/signInLimiter.ts); the page names the wait in minutes.
-    await page.getByRole('alert').filter({ hasText: /Too many attempts, try again in 1[45] minutes\./ }).waitFor();
+    await page
+      .getByRole('alert')
+      .filter({ hasText: /Too many attempts, try again in 1[45] minutes\./ })
+      .waitFor();
     await settle(page);
     await page.screenshot({ path: `${SHOTS}/sign-in-too-many.png` });
     expect(e2e.problems(page)).toEqual([]);

@@ -9,7 +9,12 @@ import { parseMeshFile } from '../../../shared/mesh/parseMeshFile';
 import { analyzeMesh } from '../../../shared/analysis/analyzeMesh';
 import { AnalysisRequestSchema, type AnalysisReport } from '../../../shared/schemas/analysis';
 import { EXIT_CODE, parseCliArgs } from '../parseCliArgs';
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../../shared/production/defaults';
+import {
+  DEFAULT_MATERIALS,
+  DEFAULT_PRINTERS,
+  DEFAULT_RATES,
+  DEFAULT_SETTINGS,
+} from '../../../shared/production/defaults';
 
 /** One line for the command list. */
 export const summary = 'Print-readiness report of an STL or 3MF file (geometry, support, orientation, cost)';
@@ -60,7 +65,9 @@ export async function run(argv: string[]): Promise<number> {
     process.stderr.write(`--${String(issue.path[0] ?? '')}: ${issue.message}\n${USAGE}`);
     return EXIT_CODE.usage;
   }
-  const printer = request.data.printerId ? DEFAULT_PRINTERS.find((p) => p.id === request.data.printerId) : DEFAULT_PRINTERS[0];
+  const printer = request.data.printerId
+    ? DEFAULT_PRINTERS.find((p) => p.id === request.data.printerId)
+    : DEFAULT_PRINTERS[0];
   const material = request.data.materialId
     ? DEFAULT_MATERIALS.find((m) => m.id === request.data.materialId)
     : DEFAULT_MATERIALS[0];
@@ -69,7 +76,9 @@ export async function run(argv: string[]): Promise<number> {
     return EXIT_CODE.usage;
   }
   if (request.data.colourId !== undefined && !material.colours.some((c) => c.id === request.data.colourId)) {
-    process.stderr.write(`Unknown colour for ${material.id}; choose one of ${material.colours.map((c) => c.id).join(', ')}.\n`);
+    process.stderr.write(
+      `Unknown colour for ${material.id}; choose one of ${material.colours.map((c) => c.id).join(', ')}.\n`,
+    );
     return EXIT_CODE.usage;
   }
   const bytes = new Uint8Array(await readFile(values.in));
@@ -84,7 +93,9 @@ export async function run(argv: string[]): Promise<number> {
     throw err;
   }
   const settings =
-    request.data.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.data.infillPct };
+    request.data.infillPct === undefined
+      ? DEFAULT_SETTINGS
+      : { ...DEFAULT_SETTINGS, infillPct: request.data.infillPct };
   const { report } = analyzeMesh(mesh, {
     up: request.data.up,
     printer,
@@ -94,7 +105,9 @@ export async function run(argv: string[]): Promise<number> {
     rates: DEFAULT_RATES,
     overhangDeg: request.data.overhangDeg,
   });
-  process.stdout.write(values.json ? `${JSON.stringify(report, null, 2)}\n` : formatReport(report, basename(values.in)));
+  process.stdout.write(
+    values.json ? `${JSON.stringify(report, null, 2)}\n` : formatReport(report, basename(values.in)),
+  );
   return EXIT_CODE.ok;
 }
 
@@ -114,18 +127,38 @@ export function formatReport(r: AnalysisReport, name: string): string {
   const p = r.production;
   const rows: [string, string][] = [
     ['File', name],
-    ['Orientation', r.orientationSearch ? `auto: ${r.orientationSearch.best.label}` : String(typeof r.up === 'string' ? `${r.up} up` : 'rotation')],
+    [
+      'Orientation',
+      r.orientationSearch
+        ? `auto: ${r.orientationSearch.best.label}`
+        : String(typeof r.up === 'string' ? `${r.up} up` : 'rotation'),
+    ],
     ['Triangles', String(r.triangles)],
     ['Size (x × y × z)', r.bbox.sizeMm.map((v) => v.toFixed(1)).join(' × ') + ' mm'],
     ['Volume', cm3(r.volumeMm3)],
     ['Surface area', cm2(r.surfaceAreaMm2)],
-    ['Watertight', r.watertight ? 'yes' : `no (${r.edges.openEdges} open, ${r.edges.nonManifoldEdges} non-manifold, ${r.edges.misorientedEdges} misoriented edges)`],
+    [
+      'Watertight',
+      r.watertight
+        ? 'yes'
+        : `no (${r.edges.openEdges} open, ${r.edges.nonManifoldEdges} non-manifold, ${r.edges.misorientedEdges} misoriented edges)`,
+    ],
     ['Shells', String(r.components)],
     [`Overhang > ${r.overhang.thresholdDeg}°`, `${cm2(r.overhang.areaMm2)} (${r.overhang.faceCount} faces)`],
     ['Support volume', `${cm3(r.supportVolumeMm3)} (ray pitch ${mm(r.supportSamplePitchMm, 2)})`],
     ['Bed contact', cm2(r.bedContactAreaMm2)],
-    ['Bridges', r.bridges.regions.length ? r.bridges.regions.map((b) => `${b.spanMm.toFixed(1)} mm ${b.status}`).join(', ') : 'none'],
-    ['Thinnest wall', r.thinnestWall ? `${mm(r.thinnestWall.minMm, 2)} (5th percentile ${mm(r.thinnestWall.p5Mm, 2)})` : 'not measured (open mesh)'],
+    [
+      'Bridges',
+      r.bridges.regions.length
+        ? r.bridges.regions.map((b) => `${b.spanMm.toFixed(1)} mm ${b.status}`).join(', ')
+        : 'none',
+    ],
+    [
+      'Thinnest wall',
+      r.thinnestWall
+        ? `${mm(r.thinnestWall.minMm, 2)} (5th percentile ${mm(r.thinnestWall.p5Mm, 2)})`
+        : 'not measured (open mesh)',
+    ],
     ['Printer', `${r.buildPlate.printerId} (${r.buildPlate.buildVolumeMm.join(' × ')} mm)`],
     ['Fits / copies per plate', r.buildPlate.fits ? `yes / ${r.buildPlate.copiesPerPlate}` : 'no'],
     ['Material', r.materialId],

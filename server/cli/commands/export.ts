@@ -23,7 +23,9 @@ export async function run(argv: string[]): Promise<number> {
     },
   });
   if (!values.template || !values.out) {
-    process.stderr.write("Usage: npm run cli -- export --template ID [--params '<json>'] [--format stl|3mf] --out FILE\n");
+    process.stderr.write(
+      "Usage: npm run cli -- export --template ID [--params '<json>'] [--format stl|3mf] --out FILE\n",
+    );
     return 2;
   }
   if (values.format !== 'stl' && values.format !== '3mf') {

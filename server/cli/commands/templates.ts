@@ -26,7 +26,12 @@ export async function run(argv: string[]): Promise<number> {
   for (const template of templates) {
     process.stdout.write(`${template.id} v${template.version}: ${template.name} — ${template.summary}\n`);
     for (const p of template.parameters) {
-      const range = p.kind === 'number' ? `${p.min}–${p.max} ${p.unit}`.trim() : p.kind === 'choice' ? (p.options ?? []).join(' | ') : 'on/off';
+      const range =
+        p.kind === 'number'
+          ? `${p.min}–${p.max} ${p.unit}`.trim()
+          : p.kind === 'choice'
+            ? (p.options ?? []).join(' | ')
+            : 'on/off';
       process.stdout.write(`  ${p.key.padEnd(24)} ${String(p.default).padEnd(8)} ${range}\n`);
     }
   }

@@ -1,6 +1,18 @@
 /** Tables of the sales area: its settings and the saved wholesale quotes. Re-exported from ../schema.ts. */
 import { sql } from 'drizzle-orm';
-import { boolean, check, date, doublePrecision, index, integer, jsonb, pgTable, serial, text, timestamp } from 'drizzle-orm/pg-core';
+import {
+  boolean,
+  check,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  serial,
+  text,
+  timestamp,
+} from 'drizzle-orm/pg-core';
 import type { SalesSettings } from '../../../shared/schemas/sales';
 import type { QuoteFarm } from '../../../shared/schemas/quote';
 import { people } from '../schema';
@@ -18,7 +30,9 @@ export const salesSettings = pgTable('sales_settings', {
 export const quotes = pgTable(
   'quotes',
   {
-    id: text('id').primaryKey().$defaultFn(() => crypto.randomUUID()),
+    id: text('id')
+      .primaryKey()
+      .$defaultFn(() => crypto.randomUUID()),
     /** Running number behind the human reference `Q-0001`. */
     number: serial('number').notNull().unique(),
     sku: text('sku').notNull(),
@@ -35,7 +49,9 @@ export const quotes = pgTable(
     totalPriceCents: integer('total_price_cents').notNull(),
     marginPct: doublePrecision('margin_pct').notNull(),
     farm: jsonb('farm').$type<QuoteFarm>().notNull(),
-    breaks: jsonb('breaks').$type<Array<{ minQuantity: number; discountPct: number; unitPriceCents: number }>>().notNull(),
+    breaks: jsonb('breaks')
+      .$type<Array<{ minQuantity: number; discountPct: number; unitPriceCents: number }>>()
+      .notNull(),
     earliestDeliveryDate: date('earliest_delivery_date', { mode: 'string' }).notNull(),
     feasible: boolean('feasible').notNull(),
     createdById: text('created_by_id')

@@ -27,5 +27,7 @@ export function fromDisplayLength(shown: number, display: 'mm' | 'in'): number {
  * @param mmDecimals - decimals for millimetres (inches get two more)
  */
 export function formatLength(valueMm: number, display: 'mm' | 'in', mmDecimals = 1): string {
-  return display === 'in' ? `${(valueMm / MM_PER_INCH).toFixed(mmDecimals + 2)} in` : `${valueMm.toFixed(mmDecimals)} mm`;
+  return display === 'in'
+    ? `${(valueMm / MM_PER_INCH).toFixed(mmDecimals + 2)} in`
+    : `${valueMm.toFixed(mmDecimals)} mm`;
 }

@@ -19,7 +19,8 @@ export function axisProblems(axis: Axis, parameters: readonly ParameterDescripti
   }
   if (axis.kind === 'attribute') {
     for (const value of axis.values) {
-      if (!AttributeValueSchema.safeParse(value).success) problems.push(`“${value}” must be a lower-case id such as uv-clear-coat.`);
+      if (!AttributeValueSchema.safeParse(value).success)
+        problems.push(`“${value}” must be a lower-case id such as uv-clear-coat.`);
     }
     return problems;
   }
@@ -41,8 +42,10 @@ export function valueProblems(value: AxisValue, param: ParameterDescription): st
   if (param.kind === 'number') {
     if (typeof value !== 'number' || !Number.isFinite(value)) return [`${String(value)} is not a number.`];
     const unit = param.unit === 'mm' ? ' mm' : param.unit === 'deg' ? '°' : '';
-    if (param.min !== undefined && value < param.min) return [`${value}${unit} is below the lowest ${param.label.toLowerCase()} (${param.min}${unit}).`];
-    if (param.max !== undefined && value > param.max) return [`${value}${unit} is above the highest ${param.label.toLowerCase()} (${param.max}${unit}).`];
+    if (param.min !== undefined && value < param.min)
+      return [`${value}${unit} is below the lowest ${param.label.toLowerCase()} (${param.min}${unit}).`];
+    if (param.max !== undefined && value > param.max)
+      return [`${value}${unit} is above the highest ${param.label.toLowerCase()} (${param.max}${unit}).`];
     return [];
   }
   if (param.kind === 'boolean') return typeof value === 'boolean' ? [] : [`${String(value)} is not yes or no.`];

@@ -42,11 +42,15 @@ export function createBuildPlate(volume: BuildVolumeMm): Group {
 
   const gridPoints: number[] = [];
   const stepMm = 10;
-  for (let x = -widthMm / 2; x <= widthMm / 2 + 1e-6; x += stepMm) gridPoints.push(x, -depthMm / 2, 0, x, depthMm / 2, 0);
-  for (let y = -depthMm / 2; y <= depthMm / 2 + 1e-6; y += stepMm) gridPoints.push(-widthMm / 2, y, 0, widthMm / 2, y, 0);
+  for (let x = -widthMm / 2; x <= widthMm / 2 + 1e-6; x += stepMm)
+    gridPoints.push(x, -depthMm / 2, 0, x, depthMm / 2, 0);
+  for (let y = -depthMm / 2; y <= depthMm / 2 + 1e-6; y += stepMm)
+    gridPoints.push(-widthMm / 2, y, 0, widthMm / 2, y, 0);
   const gridGeometry = new BufferGeometry();
   gridGeometry.setAttribute('position', new Float32BufferAttribute(gridPoints, 3));
-  group.add(new LineSegments(gridGeometry, new LineBasicMaterial({ color: '#c9c0ad', transparent: true, opacity: 0.7 })));
+  group.add(
+    new LineSegments(gridGeometry, new LineBasicMaterial({ color: '#c9c0ad', transparent: true, opacity: 0.7 })),
+  );
 
   const outline = new LineSegments(
     new EdgesGeometry(new PlaneGeometry(widthMm, depthMm)),
