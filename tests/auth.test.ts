@@ -236,14 +236,12 @@ describe('rate-limited sign-in', () => {
 describe('people (admin)', () => {
   it('adds a person who can then sign in, and refuses a second one with the same e-mail', async () => {
     const admin = await t.agent('admin');
-    const created = await admin
-      .post('/api/people')
-      .send({
-        email: 'Wren@Fernhollow.test',
-        name: 'Wren Ashby',
-        roles: ['designer', 'sales'],
-        password: 'wren-password-1',
-      });
+    const created = await admin.post('/api/people').send({
+      email: 'Wren@Fernhollow.test',
+      name: 'Wren Ashby',
+      roles: ['designer', 'sales'],
+      password: 'wren-password-1',
+    });
     expect(created.status).toBe(201);
     expect(created.body.person).toMatchObject({ email: 'wren@fernhollow.test', roles: ['designer', 'sales'] });
     const again = await admin

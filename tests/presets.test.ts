@@ -192,14 +192,12 @@ describe('presets API', () => {
       .post('/api/presets')
       .send({ templateId: template.id, name: 'Script thumb', params: {}, thumbnail: 'javascript:alert(1)' });
     expect(script.status).toBe(400);
-    const notBase64 = await designer
-      .post('/api/presets')
-      .send({
-        templateId: template.id,
-        name: 'Odd thumb',
-        params: {},
-        thumbnail: 'data:image/png;base64,<svg onload=x>',
-      });
+    const notBase64 = await designer.post('/api/presets').send({
+      templateId: template.id,
+      name: 'Odd thumb',
+      params: {},
+      thumbnail: 'data:image/png;base64,<svg onload=x>',
+    });
     expect(notBase64.status).toBe(400);
     const huge = `data:image/png;base64,${'A'.repeat(PRESET_THUMBNAIL_MAX_CHARS)}`;
     const tooLarge = await designer

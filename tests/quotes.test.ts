@@ -100,14 +100,12 @@ describe('computeQuote', () => {
 describe('quotes API', () => {
   it('creates a quote, lists it, reads it and renders it as a PDF', async () => {
     const sales = await suite.t.agent('sales');
-    const created = await sales
-      .post('/api/quotes')
-      .send({
-        sku: FIXTURE_SKUS[0],
-        quantity: 120,
-        deliveryDate: '2099-06-30',
-        customerName: '  Marsh Lane Garden Centre  ',
-      });
+    const created = await sales.post('/api/quotes').send({
+      sku: FIXTURE_SKUS[0],
+      quantity: 120,
+      deliveryDate: '2099-06-30',
+      customerName: '  Marsh Lane Garden Centre  ',
+    });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     const quote = QuoteSchema.parse(created.body);
     expect(quote.customerName).toBe('Marsh Lane Garden Centre');

@@ -43,11 +43,9 @@ describe('toMesh', () => {
       const copies = output.parts.map((part) => ({
         name: part.name,
         geometry: jscad.geometries.geom3.create(
-          jscad.geometries.geom3
-            .toPolygons(part.geometry)
-            .map((polygon) => ({
-              vertices: polygon.vertices.map((v) => [v[0], v[1], v[2]] as [number, number, number]),
-            })),
+          jscad.geometries.geom3.toPolygons(part.geometry).map((polygon) => ({
+            vertices: polygon.vertices.map((v) => [v[0], v[1], v[2]] as [number, number, number]),
+          })),
         ),
       }));
       expect(await meshHash(toMesh(copies))).toBe(await meshHash(toMesh(output.parts)));
