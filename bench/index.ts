@@ -1,6 +1,7 @@
 /**
  * `npm run bench`: runs every bench/*.bench.ts file in turn and prints its figures.
  * `npm run bench -- analysis` runs only the files whose name contains "analysis".
+ * Each bench/<name>.bench.ts registers itself by its file name (e.g. `npm run bench -- plan` for the run planner).
  */
 import { readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
