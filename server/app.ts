@@ -5,6 +5,7 @@ import type { AppContext } from './context';
 import { errorHandler } from './http/errorHandler';
 import { notFound } from './http/HttpError';
 import { originCheck } from './http/originCheck';
+import { securityHeaders } from './http/securityHeaders';
 import { serveClient } from './http/serveClient';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
@@ -41,6 +42,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   const app = express();
   app.disable('x-powered-by');
   if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
+  // Security headers (CSP, nosniff, no framing, referrer policy) on every answer: pages, files and API.
+  app.use(securityHeaders({ publicOrigin: ctx.env.PUBLIC_ORIGIN }));
 
   // Every /api request: JSON body (1 MB), no caching, origin check on state-changing methods, session.
   app.use(

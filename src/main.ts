@@ -1,3 +1,4 @@
+import './zodJitless';
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
 import '@fontsource/fraunces/500.css';

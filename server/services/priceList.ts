@@ -1,9 +1,9 @@
 /** The price list of published variants, as rows, as CSV (RFC 4180) and as an .xlsx workbook. */
-import { stringify } from 'csv-stringify/sync';
 import ExcelJS from 'exceljs';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/family';
 import type { PriceListRow } from '../../shared/schemas/sales';
+import { csvText } from '../csv/csvText';
 import { productName, STUDIO_NAME } from './specSheet';
 
 /** Column titles of the CSV and the sheet, in order, with units in the titles. */
@@ -60,18 +60,16 @@ function cells(row: PriceListRow): Array<string | number> {
 }
 
 /**
- * The price list as CSV: a header row, then one row per variant; fields with commas, quotes or line breaks are
- * quoted (csv-stringify). Prices are in currency units with two decimals.
+ * The price list as CSV: a header row, then one row per variant; text cells quoted and safe against formula
+ * injection ({@link csvText}: a family or product name is user input). Prices in currency units with two decimals.
  * @param rows - price-list rows
  */
 export function priceListCsv(rows: PriceListRow[]): string {
   const priceColumn = PRICE_LIST_COLUMNS.length - 1;
   const records = rows.map((row) =>
-    cells(row).map((cell, i) =>
-      typeof cell === 'number' ? (i === priceColumn ? cell.toFixed(2) : String(cell)) : cell,
-    ),
+    cells(row).map((cell, i) => (typeof cell === 'number' && i === priceColumn ? cell.toFixed(2) : cell)),
   );
-  return stringify([[...PRICE_LIST_COLUMNS], ...records], { record_delimiter: 'windows' });
+  return csvText(PRICE_LIST_COLUMNS, records, { numericColumns: [priceColumn] });
 }
 
 /**

@@ -1,8 +1,8 @@
-import { unzipSync } from 'fflate';
 import { XMLParser } from 'fast-xml-parser';
 import type { IndexedMesh } from '../schemas/mesh';
 import { MeshFormatError } from './MeshFormatError';
 import { MAX_MESH_FILE_BYTES, MAX_MESH_TRIANGLES } from './meshLimits';
+import { unzipBounded } from './unzipBounded';
 import { weldVertices } from './weldVertices';
 
 /** Scale from each 3MF unit to millimetres. source: 3MF Core Specification v1.2, §Model (unit attribute). */
@@ -48,12 +48,9 @@ export function parse3mf(bytes: Uint8Array): IndexedMesh {
   if (bytes.length > MAX_MESH_FILE_BYTES) {
     throw new MeshFormatError('too_large', `The file is ${bytes.length} bytes; the limit is ${MAX_MESH_FILE_BYTES}.`);
   }
-  let files: Record<string, Uint8Array>;
-  try {
-    files = unzipSync(bytes);
-  } catch (err) {
-    throw new MeshFormatError('truncated', `The 3MF package cannot be unzipped (${(err as Error).message}).`);
-  }
+  // Only the relationships and model parts are inflated, with caps on size and ratio (a crafted "zip bomb" is
+  // refused after a few MB of inflating instead of filling the memory).
+  const files = unzipBounded(bytes, (name) => name.endsWith('.rels') || name.endsWith('.model'));
   const modelPath = findModelPath(files);
   const modelBytes = files[modelPath];
   if (!modelBytes) throw new MeshFormatError('not_a_mesh', 'The 3MF package holds no 3D model part.');

@@ -4,6 +4,7 @@
  * analyses it and posts the figures. Requests are handled one at a time in arrival order; when a newer request is
  * already waiting, the analysis of the older one is skipped. Meshes travel as transferable typed arrays.
  */
+import '../zodJitless';
 import { generate } from '../../templates/generate';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
 import type { GeometryRequest, GeometryResponse } from './geometryProtocol';
