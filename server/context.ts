@@ -3,6 +3,8 @@ import type { PGlite } from '@electric-sql/pglite';
 import { createLucia, type AuthLucia } from './auth/lucia';
 import type { Db } from './db/client';
 import type { Env } from './env';
+import { InProcessJobQueue } from './jobs/InProcessJobQueue';
+import type { JobQueue } from './jobs/JobQueue';
 
 /** A line logger (console.log by default, silent in tests). */
 export type Log = (line: string) => void;
@@ -14,12 +16,20 @@ export interface AppContext {
   env: Env;
   lucia: AuthLucia;
   log: Log;
+  /** The background-work queue (in-process on PGlite, pg-boss on PostgreSQL); see server/jobs/README.md. */
+  jobs: JobQueue;
 }
 
 /**
  * Builds the context for an opened, migrated database.
- * @param parts - the database, the environment and the logger
+ * @param parts - the database, the environment, the logger and the job queue (in-process by default)
  */
-export function createContext(parts: { db: Db; pg: PGlite; env: Env; log?: Log }): AppContext {
-  return { ...parts, lucia: createLucia(parts.db), log: parts.log ?? ((line) => console.log(line)) };
+export function createContext(parts: { db: Db; pg: PGlite; env: Env; log?: Log; jobs?: JobQueue }): AppContext {
+  const ctx: AppContext = {
+    ...parts,
+    lucia: createLucia(parts.db),
+    log: parts.log ?? ((line) => console.log(line)),
+    jobs: parts.jobs ?? new InProcessJobQueue(() => ctx),
+  };
+  return ctx;
 }

@@ -55,7 +55,6 @@ describe('workflow e-mail through the fake SMTP server', () => {
   it('tells reviewers about a submit and the designer about a return, and lists the messages for the admin', async () => {
     const runtime = await startMail(t.ctx, {
       env: { SMTP_PORT: 0, MAIL_FROM: 'Nestwright <no-reply@fernhollow.test>' },
-      retry: { pollMs: 50 },
     });
     expect(runtime.smtp).not.toBeNull();
     const family = await familyInState(t, 'in_review');
@@ -95,7 +94,7 @@ describe('when the SMTP server is down', () => {
     const port = await freePort();
     await startMail(t.ctx, {
       env: { SMTP_HOST: '127.0.0.1', SMTP_PORT: port, MAIL_FROM: 'no-reply@fernhollow.test' },
-      retry: { baseDelayMs: 100, maxDelayMs: 400, pollMs: 50 },
+      retry: { baseDelayMs: 100, maxDelayMs: 400 },
     });
     const family = await familyInState(t, 'in_review');
     const subject = `Review requested: Test Gable (${family.code}) revision 1`;
@@ -138,8 +137,7 @@ describe('when the SMTP server is down', () => {
     const subject = `Give-up probe ${crypto.randomUUID()}`;
     await queueMail(t.ctx.db, { to: ['joss@fernhollow.test'], subject, text: 'probe' });
     const before = Date.now();
-    sender.kick();
-    await sender.settle();
+    await sender.deliverDue();
     const after = Date.now();
     let entry = (await mailbox()).outbox.find((o) => o.subject === subject)!;
     expect(entry).toMatchObject({ status: 'pending', attempts: 1 });
@@ -148,8 +146,7 @@ describe('when the SMTP server is down', () => {
     expect(next).toBeGreaterThanOrEqual(before + 1000);
     expect(next).toBeLessThanOrEqual(after + 1000);
     await t.ctx.pg.query(`update mail_outbox set next_attempt_at = now() where subject = $1`, [subject]);
-    sender.kick();
-    await sender.settle();
+    await sender.deliverDue();
     entry = (await mailbox()).outbox.find((o) => o.subject === subject)!;
     expect(entry).toMatchObject({ status: 'failed', attempts: 2 });
     await sender.stop();

@@ -126,3 +126,4 @@ export type PresetRow = typeof presets.$inferSelect;
 
 export * from './tables/families';
 export * from './tables/sales';
+export * from './tables/jobs';

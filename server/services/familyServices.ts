@@ -4,6 +4,7 @@ import { inArray } from 'drizzle-orm';
 import type { AppContext } from '../context';
 import { familyRevisions } from '../db/schema';
 import { familyJobs } from '../jobs/FamilyJobRunner';
+import { BACKGROUND_JOBS } from '../jobs/jobRegistry';
 import { startMail, stopMail, type StartMailOptions } from './mailService';
 
 /**
@@ -29,10 +30,12 @@ export async function startFamilyServices(
     .where(inArray(familyRevisions.computeState, ['queued', 'running']))
     .returning({ id: familyRevisions.id });
   if (interrupted.length > 0) ctx.log(`  families: ${interrupted.length} interrupted computation(s) marked failed`);
+  await ctx.jobs.work(BACKGROUND_JOBS);
   const mail = await startMail(ctx, options);
   ctx.log(`  mail: ${mail.smtp ? `fake SMTP server on port ${mail.port}` : `delivering to port ${mail.port}`}`);
   server.once('close', () => {
     void familyJobs(ctx).close();
     void stopMail(ctx);
+    void ctx.jobs.stop();
   });
 }

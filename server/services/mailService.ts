@@ -6,15 +6,11 @@ import { mailMessages, mailOutbox } from '../db/schema';
 import { FakeSmtpServer } from '../mail/FakeSmtpServer';
 import { loadMailEnv, type MailEnv } from '../mail/mailEnv';
 import { MailSender, type MailSenderOptions } from '../mail/MailSender';
+import { DELIVER_NOW_KEY, deliverMailJob } from '../mail/deliverMailJob';
+import { mailRuntime, setMailRuntime, type MailRuntime } from '../mail/mailRuntimes';
 
-/** The mail parts running for one app context. */
-export interface MailRuntime {
-  /** The fake server, when the app runs its own. */
-  smtp: FakeSmtpServer | null;
-  sender: MailSender;
-  /** Where mail is delivered. */
-  port: number;
-}
+export type { MailRuntime } from '../mail/mailRuntimes';
+export { mailRuntime } from '../mail/mailRuntimes';
 
 /** Options of {@link startMail}. */
 export interface StartMailOptions {
@@ -23,13 +19,12 @@ export interface StartMailOptions {
   /** Start no fake server even without SMTP_HOST (tests of a mail server that is down). */
   noFakeServer?: boolean;
   /** Retry settings of the sender. */
-  retry?: Pick<MailSenderOptions, 'baseDelayMs' | 'maxDelayMs' | 'maxAttempts' | 'pollMs'>;
+  retry?: Pick<MailSenderOptions, 'baseDelayMs' | 'maxDelayMs' | 'maxAttempts'>;
 }
 
-const runtimes = new WeakMap<object, MailRuntime>();
-
 /**
- * Starts mail for an app: the fake SMTP server (unless SMTP_HOST points elsewhere) and the outbox sender.
+ * Makes this process the one that delivers mail: starts the fake SMTP server (unless SMTP_HOST points elsewhere),
+ * the outbox sender, and works the `mail.deliver` job on the app's job queue (then delivers what is already due).
  * @param ctx - the app context
  * @param options - settings
  */
@@ -44,29 +39,32 @@ export async function startMail(ctx: AppContext, options: StartMailOptions = {})
     host = '127.0.0.1';
   }
   const sender = new MailSender(ctx.db, { host, port, from: env.MAIL_FROM, log: ctx.log, ...options.retry });
-  sender.start();
   const runtime = { smtp, sender, port };
-  runtimes.set(ctx, runtime);
+  setMailRuntime(ctx, runtime);
+  await ctx.jobs.work([deliverMailJob]);
+  kickMail(ctx);
   return runtime;
 }
 
 /** Stops the sender and the fake server of an app. @param ctx - the app context */
 export async function stopMail(ctx: AppContext): Promise<void> {
-  const runtime = runtimes.get(ctx);
+  const runtime = mailRuntime(ctx);
   if (!runtime) return;
-  runtimes.delete(ctx);
+  setMailRuntime(ctx, undefined);
   await runtime.sender.stop();
   await runtime.smtp?.close();
 }
 
-/** Delivers due outbox messages now (no-op when mail is not started). @param ctx - the app context */
-export function kickMail(ctx: object): void {
-  runtimes.get(ctx)?.sender.kick();
-}
-
-/** The running mail parts of an app, if started. @param ctx - the app context */
-export function mailRuntime(ctx: AppContext): MailRuntime | undefined {
-  return runtimes.get(ctx);
+/**
+ * Asks for a delivery round now (after a workflow step committed a message); whichever process delivers mail runs
+ * it. Errors of the queue are logged, never thrown: the message is safe in the outbox either way. A context without
+ * a queue (the seed) leaves the message for the next periodic round.
+ * @param ctx - the app context
+ */
+export function kickMail(ctx: Partial<Pick<AppContext, 'jobs' | 'log'>>): void {
+  ctx.jobs
+    ?.send(deliverMailJob, {}, { key: DELIVER_NOW_KEY })
+    .catch((err: unknown) => ctx.log?.(`Mail outbox: could not queue a delivery round: ${String(err)}`));
 }
 
 /**

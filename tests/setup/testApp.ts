@@ -32,7 +32,7 @@ export interface TestApp {
   signIn(email: string, password: string): Promise<TestAgent>;
   /** Lines the server logged (unexpected errors land here). */
   logs: string[];
-  /** Closes the database. */
+  /** Stops the job queue and closes the database. */
   close(): Promise<void>;
 }
 
@@ -89,6 +89,9 @@ export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<Test
       if (!options.fresh) agents.set(role, agent);
       return agent;
     },
-    close: () => pg.close(),
+    async close() {
+      await ctx.jobs.stop();
+      await pg.close();
+    },
   };
 }

@@ -1,0 +1,115 @@
+/**
+ * The job-queue interface on its in-process back end: idempotency keys, retries with exponential backoff, the time
+ * limit, the dead-letter list and periodic jobs. Backoff doubling is common practice, no source.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { jobDeadLetters } from '../server/db/schema';
+import { defineJob } from '../server/jobs/JobQueue';
+import { retryDelaySec } from '../server/jobs/jobTiming';
+import { makeTestApp, type TestApp } from './setup/testApp';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function until(done: () => boolean | Promise<boolean>, timeoutMs = 20_000): Promise<void> {
+  const started = Date.now();
+  while (!(await done())) {
+    if (Date.now() - started > timeoutMs) throw new Error('condition not reached');
+    await new Promise((resolve) => setTimeout(resolve, 20));
+  }
+}
+
+describe('in-process job queue', () => {
+  it('runs a job once per waiting key and validates the payload when sending', async () => {
+    const seen: string[] = [];
+    const job = defineJob({
+      name: 'test.keyed',
+      data: z.object({ word: z.string() }),
+      retry: { limit: 0, delaySec: 1, backoff: false },
+      timeLimitSec: 10,
+      async handler(data) {
+        seen.push(data.word);
+      },
+    });
+    const first = await t.ctx.jobs.send(job, { word: 'a' }, { key: 'k', startAfterSec: 0.2 });
+    const second = await t.ctx.jobs.send(job, { word: 'b' }, { key: 'k' });
+    const third = await t.ctx.jobs.send(job, { word: 'c' }, { key: 'other' });
+    expect(first).toMatch(/^[0-9a-f-]{36}$/);
+    expect(second).toBeNull();
+    expect(third).not.toBeNull();
+    await expect(t.ctx.jobs.send(job, { word: 3 } as unknown as { word: string })).rejects.toThrow();
+    await t.ctx.jobs.work([job]);
+    await until(() => seen.length === 2);
+    expect(seen.sort()).toEqual(['a', 'c']);
+  });
+
+  it('retries with doubling delays, then records the job as a dead letter', async () => {
+    const attempts: Array<{ attempt: number; atMs: number }> = [];
+    const job = defineJob({
+      name: 'test.failing',
+      data: z.object({ n: z.number() }),
+      retry: { limit: 2, delaySec: 0.1, backoff: true },
+      timeLimitSec: 10,
+      async handler(_data, run) {
+        attempts.push({ attempt: run.attempt, atMs: Date.now() });
+        throw new Error(`refused on attempt ${run.attempt}`);
+      },
+    });
+    expect([1, 2, 3, 4].map((n) => retryDelaySec(job.retry, n))).toEqual([0.1, 0.2, 0.4, 0.8]);
+    await t.ctx.jobs.work([job]);
+    const id = await t.ctx.jobs.send(job, { n: 7 });
+    const dead = async () => t.ctx.db.select().from(jobDeadLetters).where(eq(jobDeadLetters.jobId, id!));
+    await until(async () => (await dead()).length === 1);
+    expect(attempts.map((a) => a.attempt)).toEqual([1, 2, 3]);
+    expect(attempts[1].atMs - attempts[0].atMs).toBeGreaterThanOrEqual(100);
+    expect(attempts[2].atMs - attempts[1].atMs).toBeGreaterThanOrEqual(200);
+    const [row] = await dead();
+    expect(row).toMatchObject({ jobName: 'test.failing', data: { n: 7 }, error: 'refused on attempt 3', attempts: 3 });
+  });
+
+  it('aborts an attempt at its time limit and counts it as failed', async () => {
+    let aborted = false;
+    const job = defineJob({
+      name: 'test.slow',
+      data: z.object({}),
+      retry: { limit: 0, delaySec: 1, backoff: false },
+      timeLimitSec: 0.2,
+      async handler(_data, run) {
+        await new Promise<void>((resolve) => run.signal.addEventListener('abort', () => resolve()));
+        aborted = true;
+      },
+    });
+    await t.ctx.jobs.work([job]);
+    const id = await t.ctx.jobs.send(job, {});
+    await until(
+      async () => (await t.ctx.db.select().from(jobDeadLetters).where(eq(jobDeadLetters.jobId, id!))).length > 0,
+    );
+    expect(aborted).toBe(true);
+    const [row] = await t.ctx.db.select().from(jobDeadLetters).where(eq(jobDeadLetters.jobId, id!));
+    expect(row.error).toMatch(/time limit of 0.2 s/);
+  });
+
+  it('runs a periodic job on its schedule without piling runs up', async () => {
+    let runs = 0;
+    const job = defineJob({
+      name: 'test.periodic',
+      data: z.object({}),
+      retry: { limit: 0, delaySec: 1, backoff: false },
+      timeLimitSec: 5,
+      everySec: 0.05,
+      async handler() {
+        runs++;
+      },
+    });
+    await t.ctx.jobs.work([job]);
+    await until(() => runs >= 3);
+    expect(runs).toBeGreaterThanOrEqual(3);
+  });
+});
