@@ -5,6 +5,8 @@ import type { Db } from './db/client';
 import type { Env } from './env';
 import { InProcessJobQueue } from './jobs/InProcessJobQueue';
 import type { JobQueue } from './jobs/JobQueue';
+import type { FileStore } from './storage/FileStore';
+import { openFileStore } from './storage/openFileStore';
 
 /** A line logger (console.log by default, silent in tests). */
 export type Log = (line: string) => void;
@@ -18,18 +20,29 @@ export interface AppContext {
   log: Log;
   /** The background-work queue (in-process on PGlite, pg-boss on PostgreSQL); see server/jobs/README.md. */
   jobs: JobQueue;
+  /** Where photos, print files and generated documents are kept (a local folder, or S3); see server/storage. */
+  files: FileStore;
 }
 
 /**
  * Builds the context for an opened, migrated database.
- * @param parts - the database, the environment, the logger and the job queue (in-process by default)
+ * @param parts - the database, the environment, the logger, the job queue (in-process by default) and the file
+ *   store (chosen from the environment by default)
  */
-export function createContext(parts: { db: Db; pg: PGlite; env: Env; log?: Log; jobs?: JobQueue }): AppContext {
+export function createContext(parts: {
+  db: Db;
+  pg: PGlite;
+  env: Env;
+  log?: Log;
+  jobs?: JobQueue;
+  files?: FileStore;
+}): AppContext {
   const ctx: AppContext = {
     ...parts,
     lucia: createLucia(parts.db),
     log: parts.log ?? ((line) => console.log(line)),
     jobs: parts.jobs ?? new InProcessJobQueue(() => ctx),
+    files: parts.files ?? openFileStore(parts.env),
   };
   return ctx;
 }

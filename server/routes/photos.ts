@@ -1,10 +1,11 @@
 /** `/api/photos`: stored sample photos for signed-in people (uploads go through /api/families/:id/photos). */
+import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { requireAuth } from '../auth/requireRole';
 import { parsedParams, validate } from '../http/validate';
-import { readPhoto } from '../services/photoService';
+import { openPhoto } from '../services/photoService';
 
 const PhotoParamsSchema = z.object({ id: z.uuid() });
 
@@ -20,13 +21,17 @@ export function photosRouter(ctx: AppContext): Router {
     ['/:id/thumb', 'thumb'],
   ] as const) {
     router.get(path, validate({ params: PhotoParamsSchema }), async (_req, res) => {
-      const bytes = await readPhoto(ctx, parsedParams<{ id: string }>(res).id, size);
+      const file = await openPhoto(ctx, parsedParams<{ id: string }>(res).id, size);
       res.set({
         'Content-Type': 'image/webp',
+        'Content-Length': String(file.sizeBytes),
         'X-Content-Type-Options': 'nosniff',
         'Cache-Control': 'private, max-age=3600',
       });
-      res.send(bytes);
+      // Streamed: a client that goes away mid-download just ends the stream.
+      await pipeline(file.body, res).catch((err: unknown) => {
+        if (!res.headersSent) throw err;
+      });
     });
   }
   return router;

@@ -1,13 +1,12 @@
-/** Photos of printed samples: checked by content, normalised and thumbnailed with sharp, stored outside the web root. */
+/** Photos of printed samples: checked by content, normalised and thumbnailed with sharp, kept in the file store. */
 import { randomBytes } from 'node:crypto';
-import { mkdir, readFile, rm, writeFile } from 'node:fs/promises';
-import { join, resolve } from 'node:path';
 import { eq } from 'drizzle-orm';
 import sharp, { type OutputInfo } from 'sharp';
 import { PHOTO_NORMAL_PX, PHOTO_THUMB_PX, type Photo } from '../../shared/schemas/family';
 import type { Person } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
 import { familyPhotos, families } from '../db/schema';
+import { fileKey, readAll, type StoredFile } from '../storage/FileStore';
 import { badRequest, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
 import { familySubject } from './familyService';
@@ -27,11 +26,6 @@ export function detectPhotoType(bytes: Uint8Array): PhotoType | null {
   if (bytes.length >= 8 && starts(0, 0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a)) return 'image/png';
   if (bytes.length >= 12 && starts(0, 0x52, 0x49, 0x46, 0x46) && starts(8, 0x57, 0x45, 0x42, 0x50)) return 'image/webp';
   return null;
-}
-
-/** The folder photos are written to: DATA_DIR/uploads/photos (never under the served client). @param ctx - app */
-export function photoDir(ctx: AppContext): string {
-  return join(resolve(ctx.env.DATA_DIR), 'uploads', 'photos');
 }
 
 /** Largest decoded image accepted (pixels), against decompression bombs. */
@@ -80,12 +74,10 @@ export async function addPhoto(
       { in: 'body', path: 'photo', message: 'unreadable image' },
     ]);
   }
-  const dir = photoDir(ctx);
-  await mkdir(dir, { recursive: true });
   const fileName = `${randomBytes(16).toString('hex')}.webp`;
   const thumbFileName = `${randomBytes(16).toString('hex')}.webp`;
-  await writeFile(join(dir, fileName), normal.data);
-  await writeFile(join(dir, thumbFileName), thumb);
+  await ctx.files.put(fileKey('photos', fileName), normal.data, 'image/webp');
+  await ctx.files.put(fileKey('photos', thumbFileName), thumb, 'image/webp');
   try {
     const [row] = await ctx.db.transaction(async (tx) => {
       const inserted = await tx
@@ -111,25 +103,34 @@ export async function addPhoto(
     });
     return toPhoto(row, { id: person.id, name: person.name });
   } catch (err) {
-    await rm(join(dir, fileName), { force: true });
-    await rm(join(dir, thumbFileName), { force: true });
+    await ctx.files.remove(fileKey('photos', fileName));
+    await ctx.files.remove(fileKey('photos', thumbFileName));
     throw err;
   }
 }
 
 /**
- * The bytes of a stored photo (normalised copy or thumbnail), always WebP.
+ * A stored photo (normalised copy or thumbnail, always WebP) opened for streaming.
  * @param ctx - app context
  * @param id - photo id
  * @param size - `normal` or `thumb`
- * @throws 404 when there is no such photo
+ * @throws 404 when there is no such photo or its file is gone
  */
-export async function readPhoto(ctx: AppContext, id: string, size: 'normal' | 'thumb'): Promise<Buffer> {
+export async function openPhoto(ctx: AppContext, id: string, size: 'normal' | 'thumb'): Promise<StoredFile> {
   const [row] = await ctx.db.select().from(familyPhotos).where(eq(familyPhotos.id, id));
   if (!row) throw notFound('No such photo.');
-  try {
-    return await readFile(join(photoDir(ctx), size === 'thumb' ? row.thumbFileName : row.fileName));
-  } catch {
-    throw notFound('The photo file is missing.');
-  }
+  const file = await ctx.files.open(fileKey('photos', size === 'thumb' ? row.thumbFileName : row.fileName));
+  if (!file) throw notFound('The photo file is missing.');
+  return file;
+}
+
+/**
+ * The bytes of a stored photo (documents that embed it).
+ * @param ctx - app context
+ * @param id - photo id
+ * @param size - `normal` or `thumb`
+ * @throws 404 when there is no such photo or its file is gone
+ */
+export async function readPhoto(ctx: AppContext, id: string, size: 'normal' | 'thumb'): Promise<Buffer> {
+  return readAll((await openPhoto(ctx, id, size)).body);
 }
