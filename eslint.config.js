@@ -19,7 +19,7 @@ export default tseslint.config(
   { languageOptions: { ecmaVersion: 2022, sourceType: 'module' } },
   { files: ['src/**'], languageOptions: { globals: { ...globals.browser } } },
   {
-    files: ['server/**', 'tests/**', 'bench/**', '*.config.{js,ts}'],
+    files: ['server/**', 'tests/**', 'bench/**', 'scripts/**', '*.config.{js,ts}'],
     languageOptions: { globals: { ...globals.node } },
   },
   {

@@ -1,7 +1,7 @@
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import type { NestBoxFacts } from '../shared/schemas/nestbox';
 import { meshHash } from '../shared/mesh/meshHash';
-import { findTemplate } from './index';
+import { findTemplate } from './findTemplate';
 import { loadKernel } from './lib/kernel';
 import { meshVolumeMm3 } from './lib/meshVolumeMm3';
 import { parseParams } from './lib/parseParams';

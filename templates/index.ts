@@ -1,20 +1,5 @@
-import type { AnyTemplate } from './types';
-import { gableBox } from './gableBox';
-import { aFrame } from './aFrame';
-import { roundPod } from './roundPod';
-import { barkTrunk } from './barkTrunk';
-
-/** Every template the product offers, in picker order. */
-export const TEMPLATES: readonly AnyTemplate[] = [gableBox, aFrame, roundPod, barkTrunk] as unknown as AnyTemplate[];
-
-/**
- * The template with this id, or undefined.
- * @param id - a template id such as `gable-box`
- */
-export function findTemplate(id: string): AnyTemplate | undefined {
-  return TEMPLATES.find((template) => template.id === id);
-}
-
+/** The templates' public face: the list, the look-up, parameter handling and generation. */
+export { TEMPLATES, findTemplate } from './findTemplate';
 export { describeParameters } from './lib/describeParameters';
 export { parseParams } from './lib/parseParams';
 export { TemplateParamError } from './lib/TemplateParamError';

@@ -1,49 +1,14 @@
 /**
  * The database schema (drizzle pg-core). Tables are snake_case plural, properties camelCase.
  * After a change run `npm run db:generate` and commit the new migration in drizzle/.
+ * This module re-exports every table module; a table module imports the tables it references from their own
+ * module (e.g. `people` from ./tables/people), never from here, so that no import cycle forms.
  */
-import { sql } from 'drizzle-orm';
-import { check, index, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
-import type { Role } from '../../shared/schemas/auth';
+import { index, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { newId } from './newId';
+import { people } from './tables/people';
 
-/** A new random text id (UUID v4). */
-function newId(): string {
-  return crypto.randomUUID();
-}
-
-/** A studio: the team that owns the designs, families and catalogue. */
-export const studios = pgTable('studios', {
-  id: text('id').primaryKey().$defaultFn(newId),
-  name: text('name').notNull(),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-});
-
-/**
- * A person who signs in. `roles` holds one or more of ROLES (shared/schemas/auth.ts); the check constraint keeps
- * the database honest if a row is written outside the API.
- */
-export const people = pgTable(
-  'people',
-  {
-    id: text('id').primaryKey().$defaultFn(newId),
-    email: text('email').notNull().unique(),
-    name: text('name').notNull(),
-    passwordHash: text('password_hash').notNull(),
-    roles: text('roles').array().notNull().$type<Role[]>(),
-    studioId: text('studio_id')
-      .notNull()
-      .references(() => studios.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-  },
-  (table) => [
-    check(
-      'people_roles_known',
-      sql`cardinality(${table.roles}) > 0 and ${table.roles} <@ array['designer','catalogue_manager','sales','admin']::text[]`,
-    ),
-  ],
-);
+export * from './tables/people';
 
 /** Sign-in sessions (lucia). The id is the secret kept in the HttpOnly cookie. */
 export const sessions = pgTable(
@@ -119,8 +84,6 @@ export const seedRuns = pgTable('seed_runs', {
   ranAt: timestamp('ran_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
-/** A person row as stored. */
-export type PersonRow = typeof people.$inferSelect;
 /** A preset row as stored. */
 export type PresetRow = typeof presets.$inferSelect;
 

@@ -125,7 +125,12 @@ export class FarmClient {
   private async call(
     method: string,
     path: string,
-    request: { body?: Uint8Array<ArrayBuffer> | string; contentType?: string; idempotencyKey?: string; allow404?: boolean } = {},
+    request: {
+      body?: Uint8Array<ArrayBuffer> | string;
+      contentType?: string;
+      idempotencyKey?: string;
+      allow404?: boolean;
+    } = {},
   ): Promise<unknown> {
     let lastError: FarmError | undefined;
     for (let attempt = 0; attempt < this.maxAttempts; attempt++) {
@@ -150,7 +155,12 @@ export class FarmClient {
   private async once(
     method: string,
     path: string,
-    request: { body?: Uint8Array<ArrayBuffer> | string; contentType?: string; idempotencyKey?: string; allow404?: boolean },
+    request: {
+      body?: Uint8Array<ArrayBuffer> | string;
+      contentType?: string;
+      idempotencyKey?: string;
+      allow404?: boolean;
+    },
   ): Promise<unknown> {
     const headers: Record<string, string> = {
       authorization: `Bearer ${this.options.apiKey}`,

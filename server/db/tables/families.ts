@@ -26,12 +26,8 @@ import type {
   VariantVerdict,
 } from '../../../shared/schemas/family';
 import type { BirdFitWarning, Region } from '../../../shared/schemas/birdfit';
-import { people } from '../schema';
-
-/** A new random text id (UUID v4). */
-function newId(): string {
-  return crypto.randomUUID();
-}
+import { newId } from '../newId';
+import { people } from './people';
 
 /** A product family: its SKU code and which revisions are current and published. */
 export const families = pgTable('families', {

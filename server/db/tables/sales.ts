@@ -15,7 +15,8 @@ import {
 } from 'drizzle-orm/pg-core';
 import type { SalesSettings } from '../../../shared/schemas/sales';
 import type { QuoteFarm } from '../../../shared/schemas/quote';
-import { people } from '../schema';
+import { newId } from '../newId';
+import { people } from './people';
 
 /** The studio's sales settings (one row, id `studio`): DIM divisors with their dates, packaging, farm, breaks. */
 export const salesSettings = pgTable('sales_settings', {
@@ -30,9 +31,7 @@ export const salesSettings = pgTable('sales_settings', {
 export const quotes = pgTable(
   'quotes',
   {
-    id: text('id')
-      .primaryKey()
-      .$defaultFn(() => crypto.randomUUID()),
+    id: text('id').primaryKey().$defaultFn(newId),
     /** Running number behind the human reference `Q-0001`. */
     number: serial('number').notNull().unique(),
     sku: text('sku').notNull(),
