@@ -3,6 +3,7 @@
  * is checked with Debian's admesh.
  */
 import { execFile } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { mkdtemp, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -59,9 +60,18 @@ describe('npm run cli -- export', () => {
       '--out',
       out,
     ]);
-    const printed = JSON.parse(stdout) as { triangles: number; volumeMm3: number; sha256: string };
-    expect(printed.sha256).toMatch(/^[0-9a-f]{64}$/);
+    const printed = JSON.parse(stdout) as {
+      triangles: number;
+      volumeMm3: number;
+      meshSha256: string;
+      fileSha256: string;
+    };
+    expect(printed).not.toHaveProperty('sha256');
+    expect(printed.meshSha256).toMatch(/^[0-9a-f]{64}$/);
     const file = await readFile(out);
+    // source: node:crypto, an independent sha256 of the bytes on disk
+    expect(printed.fileSha256).toBe(createHash('sha256').update(file).digest('hex'));
+    expect(printed.fileSha256).not.toBe(printed.meshSha256);
     // source: Bourke via trade-facts §6
     expect(file.byteLength).toBe(84 + 50 * printed.triangles);
     // source: Debian admesh 0.98 — no disconnected facets, two parts (pod + floor plug), same volume
@@ -72,7 +82,7 @@ describe('npm run cli -- export', () => {
     expect(Math.abs(volume - printed.volumeMm3) / printed.volumeMm3).toBeLessThan(1e-3);
   }, 90_000);
 
-  it('exits non-zero with the field and its range for an out-of-range parameter', async () => {
+  it('exits with 2 and the usage line, no stack trace, for an out-of-range parameter', async () => {
     const err = (await cli([
       'export',
       '--template',
@@ -82,7 +92,26 @@ describe('npm run cli -- export', () => {
       '--out',
       join(dir, 'x.stl'),
     ]).catch((e: unknown) => e)) as { code: number; stderr: string };
-    expect(err.code).toBe(1);
-    expect(err.stderr).toContain('wallThicknessMm must be between 4 and 20 mm');
+    expect(err.code).toBe(2);
+    expect(err.stderr).toMatch(/between 4 and 20 mm/);
+    expect(err.stderr).toContain('Usage: npm run cli -- export');
+    expect(err.stderr).not.toMatch(/\n\s+at /);
   }, 90_000);
+
+  it.each([
+    [['export', '--template', 'gable-box', '--out', 'x.stl', '--bogus']],
+    [['export', '--template', 'no-such-template', '--out', 'x.stl']],
+    [['export', '--template', 'gable-box', '--out', 'x.stl', '--colour', 'plaid']],
+    [['export', '--template', 'gable-box']],
+    [['templates', '--bogus']],
+  ])(
+    'exits with 2 and a usage line for bad arguments %j',
+    async (args: string[]) => {
+      const err = (await cli(args).catch((e: unknown) => e)) as { code: number; stderr: string };
+      expect(err.code).toBe(2);
+      expect(err.stderr).toMatch(/^Usage: npm run cli -- (export|templates)/m);
+      expect(err.stderr).not.toMatch(/\n\s+at /);
+    },
+    90_000,
+  );
 });

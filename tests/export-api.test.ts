@@ -3,6 +3,7 @@
  * path giving the same mesh hash as the in-process (browser) path, 400s naming the field and its range, and a
  * time-limited worker that stops a slow build while the server keeps answering.
  */
+import { createHash } from 'node:crypto';
 import { unzipSync, strFromU8 } from 'fflate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HttpError } from '../server/http/HttpError';
@@ -61,6 +62,35 @@ describe('POST /api/exports', () => {
     const model = strFromU8(unzipSync(new Uint8Array(res.body as Buffer))['3D/3dmodel.model']);
     expect(model).toMatch(/<model unit="millimeter"/);
     expect([...model.matchAll(/<triangle /g)].length).toBe(Number(res.headers['x-mesh-triangles']));
+  }, 60_000);
+
+  it('lays a 3MF on the named printer in the named material and colour, and names both hashes', async () => {
+    const res = await designer
+      .post('/api/exports')
+      .send({
+        templateId: 'gable-box',
+        params: {},
+        format: '3mf',
+        printerId: 'cube-256',
+        materialId: 'pla',
+        colourId: 'moss-green',
+      })
+      .buffer(true)
+      .parse(binary as never);
+    expect(res.status).toBe(200);
+    const bytes = new Uint8Array(res.body as Buffer);
+    // source: node:crypto, an independent sha256 of the bytes received
+    expect(res.headers['x-file-sha256']).toBe(createHash('sha256').update(bytes).digest('hex'));
+    expect(res.headers['x-mesh-sha256']).toMatch(/^[0-9a-f]{64}$/);
+    const model = strFromU8(unzipSync(bytes)['3D/3dmodel.model']);
+    // source: 3MF Core Specification v1.3, 3MF Consortium, 2022 (§4.1 base materials, displaycolor #RRGGBBAA)
+    expect(model).toMatch(/<basematerials id="1"><base name="PLA, Moss green" displaycolor="#[0-9A-F]{8}"\/>/);
+    expect(model).toContain('name="body" type="model" pid="1" pindex="0"');
+    expect(model).toContain('name="floor plug" type="model" pid="1" pindex="0"');
+    const bad = await designer
+      .post('/api/exports')
+      .send({ templateId: 'gable-box', params: {}, format: '3mf', materialId: 'pla', colourId: 'plaid' });
+    expect(bad.status).toBe(400);
   }, 60_000);
 
   it.each([

@@ -65,6 +65,8 @@ function meshAnswer(requestId: number, sha256: string): GeometryResponse {
     mesh: { positions: new Float32Array(9), indices: new Uint32Array([0, 1, 2]) },
     facts: FACTS,
     sha256,
+    partNames: ['body'],
+    partTriangles: [1],
     buildMs: 5,
   };
 }

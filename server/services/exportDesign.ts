@@ -1,4 +1,7 @@
 import { z } from 'zod';
+import type { Design3mfChoice } from '../../shared/mesh/design3mf';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS } from '../../shared/production/defaults';
+import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import { findTemplate } from '../../templates/index';
 import { parseParams } from '../../templates/lib/parseParams';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
@@ -10,13 +13,48 @@ export const ExportRequestSchema = z.object({
   templateId: z.string().min(1).max(100),
   params: z.record(z.string(), z.unknown()).default({}),
   format: z.enum(['stl', '3mf']),
+  /** Printer whose plate a 3MF's parts are laid on (default: the first printer). */
+  printerId: z.string().min(1).max(100).optional(),
+  /** Material and colour written into a 3MF's base materials (default: none). */
+  materialId: z.string().min(1).max(100).optional(),
+  colourId: z.string().min(1).max(100).optional(),
 });
 /** Body of `POST /api/exports`. */
 export type ExportRequest = z.infer<typeof ExportRequestSchema>;
 
 function paramError(field: string, message: string): HttpError {
-  const path = field === 'templateId' ? 'templateId' : `params.${field}`;
+  const topLevel = ['templateId', 'printerId', 'materialId', 'colourId'];
+  const path = topLevel.includes(field) ? field : `params.${field}`;
   return badRequest(message, [{ in: 'body', path, message }]);
+}
+
+/** Printers and materials an export may name (from the database, or the defaults when it holds none). */
+export interface ExportCatalogue {
+  printers: ReadonlyMap<string, PrinterProfile>;
+  materials: ReadonlyMap<string, Material>;
+}
+
+/**
+ * The plate and material a 3MF is written for: the named printer (or the first one), and the named material and
+ * colour (or none). An unknown id is a 400 naming the field.
+ * @param request - the export request
+ * @param catalogue - printers and materials to choose from
+ */
+export function exportPlate(request: ExportRequest, catalogue: ExportCatalogue): Design3mfChoice {
+  const printers = catalogue.printers.size ? catalogue.printers : new Map(DEFAULT_PRINTERS.map((p) => [p.id, p]));
+  const materials = catalogue.materials.size ? catalogue.materials : new Map(DEFAULT_MATERIALS.map((m) => [m.id, m]));
+  const printer = request.printerId ? printers.get(request.printerId) : printers.values().next().value;
+  if (!printer) throw paramError('printerId', "That printer is not one of the studio's printers.");
+  const { x, y, z } = printer.buildVolumeMm;
+  if (!request.materialId) return { buildVolumeMm: [x, y, z] };
+  const material = materials.get(request.materialId);
+  if (!material) throw paramError('materialId', "That material is not one of the studio's materials.");
+  const colour = request.colourId ? material.colours.find((c) => c.id === request.colourId) : material.colours[0];
+  if (!colour) throw paramError('colourId', `${material.name} does not come in that colour.`);
+  return {
+    buildVolumeMm: [x, y, z],
+    material: { name: `${material.name}, ${colour.name}`, displayColour: colour.hex },
+  };
 }
 
 /**
@@ -26,7 +64,11 @@ function paramError(field: string, message: string): HttpError {
  * @param worker - the export worker
  * @param request - the parsed request body
  */
-export async function exportDesign(worker: ExportWorker, request: ExportRequest): Promise<ExportResult> {
+export async function exportDesign(
+  worker: ExportWorker,
+  request: ExportRequest,
+  catalogue: ExportCatalogue = { printers: new Map(), materials: new Map() },
+): Promise<ExportResult> {
   const template = findTemplate(request.templateId);
   if (!template) throw paramError('templateId', `templateId: unknown template "${request.templateId}"`);
   try {
@@ -36,7 +78,13 @@ export async function exportDesign(worker: ExportWorker, request: ExportRequest)
     throw err;
   }
   try {
-    return await worker.run(request.templateId, request.params, request.format);
+    return await worker.run(
+      request.templateId,
+      request.params,
+      request.format,
+      undefined,
+      exportPlate(request, catalogue),
+    );
   } catch (err) {
     if (!(err instanceof ExportError)) throw err;
     if (err.kind === 'params') throw paramError(err.field ?? 'params', err.message);

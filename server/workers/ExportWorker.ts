@@ -1,5 +1,6 @@
 import { TimedWorker } from './TimedWorker';
 import type { ExportFormat, ExportSummary, ExportWorkerRequest, ExportWorkerResponse } from './exportWorkerThread';
+import type { Design3mfChoice } from '../../shared/mesh/design3mf';
 
 /** The worker entry next to this file (TypeScript, loaded through tsx inside the worker). */
 const WORKER_URL = new URL('./exportWorkerThread.ts', import.meta.url);
@@ -60,9 +61,16 @@ export class ExportWorker {
    * @param params - raw parameters (checked again in the worker)
    * @param format - `stl` or `3mf`
    * @param timeLimitMs - the limit for this request (default: the worker's)
+   * @param plate - printer plate and material a 3MF is laid out for (default: the first default printer, no material)
    */
-  run(templateId: string, params: unknown, format: ExportFormat, timeLimitMs?: number): Promise<ExportResult> {
-    return this.runner.run({ templateId, params, format }, timeLimitMs);
+  run(
+    templateId: string,
+    params: unknown,
+    format: ExportFormat,
+    timeLimitMs?: number,
+    plate?: Design3mfChoice,
+  ): Promise<ExportResult> {
+    return this.runner.run({ templateId, params, format, plate }, timeLimitMs);
   }
 
   /** Terminates the thread; pending exports reject. */

@@ -3,7 +3,8 @@
  * main thread. Protocol: in {@link ExportWorkerRequest}, out {@link ExportWorkerResponse}.
  */
 import { parentPort } from 'node:worker_threads';
-import { write3mf } from '../../shared/mesh/write3mf';
+import { design3mf, type Design3mfChoice } from '../../shared/mesh/design3mf';
+import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import { writeStl } from '../../shared/mesh/writeStl';
 import { generate } from '../../templates/generate';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
@@ -18,6 +19,8 @@ export interface ExportWorkerRequest {
   templateId: string;
   params: unknown;
   format: ExportFormat;
+  /** Printer plate and material a 3MF is laid out for (default: the first default printer, no material). */
+  plate?: Design3mfChoice;
 }
 
 /** What a finished export carries besides the file. */
@@ -41,7 +44,7 @@ async function handle(request: ExportWorkerRequest): Promise<ExportWorkerRespons
     const file =
       request.format === 'stl'
         ? writeStl(result.mesh)
-        : write3mf(result.mesh, { unit: 'millimeter', name: `${result.template.id} v${result.template.version}` });
+        : design3mf(result, request.plate ?? { buildVolumeMm: defaultBuildVolumeMm() });
     return {
       requestId: request.requestId,
       ok: true,
@@ -62,6 +65,11 @@ async function handle(request: ExportWorkerRequest): Promise<ExportWorkerRespons
     if (err instanceof MeshValidationError) return { requestId: request.requestId, ok: false, kind: 'mesh', error };
     return { requestId: request.requestId, ok: false, kind: 'failed', error };
   }
+}
+
+function defaultBuildVolumeMm(): number[] {
+  const { x, y, z } = DEFAULT_PRINTERS[0].buildVolumeMm;
+  return [x, y, z];
 }
 
 parentPort?.on('message', (request: ExportWorkerRequest) => {

@@ -7,7 +7,9 @@ export type ExportFormat = 'stl' | '3mf';
 export interface ServerExport {
   blob: Blob;
   /** sha256 of the mesh content (hex) from the `X-Mesh-Sha256` header; null when the server did not send it. */
-  sha256: string | null;
+  meshSha256: string | null;
+  /** sha256 of the file's bytes (hex) from the `X-File-Sha256` header; null when the server did not send it. */
+  fileSha256: string | null;
   fileName: string;
 }
 
@@ -19,6 +21,10 @@ export async function exportFromServer(body: {
   templateId: string;
   params: Record<string, unknown>;
   format: ExportFormat;
+  /** Printer whose plate a 3MF is laid out for, and the material and colour it names. */
+  printerId?: string;
+  materialId?: string;
+  colourId?: string;
 }): Promise<ServerExport> {
   const file = await fetchFile('/api/exports', {
     method: 'POST',
@@ -27,7 +33,8 @@ export async function exportFromServer(body: {
   });
   return {
     blob: file.blob,
-    sha256: file.headers.get('X-Mesh-Sha256'),
+    meshSha256: file.headers.get('X-Mesh-Sha256'),
+    fileSha256: file.headers.get('X-File-Sha256'),
     fileName: file.fileName ?? `${body.templateId}.${body.format}`,
   };
 }

@@ -15,6 +15,10 @@ export interface GeometryResult {
   facts: NestBoxFacts;
   /** sha256 of the mesh content, hex. */
   sha256: string;
+  /** Part names in mesh order ("body", "floor-plug"). */
+  partNames: string[];
+  /** Triangles of each part: the mesh holds the parts one after another. */
+  partTriangles: number[];
   /** Figures of this mesh; until they arrive, the previous design's figures (see `figuresCurrent`). */
   figures: DesignFigures | null;
   /** Whether `figures` belong to this mesh. */
@@ -111,6 +115,8 @@ export function useGeometryWorker() {
         mesh: response.mesh,
         facts: response.facts,
         sha256: response.sha256,
+        partNames: response.partNames,
+        partTriangles: response.partTriangles,
         figures: previous?.figures ?? null,
         figuresCurrent: false,
         overhangMask: null,

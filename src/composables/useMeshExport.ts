@@ -1,6 +1,7 @@
 import { ref } from 'vue';
 import { writeStl } from '../../shared/mesh/writeStl';
-import { write3mf } from '../../shared/mesh/write3mf';
+import { design3mf, type Design3mfChoice } from '../../shared/mesh/design3mf';
+import type { ProductionChoice } from '../workers/geometryProtocol';
 import { exportFromServer, type ExportFormat } from '../api/exports';
 import type { DesignParams } from '../stores/design';
 import type { GeometryResult } from './useGeometryWorker';
@@ -26,14 +27,22 @@ export function useMeshExport() {
    * @param format - stl (binary) or 3mf (millimetres)
    * @param templateId - for the file name
    * @param presetName - for the file name
+   * @param production - printer (a 3MF's parts are laid on its plate), material and colour
    */
   function downloadFromBrowser(
     result: GeometryResult,
     format: ExportFormat,
     templateId: string,
     presetName: string | null,
+    production: ProductionChoice,
   ): void {
-    const bytes = format === 'stl' ? writeStl(result.mesh) : write3mf(result.mesh);
+    const bytes =
+      format === 'stl'
+        ? writeStl(result.mesh)
+        : design3mf(
+            { ...result, template: { id: templateId, version: result.templateVersion } },
+            plateChoice(production),
+          );
     const blob = new Blob([bytes as Uint8Array<ArrayBuffer>], { type: MIME[format] });
     downloadBlob(blob, exportFileName(templateId, presetName, result.sha256, format));
   }
@@ -43,12 +52,25 @@ export function useMeshExport() {
    * @param templateId - template id
    * @param params - parameters in millimetres
    * @param format - stl or 3mf
+   * @param production - printer, material and colour (as for the browser's file, so both files are the same bytes)
    */
-  async function downloadFromServer(templateId: string, params: DesignParams, format: ExportFormat): Promise<void> {
+  async function downloadFromServer(
+    templateId: string,
+    params: DesignParams,
+    format: ExportFormat,
+    production: ProductionChoice,
+  ): Promise<void> {
     serverBusy.value = true;
     try {
-      const file = await exportFromServer({ templateId, params, format });
-      serverHash.value = file.sha256;
+      const file = await exportFromServer({
+        templateId,
+        params,
+        format,
+        printerId: production.printer.id,
+        materialId: production.material.id,
+        colourId: production.colour.id,
+      });
+      serverHash.value = file.meshSha256;
       downloadBlob(file.blob, file.fileName);
     } finally {
       serverBusy.value = false;
@@ -56,4 +78,16 @@ export function useMeshExport() {
   }
 
   return { serverBusy, serverHash, downloadFromBrowser, downloadFromServer };
+}
+
+/**
+ * The plate and material a 3MF is written for, from the editor's choice (the server builds the same from ids).
+ * @param production - printer, material and colour
+ */
+export function plateChoice(production: ProductionChoice): Design3mfChoice {
+  const { x, y, z } = production.printer.buildVolumeMm;
+  return {
+    buildVolumeMm: [x, y, z],
+    material: { name: `${production.material.name}, ${production.colour.name}`, displayColour: production.colour.hex },
+  };
 }

@@ -55,6 +55,8 @@ async function handle(request: GeometryRequest): Promise<void> {
       mesh,
       facts: result.facts,
       sha256: result.sha256,
+      partNames: result.partNames,
+      partTriangles: result.partTriangles,
       buildMs: performance.now() - started,
     },
     [mesh.positions.buffer, mesh.indices.buffer],

@@ -72,6 +72,10 @@ export type GeometryResponse =
       facts: NestBoxFacts;
       /** sha256 of the exported mesh content, hex. */
       sha256: string;
+      /** Part names in mesh order ("body", "floor-plug"). */
+      partNames: string[];
+      /** Triangles of each part: the mesh holds the parts one after another. */
+      partTriangles: number[];
       /** Milliseconds spent building, validating and hashing. */
       buildMs: number;
     }

@@ -1,7 +1,10 @@
 /** `npm run cli -- templates [--json]`: every template with its parameters. */
-import { parseArgs } from 'node:util';
 import { describeParameters } from '../../../templates/lib/describeParameters';
 import { TEMPLATES } from '../../../templates/index';
+import { EXIT_CODE, parseCliArgs } from '../parseCliArgs';
+
+/** The usage line printed after bad arguments. */
+export const USAGE = 'Usage: npm run cli -- templates [--json]\n';
 
 /** One line for the command list. */
 export const summary = 'List the parametric templates and their parameters (--json for machine-readable output)';
@@ -11,7 +14,11 @@ export const summary = 'List the parametric templates and their parameters (--js
  * @param argv - command-line arguments after the command name
  */
 export async function run(argv: string[]): Promise<number> {
-  const { values } = parseArgs({ args: argv, options: { json: { type: 'boolean', default: false } } });
+  const values = parseCliArgs(
+    { args: argv, options: { json: { type: 'boolean', default: false } }, strict: true, allowPositionals: false },
+    USAGE,
+  );
+  if (!values) return EXIT_CODE.usage;
   const templates = TEMPLATES.map((template) => ({
     id: template.id,
     version: template.version,
