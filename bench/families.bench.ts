@@ -98,7 +98,7 @@ export default async function bench(): Promise<void> {
       { kind: 'attribute', key: 'colour', values: ['sand', 'moss-green'] },
     ],
     supportBudgetMm3: 12_000,
-    printerId: 'workhorse-220',
+    printerId: 'rowan-farm-06',
     materialId: 'pla',
     region: 'europe',
   });

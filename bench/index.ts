@@ -1,7 +1,8 @@
 /**
  * `npm run bench`: runs every bench/*.bench.ts file in turn and prints its figures.
  * `npm run bench -- analysis` runs only the files whose name contains "analysis".
- * Each bench/<name>.bench.ts registers itself by its file name (e.g. `npm run bench -- plan` for the run planner).
+ * Each bench/<name>.bench.ts registers itself by its file name (e.g. `npm run bench -- plan` for the run planner,
+ * `npm run bench -- optimize` for the wall-recipe optimizer).
  */
 import { readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';

@@ -16,11 +16,11 @@ describe('npm run cli -- analyze', () => {
       const file = join(dir, 'block.stl');
       await writeFile(file, toBinaryStl(geomToMesh(box([0, 0, 0], [40, 30, 10]))));
       const cli = ['tsx', 'server/cli/index.ts', 'analyze', '--in', file];
-      const json = await run('npx', [...cli, '--up', '+y', '--printer', 'cube-256', '--infill', '20', '--json']);
+      const json = await run('npx', [...cli, '--up', '+y', '--printer', 'alder-tall-06', '--infill', '20', '--json']);
       const report = AnalysisReportSchema.parse(JSON.parse(json.stdout));
       expect(report.volumeMm3).toBeCloseTo(12000, 3); // analytic: 40 × 30 × 10
       expect(report.bbox.sizeMm[2]).toBeCloseTo(30, 4); // +y up: the 30 mm side is the height
-      expect(report.buildPlate.printerId).toBe('cube-256');
+      expect(report.buildPlate.printerId).toBe('alder-tall-06');
       const table = await run('npx', cli);
       expect(table.stdout).toMatch(/Volume\s+12\.0 cm³/);
       expect(table.stdout).toMatch(/Cost per unit/);

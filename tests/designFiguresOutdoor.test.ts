@@ -15,7 +15,7 @@ const petg = DEFAULT_MATERIALS.find((m) => m.id === 'petg')!;
 
 function choice(material: Material, colourId: string): ProductionChoice {
   return {
-    printer: DEFAULT_PRINTERS.find((p) => p.id === 'cube-256')!,
+    printer: DEFAULT_PRINTERS.find((p) => p.id === 'rowan-farm-06')!,
     material,
     colour: material.colours.find((c) => c.id === colourId)!,
     settings: DEFAULT_SETTINGS,

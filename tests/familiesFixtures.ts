@@ -17,7 +17,7 @@ export function uniqueCode(): string {
 }
 
 /**
- * A one-geometry family body: the gable box at a 28 mm entry in sand, which fits the 220 mm printer (each part
+ * A one-geometry family body: the gable box at a 28 mm entry in sand, which fits the farm's 0.6 mm printer (each part
  * measured in the seed) and needs about 2.3 cm³ of support.
  * @param overrides - fields to change
  */
@@ -32,7 +32,7 @@ export function smallFamilyBody(overrides: Partial<FamilyCreate> = {}): FamilyCr
       { kind: 'attribute', key: 'colour', values: ['sand'] },
     ],
     supportBudgetMm3: 12_000,
-    printerId: 'workhorse-220',
+    printerId: 'rowan-farm-06',
     materialId: 'pla',
     region: 'europe',
     ...overrides,

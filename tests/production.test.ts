@@ -16,7 +16,28 @@ import {
 const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
 const petg = DEFAULT_MATERIALS.find((m) => m.id === 'petg')!;
 const asa = DEFAULT_MATERIALS.find((m) => m.id === 'asa')!;
-const printer = DEFAULT_PRINTERS[0]!;
+/** A 0.4 mm test printer with a V6-class hot end, independent of the demo farm's profiles. */
+const printer = PrinterProfileSchema.parse({
+  id: 'test-04',
+  name: 'Test 0.4 mm',
+  buildVolumeMm: { x: 200, y: 200, z: 200 },
+  nozzleMm: 0.4,
+  layerHeightMm: 0.2,
+  lineWidthMm: 0.45,
+  maxVolumetricFlowMm3s: 11, // source: Ellis' Print Tuning Guide, "Determining max volumetric flow rate": V6 class 11 mm³/s
+  averagePowerW: 110,
+  machineRateCentsPerHour: 50,
+  filamentDiameterMm: 1.75,
+});
+/** Hand-checkable print settings: 3 perimeters, 4 top and bottom layers, 15 % infill at 100 mm/s. */
+const SETTINGS = {
+  ...DEFAULT_SETTINGS,
+  wallLoops: 3,
+  infillPct: 15,
+  printSpeedMmS: 100,
+  topLayers: 4,
+  bottomLayers: 4,
+};
 
 /** A 40 mm cube standing on the plate: volume, area and footprint are analytic. */
 const cube40: ProductionInput = {
@@ -77,16 +98,60 @@ describe('default data', () => {
     // source: trade-facts §2d — white paint α ≈ 0.25 (white enamel 0.252), black ≈ 0.95 (soot 0.95)
     expect(pla.colours.find((c) => c.id === 'white')!.solarAbsorptance).toBeCloseTo(0.25, 2);
     expect(pla.colours.find((c) => c.id === 'black')!.solarAbsorptance).toBeCloseTo(0.95, 2);
-    // source: trade-facts §3 [M] — typical farm build volumes 220×220×250 and 256×256×256
-    expect(DEFAULT_PRINTERS.map((p) => p.buildVolumeMm)).toContainEqual({ x: 256, y: 256, z: 256 });
-    expect(DEFAULT_PRINTERS.map((p) => p.buildVolumeMm)).toContainEqual({ x: 220, y: 220, z: 250 });
+  });
+
+  it('has farm profiles of its own: invented build volumes, 0.6 and 0.8 mm nozzles within the rules of thumb', () => {
+    // from memory: common desktop farm build volumes are about 220×220×250, 250×210×210 and 256×256×256 mm; the
+    // demo profiles must not copy a machine on sale, so none may be within 2 mm of those on every axis
+    const common = [
+      [220, 220, 250],
+      [250, 210, 210],
+      [256, 256, 256],
+    ];
+    for (const p of DEFAULT_PRINTERS) {
+      const size = [p.buildVolumeMm.x, p.buildVolumeMm.y, p.buildVolumeMm.z];
+      for (const c of common)
+        expect(
+          size.every((v, i) => Math.abs(v - c[i]!) <= 2),
+          p.id,
+        ).toBe(false);
+      // source: 3D Printerly, "3D printing line width": slicers default to 100–120 % of the nozzle diameter
+      expect(p.lineWidthMm / p.nozzleMm, p.id).toBeGreaterThanOrEqual(1);
+      expect(p.lineWidthMm / p.nozzleMm, p.id).toBeLessThanOrEqual(1.2);
+      // source: Inov3D: the extrusion width should be at least 1.2 × the layer height
+      expect(p.lineWidthMm, p.id).toBeGreaterThanOrEqual(1.2 * (p.maxLayerHeightMm ?? p.layerHeightMm) - 1e-9);
+      // common practice, no source: layers at most 75–80 % of the nozzle
+      expect(p.maxLayerHeightMm ?? p.layerHeightMm, p.id).toBeLessThanOrEqual(0.8 * p.nozzleMm + 1e-9);
+      expect(p.layerHeightMm).toBeGreaterThanOrEqual(p.minLayerHeightMm ?? 0);
+      expect(p.layerHeightMm).toBeLessThanOrEqual(p.maxLayerHeightMm ?? Infinity);
+      // source: Ellis' Print Tuning Guide, "Determining max volumetric flow rate": 11–30 mm³/s across hot-end classes
+      expect(p.maxVolumetricFlowMm3s).toBeGreaterThanOrEqual(11);
+      expect(p.maxVolumetricFlowMm3s).toBeLessThanOrEqual(30);
+      expect(p.sourceNote, p.id).toBeTruthy();
+    }
+    expect(DEFAULT_PRINTERS.map((p) => p.nozzleMm)).toEqual(expect.arrayContaining([0.6, 0.8]));
+  });
+
+  it('charges the post-processing of each finish: coating and packing at the labour rate, plus consumables', () => {
+    // hand computation: UV clear coat (6 + 3) min × 25 €/h = 375 cents + 45 cents consumables = 420 cents;
+    // bare: 3 min packing × 25 €/h = 125 cents
+    const coat = estimateProduction(cube40, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES, 'uv-clear-coat');
+    const bare = estimateProduction(cube40, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES, 'none');
+    expect(coat.cost.postProcessingCents).toBe(420);
+    expect(bare.cost.postProcessingCents).toBe(125);
+    expect(coat.cost.totalCents - bare.cost.totalCents).toBe(295);
+    // no finish named: the first (bare) one
+    expect(estimateProduction(cube40, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES).cost).toEqual(bare.cost);
+    const unknown = estimateProduction(cube40, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES, 'gold-leaf');
+    expect(unknown.cost.postProcessingCents).toBe(0);
+    expect(unknown.notes.join(' ')).toMatch(/"gold-leaf" is not in the cost rates/);
   });
 });
 
 describe('estimateProduction', () => {
   it('weighs a solid part as density × volume at 100 % infill', () => {
     // analytic: a fully dense part has mass ρ·V, whatever the shell split
-    const solid = { ...DEFAULT_SETTINGS, infillPct: 100 };
+    const solid = { ...SETTINGS, infillPct: 100 };
     const e = estimateProduction(cube40, printer, pla, solid, DEFAULT_RATES);
     expect(e.extrudedVolumeMm3).toBeCloseTo(64000, 6);
     expect(e.massG).toBeCloseTo(64 * 1.24, 6);
@@ -97,7 +162,7 @@ describe('estimateProduction', () => {
   it('computes the shell from area × wall loops × line width and skins from layers (hand-computed)', () => {
     // hand computation of the documented model: sides 4 × 1600 mm² × 3 × 0.45 mm = 8640 mm³;
     // top and bottom 1600 mm² × 4 × 0.2 mm = 1280 mm³ each; infill (64000 − 11200) × 15 % = 7920 mm³
-    const e = estimateProduction(cube40, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES);
+    const e = estimateProduction(cube40, printer, pla, SETTINGS, DEFAULT_RATES);
     expect(e.shellVolumeMm3).toBeCloseTo(11200, 6);
     expect(e.infillVolumeMm3).toBeCloseTo(7920, 6);
     expect(e.extrudedVolumeMm3).toBeCloseTo(19120, 6);
@@ -115,7 +180,7 @@ describe('estimateProduction', () => {
       bboxSizeMm: [100, 100, 1],
       footprintMm2: 10000,
     };
-    const e = estimateProduction(plate, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES);
+    const e = estimateProduction(plate, printer, pla, SETTINGS, DEFAULT_RATES);
     expect(e.shellVolumeMm3).toBeCloseTo(10000, 6);
     expect(e.infillVolumeMm3).toBeCloseTo(0, 9);
   });
@@ -123,7 +188,7 @@ describe('estimateProduction', () => {
   it('reduces print time to V / Q without overheads (the lower bound)', () => {
     // source: trade-facts §4 [C] — t_min ≈ V_extruded / Q_eff; Q = 0.2 × 0.45 × 100 = 9 mm³/s
     const bare = { ...PrinterProfileSchema.parse(printer), layerChangeS: 0 };
-    const settings = { ...DEFAULT_SETTINGS, infillPct: 100, flowEfficiency: 1, travelOverheadPct: 0 };
+    const settings = { ...SETTINGS, infillPct: 100, flowEfficiency: 1, travelOverheadPct: 0 };
     const e = estimateProduction(cube40, bare, pla, settings, DEFAULT_RATES);
     expect(e.effectiveFlowMm3s).toBeCloseTo(9, 9);
     expect(e.printTimeMin).toBeCloseTo(64000 / 9 / 60, 6);
@@ -131,7 +196,7 @@ describe('estimateProduction', () => {
 
   it('caps the flow at the printer maximum', () => {
     // source: Ellis' Print Tuning Guide via trade-facts §4 — a V6-class hot end melts about 11 mm³/s
-    const fast = { ...DEFAULT_SETTINGS, printSpeedMmS: 300, flowEfficiency: 1 };
+    const fast = { ...SETTINGS, printSpeedMmS: 300, flowEfficiency: 1 };
     const e = estimateProduction(cube40, printer, pla, fast, DEFAULT_RATES);
     expect(printer.maxVolumetricFlowMm3s).toBe(11);
     expect(e.effectiveFlowMm3s).toBeCloseTo(11, 9);
@@ -142,7 +207,7 @@ describe('estimateProduction', () => {
     const p = { ...PrinterProfileSchema.parse(printer), averagePowerW: 189.5, layerChangeS: 0 };
     const oneHourMm3 = 9 * 3600; // at exactly 9 mm³/s
     const part: ProductionInput = { ...cube40, volumeMm3: oneHourMm3, surfaceAreaMm2: 0, footprintMm2: 0 };
-    const settings = { ...DEFAULT_SETTINGS, infillPct: 100, flowEfficiency: 1, travelOverheadPct: 0 };
+    const settings = { ...SETTINGS, infillPct: 100, flowEfficiency: 1, travelOverheadPct: 0 };
     const e = estimateProduction(part, p, pla, settings, DEFAULT_RATES);
     expect(e.printTimeMin).toBeCloseTo(60, 6);
     expect(e.energyKwh).toBeCloseTo(0.1895, 6);
@@ -150,7 +215,7 @@ describe('estimateProduction', () => {
 
   it('has a cost breakdown that adds up and a price with the stated margin', () => {
     const part = { ...cube40, supportVolumeMm3: 5000 };
-    const e = estimateProduction(part, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES);
+    const e = estimateProduction(part, printer, pla, SETTINGS, DEFAULT_RATES);
     const { totalCents, ...parts } = e.cost;
     // analytic: the total is the sum of its parts, in whole cents
     expect(Object.values(parts).reduce((a, b) => a + b, 0)).toBe(totalCents);
@@ -167,7 +232,7 @@ describe('estimateProduction', () => {
   it('spreads the failed prints over the good ones', () => {
     // analytic: with failure share f, each good unit carries f / (1 − f) extra material, machine time and energy
     const rates = { ...DEFAULT_RATES, failureAllowancePct: 20 };
-    const e = estimateProduction({ ...cube40, volumeMm3: 400000 }, printer, pla, DEFAULT_SETTINGS, rates);
+    const e = estimateProduction({ ...cube40, volumeMm3: 400000 }, printer, pla, SETTINGS, rates);
     const direct = e.cost.materialCents + e.cost.machineTimeCents + e.cost.energyCents;
     expect(Math.abs(e.cost.failureAllowanceCents - direct * 0.25)).toBeLessThanOrEqual(1);
   });
@@ -181,12 +246,12 @@ describe('estimateProduction', () => {
         fc.double({ min: 0, max: 50000, noNaN: true }),
         (infillPct, stepPct, supportMm3) => {
           const part = { ...cube40, supportVolumeMm3: supportMm3 };
-          const lo = estimateProduction(part, printer, pla, { ...DEFAULT_SETTINGS, infillPct }, DEFAULT_RATES);
+          const lo = estimateProduction(part, printer, pla, { ...SETTINGS, infillPct }, DEFAULT_RATES);
           const hi = estimateProduction(
             { ...part, supportVolumeMm3: supportMm3 + 1000 },
             printer,
             pla,
-            { ...DEFAULT_SETTINGS, infillPct: Math.min(100, infillPct + stepPct) },
+            { ...SETTINGS, infillPct: Math.min(100, infillPct + stepPct) },
             DEFAULT_RATES,
           );
           expect(hi.massG).toBeGreaterThan(lo.massG);
@@ -199,9 +264,9 @@ describe('estimateProduction', () => {
   });
 
   it('rejects impossible input with a clear reason', () => {
-    expect(() =>
-      estimateProduction({ ...cube40, volumeMm3: -1 }, printer, pla, DEFAULT_SETTINGS, DEFAULT_RATES),
-    ).toThrow(/volumeMm3/);
+    expect(() => estimateProduction({ ...cube40, volumeMm3: -1 }, printer, pla, SETTINGS, DEFAULT_RATES)).toThrow(
+      /volumeMm3/,
+    );
   });
 });
 

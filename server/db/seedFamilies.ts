@@ -7,6 +7,7 @@ import { eq } from 'drizzle-orm';
 import type { Person } from '../../shared/schemas/auth';
 import type { FamilyCreate, GateWarningCode } from '../../shared/schemas/family';
 import { FamilyCreateSchema } from '../../shared/schemas/family';
+import { FARM_PRINTER_ID } from '../../shared/production/defaults';
 import { computeRevision } from '../jobs/computeRevision';
 import { computeVariantGeometry } from '../jobs/variantGeometry';
 import { EnvSchema } from '../env';
@@ -51,7 +52,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
         { kind: 'attribute', key: 'colour', values: ['sand', 'moss-green'] },
       ],
       supportBudgetMm3: 12_000,
-      printerId: 'workhorse-220',
+      printerId: FARM_PRINTER_ID,
       materialId: 'pla',
       region: 'europe',
     },
@@ -69,7 +70,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
         { kind: 'attribute', key: 'colour', values: ['bark-brown', 'sand'] },
       ],
       supportBudgetMm3: 10_000,
-      printerId: 'workhorse-220',
+      printerId: FARM_PRINTER_ID,
       materialId: 'pla',
       region: 'europe',
     },
@@ -88,7 +89,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
         { kind: 'attribute', key: 'colour', values: ['white', 'sand'] },
       ],
       supportBudgetMm3: 12_000,
-      printerId: 'workhorse-220',
+      printerId: FARM_PRINTER_ID,
       materialId: 'pla',
       region: 'europe',
     },

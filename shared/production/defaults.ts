@@ -1,55 +1,115 @@
-import type { CostRates, Material, PrinterProfile, PrintSettings } from '../schemas/production';
+import type { CostRates, Finish, Material, PrinterProfile, PrintSettings } from '../schemas/production';
 
 // Values marked [P], [M] or [C] follow ../../../shared/reference/trade-facts.md (published / from memory / computed).
 // The printers, rates and prices are an invented farm for the demo studio; change them per studio.
 
+/** Id of the farm profile that new families, the editor and the demo families start with. */
+export const FARM_PRINTER_ID = 'rowan-farm-06';
+
+// Machine-hour rates follow the generic cost model "machine rate = (annual depreciation + maintenance + facility +
+// consumables) / productive hours per year" (additive.tools, "Cost of a 3D printed part"); electricity is charged
+// apart from it (power × price). The purchase prices, lives and shares below are the invented studio's own figures.
+const ROWAN_RATE_NOTE =
+  'Machine rate 40 c/h = depreciation 10 c/h (EUR 1,500 over 3 years × 5,000 productive hours) + wear parts and ' +
+  "maintenance 12 c/h + floor space, racks and ventilation 18 c/h (the studio's own assumptions).";
+
 /**
- * Generic farm printers (invented names). Build volumes are typical desktop farm sizes (trade-facts §3, [M]);
- * maximum flows follow published hot-end classes for a 0.4 mm brass nozzle (Ellis' Print Tuning Guide via
- * trade-facts §4 [P]: V6-class 11 mm³/s, high-flow 24 mm³/s).
+ * The invented studio's farm: printer profiles with invented names and build volumes of our own (not those of any
+ * machine on sale). Each profile is one machine with one nozzle: the farm's everyday 0.6 mm profile, a 0.8 mm profile
+ * on the same machine, a 0.4 mm detail profile and a tall machine for big boxes. Every default names its source in
+ * `sourceNote`; the farm should replace the flow limits with its own flow-test results.
  */
 export const DEFAULT_PRINTERS: PrinterProfile[] = [
   {
-    id: 'workhorse-220',
-    name: 'Workhorse 220',
-    buildVolumeMm: { x: 220, y: 220, z: 250 },
-    nozzleMm: 0.4,
-    layerHeightMm: 0.2, // 0.2 mm standard at a 0.4 mm nozzle (trade-facts §3 [M])
-    lineWidthMm: 0.45, // 0.45 mm at 0.4 mm nozzle, a common default (trade-facts §3 [M])
-    maxVolumetricFlowMm3s: 11, // V6-class hot end (Ellis [P])
-    averagePowerW: 110, // i3-class printers average ~60–120 W with PLA (trade-facts §4 [M])
-    machineRateCentsPerHour: 50, // desktop FDM $0.5–2/h (trade-facts §4 [M])
-    filamentDiameterMm: 1.75,
-    layerChangeS: 1.5, // assumption, no source
-    plateWarmUpMin: 6, // assumption, no source
-  },
-  {
-    id: 'cube-256',
-    name: 'Cube 256',
-    buildVolumeMm: { x: 256, y: 256, z: 256 },
-    nozzleMm: 0.4,
-    layerHeightMm: 0.2,
-    lineWidthMm: 0.45,
-    maxVolumetricFlowMm3s: 24, // high-flow hot end class (Ellis [P])
-    averagePowerW: 190, // measured average 189.5 W over a 1 h PLA print (3dprintscape via trade-facts §4 [P])
-    machineRateCentsPerHour: 90, // assumption within $0.5–2/h (trade-facts §4 [M])
-    filamentDiameterMm: 1.75,
-    layerChangeS: 1,
-    plateWarmUpMin: 5,
-  },
-  {
-    id: 'longbed-250',
-    name: 'Longbed 250',
-    buildVolumeMm: { x: 250, y: 210, z: 210 },
-    nozzleMm: 0.4,
-    layerHeightMm: 0.2,
-    lineWidthMm: 0.45,
-    maxVolumetricFlowMm3s: 15, // mid-flow hot end class (Ellis [P]: 13–15 mm³/s)
-    averagePowerW: 130,
-    machineRateCentsPerHour: 70,
+    id: FARM_PRINTER_ID,
+    name: 'Rowan farm 0.6 mm',
+    buildVolumeMm: { x: 246, y: 238, z: 262 },
+    nozzleMm: 0.6,
+    layerHeightMm: 0.3,
+    minLayerHeightMm: 0.15,
+    maxLayerHeightMm: 0.45,
+    lineWidthMm: 0.68,
+    maxVolumetricFlowMm3s: 30,
+    averagePowerW: 150,
+    machineRateCentsPerHour: 40,
     filamentDiameterMm: 1.75,
     layerChangeS: 1.5,
     plateWarmUpMin: 6,
+    sourceNote:
+      'Line width 0.68 mm = 113 % of the nozzle: slicers default to 100–120 % of the nozzle diameter ' +
+      '(3D Printerly, "3D printing line width"), and a line should be at least 1.2 × the layer height (Inov3D). ' +
+      'Layers 0.15–0.45 mm, 0.3 mm used: at most 75–80 % of the nozzle (common practice, no source). ' +
+      'Flow cap 30 mm³/s: the ultra-high-flow hot-end class (Ellis\' Print Tuning Guide, "Determining max volumetric ' +
+      'flow rate", 0.4 mm brass nozzle); a wider nozzle melts no faster than its hot end, so the same cap applies. ' +
+      'Average power 150 W: a printer with a 300 × 300 mm bed averaged 189.5 W over a 1 h PLA print (3DPrintScape, ' +
+      '"Do 3D printers use a lot of power"); the bed draws most and this bed is 65 % of that area (estimate). ' +
+      ROWAN_RATE_NOTE,
+  },
+  {
+    id: 'rowan-farm-08',
+    name: 'Rowan farm 0.8 mm',
+    buildVolumeMm: { x: 246, y: 238, z: 262 },
+    nozzleMm: 0.8,
+    layerHeightMm: 0.4,
+    minLayerHeightMm: 0.2,
+    maxLayerHeightMm: 0.6,
+    lineWidthMm: 0.9,
+    maxVolumetricFlowMm3s: 30,
+    averagePowerW: 150,
+    machineRateCentsPerHour: 40,
+    filamentDiameterMm: 1.75,
+    layerChangeS: 1.5,
+    plateWarmUpMin: 6,
+    sourceNote:
+      'The Rowan machine with a 0.8 mm nozzle. Line width 0.9 mm = 112 % of the nozzle (3D Printerly, "3D printing ' +
+      'line width": 100–120 %), at least 1.2 × the 0.4 mm layer (Inov3D). Layers 0.2–0.6 mm: at most 75 % of the ' +
+      "nozzle (common practice, no source). Flow cap 30 mm³/s: the same hot end as the 0.6 mm profile (Ellis' Print " +
+      'Tuning Guide, ultra-high-flow class); wider lines then print no faster, they only make thicker walls. ' +
+      'Power as the 0.6 mm profile. ' +
+      ROWAN_RATE_NOTE,
+  },
+  {
+    id: 'linnet-detail-04',
+    name: 'Linnet detail 0.4 mm',
+    buildVolumeMm: { x: 232, y: 226, z: 258 },
+    nozzleMm: 0.4,
+    layerHeightMm: 0.2,
+    minLayerHeightMm: 0.08,
+    maxLayerHeightMm: 0.3,
+    lineWidthMm: 0.45,
+    maxVolumetricFlowMm3s: 15,
+    averagePowerW: 120,
+    machineRateCentsPerHour: 35,
+    filamentDiameterMm: 1.75,
+    layerChangeS: 1.5,
+    plateWarmUpMin: 6,
+    sourceNote:
+      'For samples and fine trim. Line width 0.45 mm = 112 % of the nozzle (3D Printerly, "3D printing line width"); ' +
+      '0.2 mm layers, the usual standard at 0.4 mm (common practice, no source). Flow cap 15 mm³/s: the mid-flow ' +
+      "hot-end class, 13–15 mm³/s at 0.4 mm (Ellis' Print Tuning Guide). Power 120 W: the top of the 60–120 W " +
+      'that desktop printers of this size draw with PLA (from memory). Machine rate 35 c/h: depreciation 7 c/h ' +
+      "(EUR 1,000 over 3 years × 5,000 h), wear parts 10 c/h, floor space 18 c/h (the studio's own assumptions).",
+  },
+  {
+    id: 'alder-tall-06',
+    name: 'Alder tall 0.6 mm',
+    buildVolumeMm: { x: 312, y: 296, z: 338 },
+    nozzleMm: 0.6,
+    layerHeightMm: 0.3,
+    minLayerHeightMm: 0.15,
+    maxLayerHeightMm: 0.45,
+    lineWidthMm: 0.68,
+    maxVolumetricFlowMm3s: 30,
+    averagePowerW: 200,
+    machineRateCentsPerHour: 55,
+    filamentDiameterMm: 1.75,
+    layerChangeS: 1.5,
+    plateWarmUpMin: 8,
+    sourceNote:
+      'For owl, kestrel and duck boxes that the Rowan cannot hold. Nozzle, line, layers and flow cap as the Rowan ' +
+      '0.6 mm profile (same sources). Power 200 W: a 300 × 300 mm bed printer averaged 189.5 W over a 1 h PLA ' +
+      'print (3DPrintScape), this bed is slightly larger. Machine rate 55 c/h: depreciation 16 c/h (EUR 2,400 over ' +
+      "3 years × 5,000 h), wear parts 14 c/h, floor space 25 c/h (the studio's own assumptions).",
   },
 ];
 
@@ -95,17 +155,30 @@ export const DEFAULT_MATERIALS: Material[] = [
   },
 ];
 
-/** Default print settings: 3 walls, 4 top and bottom layers, 15 % infill (common practice, no source). */
+/**
+ * Default print settings of the farm: 2 perimeters, 4 top and bottom layers, 15 % infill. With the farm's 0.68 mm
+ * lines two perimeters make a 1.36 mm skin, the 1.2–1.35 mm that three 0.45 mm perimeters give and that is usually
+ * recommended for parts (common practice, no source). The wall-recipe optimizer and each family may choose others.
+ */
 export const DEFAULT_SETTINGS: PrintSettings = {
-  wallLoops: 3, // 3 perimeters recommended for parts (trade-facts §3 [M])
+  wallLoops: 2,
   topLayers: 4,
   bottomLayers: 4,
   infillPct: 15,
   supportInfillPct: 15,
-  printSpeedMmS: 100, // 0.2 × 0.45 × 100 = 9 mm³/s (trade-facts §4 [C])
+  // A moderate speed for enclosed farm machines (from memory); at 0.6 and 0.8 mm the hot end's flow cap binds first:
+  // 0.3 mm × 0.68 mm × 150 mm/s = 30.6 mm³/s (Q = layer height × line width × speed).
+  printSpeedMmS: 150,
   flowEfficiency: 0.7, // assumption: calibrate against slicer estimates
   travelOverheadPct: 10, // assumption, no source
 };
+
+/** Finishes of the demo studio with their hand work per unit (the studio's own time studies, invented). */
+export const DEFAULT_FINISHES: Finish[] = [
+  { id: 'none', name: 'Bare', coatingMin: 0, packingMin: 3, consumablesCents: 0 },
+  // Masking the inside, one spray coat on the outside only, handling while it dries; about 15 ml of coating.
+  { id: 'uv-clear-coat', name: 'UV clear coat', coatingMin: 6, packingMin: 3, consumablesCents: 45 },
+];
 
 /** Default money rates of the demo studio (an invented scenario; every studio sets its own). */
 export const DEFAULT_RATES: CostRates = {
@@ -113,8 +186,11 @@ export const DEFAULT_RATES: CostRates = {
   electricityCentsPerKwh: 30, // assumption for the scenario
   labourCentsPerHour: 2500, // assumption for the scenario
   supportRemovalMinPerCm3: 1, // assumption, no source
-  handlingMinPerUnit: 3, // assumption, no source
-  packagingCents: 120, // assumption for the scenario
-  failureAllowancePct: 5, // assumption, no source
+  handlingMinPerUnit: 2, // plate removal and a look over the part; assumption, no source
+  packagingCents: 120, // carton and paper fill; assumption for the scenario
+  // Share of farm prints that fail and are reprinted; their material, machine time and energy inflate the good
+  // units' cost. The studio's own assumption: measure it from the farm's job log.
+  failureAllowancePct: 6,
   marginPct: 40, // assumption for the scenario
+  finishes: DEFAULT_FINISHES,
 };

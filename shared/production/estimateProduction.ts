@@ -6,6 +6,7 @@ import {
   ProductionInputSchema,
   type CostBreakdown,
   type CostRates,
+  type Finish,
   type Material,
   type PrinterProfile,
   type PrintSettings,
@@ -24,6 +25,7 @@ const MODEL_NOTES = [
     'estimate for the real part is better and should replace it for quotes.',
   'Energy = average printer power × print time; plate warm-up is counted per plate in farm capacity, not here.',
   'Failure allowance charges the material, machine time and energy of failed prints to the good ones.',
+  "Post-processing = the finish's coating and packing minutes at the labour rate, plus its consumables.",
 ];
 
 /**
@@ -33,7 +35,8 @@ const MODEL_NOTES = [
  * @param printer - the printer profile
  * @param material - the filament material
  * @param settings - print settings (walls, infill, speed)
- * @param rates - money rates of the studio
+ * @param rates - money rates of the studio, with its finishes
+ * @param finishId - the variant's finish (a `rates.finishes` id); the first finish when null or omitted
  * @returns the production estimate
  */
 export function estimateProduction(
@@ -42,13 +45,37 @@ export function estimateProduction(
   material: Material,
   settings: PrintSettings,
   rates: CostRates,
+  finishId?: string | null,
 ): ProductionEstimate {
-  const part = ProductionInputSchema.parse(input);
-  const p = PrinterProfileSchema.parse(printer);
-  const m = MaterialSchema.parse(material);
-  const s = PrintSettingsSchema.parse(settings);
-  const r = CostRatesSchema.parse(rates);
+  return estimateProductionUnchecked(
+    ProductionInputSchema.parse(input),
+    PrinterProfileSchema.parse(printer),
+    MaterialSchema.parse(material),
+    PrintSettingsSchema.parse(settings),
+    CostRatesSchema.parse(rates),
+    finishId,
+  );
+}
 
+/**
+ * {@link estimateProduction} without validating its arguments, for searches that call it thousands of times with
+ * values already parsed once (the wall-recipe optimizer).
+ * @param part - parsed mesh measurements
+ * @param p - parsed printer profile
+ * @param m - parsed material
+ * @param s - parsed print settings
+ * @param r - parsed cost rates
+ * @param finishId - a `rates.finishes` id; the first finish when null or omitted
+ * @returns the production estimate
+ */
+export function estimateProductionUnchecked(
+  part: ProductionInput,
+  p: PrinterProfile,
+  m: Material,
+  s: PrintSettings,
+  r: CostRates,
+  finishId?: string | null,
+): ProductionEstimate {
   const upMm2 = part.upFacingAreaMm2 ?? part.footprintMm2;
   const downMm2 = part.downFacingAreaMm2 ?? part.footprintMm2;
   const sideMm2 = Math.max(0, part.surfaceAreaMm2 - upMm2 - downMm2);
@@ -81,6 +108,10 @@ export function estimateProduction(
   const energyCents = energyKwh * r.electricityCentsPerKwh;
   const supportLabourCents = ((part.supportVolumeMm3 / 1000) * r.supportRemovalMinPerCm3 * r.labourCentsPerHour) / 60;
   const handlingLabourCents = (r.handlingMinPerUnit * r.labourCentsPerHour) / 60;
+  const finish = finishOf(r, finishId);
+  const postProcessingCents = finish
+    ? ((finish.coatingMin + finish.packingMin) * r.labourCentsPerHour) / 60 + finish.consumablesCents
+    : 0;
   const failureShare = r.failureAllowancePct / 100;
   const failureAllowanceCents = (materialCents + machineTimeCents + energyCents) * (failureShare / (1 - failureShare));
 
@@ -90,6 +121,7 @@ export function estimateProduction(
     energyCents: Math.round(energyCents),
     supportLabourCents: Math.round(supportLabourCents),
     handlingLabourCents: Math.round(handlingLabourCents),
+    postProcessingCents: Math.round(postProcessingCents),
     packagingCents: Math.round(r.packagingCents),
     failureAllowanceCents: Math.round(failureAllowanceCents),
   };
@@ -112,6 +144,13 @@ export function estimateProduction(
     currency: r.currency,
     cost,
     suggestedPriceCents: Math.round(cost.totalCents / (1 - r.marginPct / 100)),
-    notes: [...MODEL_NOTES],
+    notes: finish
+      ? [...MODEL_NOTES]
+      : [...MODEL_NOTES, `The finish "${finishId}" is not in the cost rates: no post-processing is counted.`],
   };
+}
+
+function finishOf(rates: CostRates, finishId: string | null | undefined): Finish | undefined {
+  if (finishId === null || finishId === undefined) return rates.finishes[0];
+  return rates.finishes.find((finish) => finish.id === finishId);
 }

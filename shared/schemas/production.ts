@@ -12,7 +12,11 @@ export const PrinterProfileSchema = z.object({
   /** Usable build volume. */
   buildVolumeMm: SizeMmSchema,
   nozzleMm: z.number().positive(),
+  /** Layer height the estimates use. */
   layerHeightMm: z.number().positive(),
+  /** Thinnest and thickest layers this nozzle prints well (absent on profiles made before they were added). */
+  minLayerHeightMm: z.number().positive().optional(),
+  maxLayerHeightMm: z.number().positive().optional(),
   lineWidthMm: z.number().positive(),
   /** Highest volumetric flow the hot end melts reliably (Q = layer height × line width × speed). */
   maxVolumetricFlowMm3s: z.number().positive(),
@@ -25,6 +29,8 @@ export const PrinterProfileSchema = z.object({
   layerChangeS: z.number().nonnegative().default(1.5),
   /** Heating the bed and nozzle, probing and purging before each build plate. */
   plateWarmUpMin: z.number().nonnegative().default(6),
+  /** Where the profile's values come from (data sheet, measurement, rule of thumb), shown to whoever edits it. */
+  sourceNote: z.string().max(1000).optional(),
 });
 /** A printer profile (see {@link PrinterProfileSchema}). */
 export type PrinterProfile = z.infer<typeof PrinterProfileSchema>;
@@ -80,6 +86,23 @@ export const PrintSettingsSchema = z.object({
 /** Print settings (see {@link PrintSettingsSchema}). */
 export type PrintSettings = z.infer<typeof PrintSettingsSchema>;
 
+/**
+ * A finish and the hand work after printing that it costs per unit: coating, drying handling and packing.
+ * Its id is the value of a family's `finish` axis.
+ */
+export const FinishSchema = z.object({
+  id: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'id must be a lower-case id such as uv-clear-coat'),
+  name: z.string().min(1).max(80),
+  /** Coating by hand (masking, spraying, handling while it dries), minutes per unit; 0 when bare. */
+  coatingMin: z.number().nonnegative().max(240),
+  /** Packing the finished unit for dispatch, minutes per unit. */
+  packingMin: z.number().nonnegative().max(240),
+  /** Coating and other consumables per unit. */
+  consumablesCents: z.number().nonnegative(),
+});
+/** A finish (see {@link FinishSchema}). */
+export type Finish = z.infer<typeof FinishSchema>;
+
 /** The studio's money rates that turn time and material into a price. */
 export const CostRatesSchema = z.object({
   /** ISO 4217 code of every cents value. */
@@ -88,13 +111,15 @@ export const CostRatesSchema = z.object({
   labourCentsPerHour: z.number().nonnegative(),
   /** Hand work to remove support, per cm³ of support volume. */
   supportRemovalMinPerCm3: z.number().nonnegative(),
-  /** Taking a part off the plate, checking it and bagging it. */
+  /** Taking a part off the plate and checking it (packing is counted per finish). */
   handlingMinPerUnit: z.number().nonnegative(),
   packagingCents: z.number().nonnegative(),
   /** Share of prints that fail; their material, machine time and energy are charged to the good ones. 0–<100. */
   failureAllowancePct: z.number().min(0).lt(100),
   /** Gross margin on the suggested price (price = cost / (1 − margin)), 0–<100. */
   marginPct: z.number().min(0).lt(100),
+  /** Finishes a variant can have, with their post-processing time; the first is used when a variant names none. */
+  finishes: z.array(FinishSchema).min(1, 'at least one finish (a bare one) is needed'),
 });
 /** Cost rates (see {@link CostRatesSchema}). */
 export type CostRates = z.infer<typeof CostRatesSchema>;
@@ -123,8 +148,10 @@ export const CostBreakdownSchema = z.object({
   energyCents: z.number().int(),
   /** Support removal. */
   supportLabourCents: z.number().int(),
-  /** Plate removal, inspection, bagging. */
+  /** Plate removal and inspection. */
   handlingLabourCents: z.number().int(),
+  /** Coating and packing of the finish, labour and consumables (0 on costs stored before finishes existed). */
+  postProcessingCents: z.number().int().default(0),
   packagingCents: z.number().int(),
   /** Material, machine time and energy of the failed prints, spread over the good ones. */
   failureAllowanceCents: z.number().int(),

@@ -10,6 +10,51 @@ export const PINE_BOARD_MM = 19;
 export const CONVECTION_CELL_MM = 6;
 
 /**
+ * The stated (parallel-path) resistance of {@link wallResistance} as a bare number, without validation or texts:
+ * for searches that evaluate it thousands of times.
+ * @param wallThicknessMm - wall thickness
+ * @param wallLoops - perimeters on each face
+ * @param lineWidthMm - extrusion line width
+ * @param infillPct - core infill density, 0–100
+ * @param polymerK - conductivity of the solid polymer, W/m·K
+ * @returns R in m²K/W
+ */
+export function wallResistanceM2KW(
+  wallThicknessMm: number,
+  wallLoops: number,
+  lineWidthMm: number,
+  infillPct: number,
+  polymerK: number,
+): number {
+  const skinThicknessMm = Math.min(wallThicknessMm, 2 * wallLoops * lineWidthMm);
+  const fill = infillPct / 100;
+  const kParallel = fill * polymerK + (1 - fill) * AIR_K_WMK;
+  return skinThicknessMm / 1000 / polymerK + (wallThicknessMm - skinThicknessMm) / 1000 / kParallel;
+}
+
+/**
+ * Estimated air-cell size of grid-like infill: lines in two directions, so the line spacing is about
+ * 2 × line width / density.
+ * @param lineWidthMm - extrusion line width
+ * @param infillPct - infill density, 0–100 (0 gives Infinity: an open gap)
+ * @returns the cell size in mm
+ */
+export function gridCellSizeMm(lineWidthMm: number, infillPct: number): number {
+  return infillPct > 0 ? (2 * lineWidthMm) / (infillPct / 100) : Infinity;
+}
+
+/**
+ * Thermal resistance of a board of wood as thick as a given number of millimetres, R = t / k, on the same
+ * conduction-only basis as a printed wall.
+ * @param boardMm - board thickness
+ * @param woodK - the wood's conductivity (default: eastern white pine, USDA Wood Handbook Table 4-7)
+ * @returns R in m²K/W
+ */
+export function boardResistanceM2KW(boardMm: number, woodK = PINE_K_WMK): number {
+  return boardMm / 1000 / woodK;
+}
+
+/**
  * Conductive thermal resistance of a printed wall: solid perimeters on both faces and an infill core of air cells
  * with polymer webs. The core uses the parallel-path model (webs as continuous heat paths across the wall, as
  * rectilinear or grid infill lines are in a printed vertical wall) for the stated value and the series model as an
@@ -22,14 +67,12 @@ export function wallResistance(input: WallResistanceInput): WallResistance {
   const skinThicknessMm = Math.min(w.wallThicknessMm, 2 * w.wallLoops * w.lineWidthMm);
   const coreThicknessMm = w.wallThicknessMm - skinThicknessMm;
   const fill = w.infillPct / 100;
-  const kParallel = fill * w.polymerK + (1 - fill) * AIR_K_WMK;
   const kSeries = 1 / (fill / w.polymerK + (1 - fill) / AIR_K_WMK);
   const skinR = skinThicknessMm / 1000 / w.polymerK;
-  const rM2KW = skinR + coreThicknessMm / 1000 / kParallel;
+  const rM2KW = wallResistanceM2KW(w.wallThicknessMm, w.wallLoops, w.lineWidthMm, w.infillPct, w.polymerK);
   const rUpperM2KW = skinR + coreThicknessMm / 1000 / kSeries;
-  // Grid-like infill lays lines in two directions, so the line spacing is about 2 × line width / density.
-  const infillCellSizeMm = coreThicknessMm > 0 && fill > 0 ? (2 * w.lineWidthMm) / fill : null;
-  const pineBoardRM2KW = PINE_BOARD_MM / 1000 / PINE_K_WMK;
+  const infillCellSizeMm = coreThicknessMm > 0 && fill > 0 ? gridCellSizeMm(w.lineWidthMm, w.infillPct) : null;
+  const pineBoardRM2KW = boardResistanceM2KW(PINE_BOARD_MM);
 
   const limits = [
     'Conduction only: the inside and outside air films, sunshine, wind and moisture are left out, so compare ' +

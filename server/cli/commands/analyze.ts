@@ -172,6 +172,7 @@ export function formatReport(r: AnalysisReport, name: string): string {
     ['  energy', money(p.cost.energyCents, p.currency)],
     ['  support removal', money(p.cost.supportLabourCents, p.currency)],
     ['  handling', money(p.cost.handlingLabourCents, p.currency)],
+    ['  coating and packing', money(p.cost.postProcessingCents, p.currency)],
     ['  packaging', money(p.cost.packagingCents, p.currency)],
     ['  failure allowance', money(p.cost.failureAllowanceCents, p.currency)],
     ['Outdoor colour', `${r.outdoor.colourId} (solar absorptance ${r.outdoor.absorptance.toFixed(2)})`],
