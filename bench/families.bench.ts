@@ -6,7 +6,8 @@
 import { eq } from 'drizzle-orm';
 import { evaluateFamilyGate } from '../shared/families/familyGate';
 import { buildVariantMatrix } from '../shared/families/variantMatrix';
-import type { Axis, Variant } from '../shared/schemas/family';
+import type { Axis } from '../shared/schemas/familySpec';
+import type { Variant } from '../shared/schemas/variant';
 import { createContext } from '../server/context';
 import { migrateDatabase, openDatabase } from '../server/db/client';
 import { familyRevisions, familyVariants, people, studios } from '../server/db/schema';

@@ -4,7 +4,7 @@
  * Hedgerow Gable (HGB, published, 12 variants), Copse A-frame (CAF, in review) and Meadow Gable (MGB, draft).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CatalogueVariant } from '../shared/schemas/family';
+import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import { DEFAULT_RATES } from '../shared/production/defaults';
 import { getVariantBySku, listCatalogueVariants } from '../server/services/catalogue';
 import { findTemplate } from '../templates/index';

@@ -7,7 +7,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildVariantMatrix, variantCount } from '../shared/families/variantMatrix';
 import { axisValueCode, skuFor } from '../shared/families/sku';
-import { FAMILY_MAX_VARIANTS, SkuSchema, type Family, type Variant } from '../shared/schemas/family';
+import { FAMILY_MAX_VARIANTS, SkuSchema } from '../shared/schemas/familySpec';
+import { type Variant } from '../shared/schemas/variant';
+import { type Family } from '../shared/schemas/family';
 import { findTemplate, generate } from '../templates/index';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { currentRevisionId } from '../server/services/familyService';

@@ -4,16 +4,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
-import {
-  AuditListResponseSchema,
-  CatalogueResponseSchema,
-  ComputeStatusSchema,
-  FamilyListResponseSchema,
-  FamilyResponseSchema,
-  MailMessagesResponseSchema,
-  RevisionDiffSchema,
-  VariantListResponseSchema,
-} from '../shared/schemas/family';
+import { ComputeStatusSchema, VariantListResponseSchema } from '../shared/schemas/variant';
+import { AuditListResponseSchema, RevisionDiffSchema } from '../shared/schemas/review';
+import { CatalogueResponseSchema } from '../shared/schemas/catalogue';
+import { MailMessagesResponseSchema } from '../shared/schemas/mail';
+import { FamilyListResponseSchema, FamilyResponseSchema } from '../shared/schemas/family';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
 let t: TestApp;

@@ -3,7 +3,8 @@
  * real job runner (worker thread), and walked through the workflow.
  */
 import sharp from 'sharp';
-import type { Family, FamilyCreate, FamilyState } from '../shared/schemas/family';
+import type { FamilyCreate, FamilyState } from '../shared/schemas/familySpec';
+import type { Family } from '../shared/schemas/family';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { currentRevisionId } from '../server/services/familyService';
 import type { TestApp } from './setup/testApp';

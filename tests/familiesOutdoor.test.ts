@@ -5,7 +5,8 @@
  * formula); PLA's heat-deflection temperature is trade-facts §2e.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Family, Variant } from '../shared/schemas/family';
+import type { Variant } from '../shared/schemas/variant';
+import type { Family } from '../shared/schemas/family';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { computeNow, createTestFamily, smallFamilyBody } from './familiesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';

@@ -5,7 +5,7 @@
  */
 import { createServer } from 'node:net';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { MailMessagesResponse } from '../shared/schemas/family';
+import type { MailMessagesResponse } from '../shared/schemas/mail';
 import { FakeSmtpServer } from '../server/mail/FakeSmtpServer';
 import { MailSender } from '../server/mail/MailSender';
 import { parseCapturedMail } from '../server/mail/parseCapturedMail';

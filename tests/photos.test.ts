@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import sharp, { type Metadata } from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PHOTO_MAX_BYTES, PHOTO_NORMAL_PX, PHOTO_THUMB_PX } from '../shared/schemas/family';
+import { PHOTO_MAX_BYTES, PHOTO_NORMAL_PX, PHOTO_THUMB_PX } from '../shared/schemas/photo';
 import { detectPhotoType } from '../server/services/photoService';
 import { pngBytes } from './familiesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';

@@ -7,7 +7,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { effectScope } from 'vue';
-import { ComputeProgressEventSchema, type ComputeProgressEvent } from '../shared/schemas/family';
+import { ComputeProgressEventSchema, type ComputeProgressEvent } from '../shared/schemas/variant';
 import { useFamilyProgress } from '../src/composables/useFamilyProgress';
 
 class StandInEventSource {

@@ -88,5 +88,6 @@ export const seedRuns = pgTable('seed_runs', {
 export type PresetRow = typeof presets.$inferSelect;
 
 export * from './tables/families';
+export * from './tables/mail';
 export * from './tables/sales';
 export * from './tables/jobs';

@@ -5,8 +5,9 @@
  */
 import { eq } from 'drizzle-orm';
 import type { Person } from '../../shared/schemas/auth';
-import type { FamilyCreate, GateWarningCode } from '../../shared/schemas/family';
-import { FamilyCreateSchema } from '../../shared/schemas/family';
+import type { FamilyCreate } from '../../shared/schemas/familySpec';
+import type { GateWarningCode } from '../../shared/schemas/gate';
+import { FamilyCreateSchema } from '../../shared/schemas/familySpec';
 import { FARM_PRINTER_ID } from '../../shared/production/defaults';
 import { computeRevision } from '../jobs/computeRevision';
 import { computeVariantGeometry } from '../jobs/variantGeometry';

@@ -1,6 +1,6 @@
 import { EventEmitter } from 'node:events';
 import { eq, sql } from 'drizzle-orm';
-import type { ComputeProgressEvent, ComputeState } from '../../shared/schemas/family';
+import type { ComputeProgressEvent, ComputeState } from '../../shared/schemas/variant';
 import type { AppContext } from '../context';
 import { familyRevisions, familyVariants } from '../db/schema';
 import { computeRevision } from './computeRevision';

@@ -1,5 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm';
-import type { VariantVerdict } from '../../shared/schemas/family';
+import type { VariantVerdict } from '../../shared/schemas/variant';
 import type { Db } from '../db/client';
 import { familyRevisions, familyVariants, families } from '../db/schema';
 import { loadMaterials, loadPrinters } from '../services/familyProduction';

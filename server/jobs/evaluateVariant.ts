@@ -5,7 +5,7 @@ import { estimateProduction } from '../../shared/production/estimateProduction';
 import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
-import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/family';
+import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/variant';
 import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import type { VariantGeometry } from './variantGeometry';

@@ -1,6 +1,6 @@
 /** `/api/catalogue`: published variants for sales, catalogue managers and designers. */
 import { Router } from 'express';
-import { CatalogueQuerySchema, type CatalogueQuery } from '../../shared/schemas/family';
+import { CatalogueQuerySchema, type CatalogueQuery } from '../../shared/schemas/catalogue';
 import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { parsedQuery, validate } from '../http/validate';

@@ -3,24 +3,23 @@ import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import {
-  AcknowledgementsCreateSchema,
   FamilyCreateSchema,
-  FamilyListQuerySchema,
   FamilyUpdateSchema,
-  PHOTO_MAX_BYTES,
+  type FamilyAction,
+  type FamilyUpdate,
+} from '../../shared/schemas/familySpec';
+import { VariantListQuerySchema, type VariantListQuery } from '../../shared/schemas/variant';
+import {
   ReturnDecisionSchema,
   ReviewDecisionSchema,
   RevisionDiffQuerySchema,
   TransitionSchema,
-  VariantListQuerySchema,
-  type AcknowledgementsCreate,
-  type FamilyAction,
-  type FamilyListQuery,
-  type FamilyUpdate,
   type ReturnDecision,
   type ReviewDecision,
-  type VariantListQuery,
-} from '../../shared/schemas/family';
+} from '../../shared/schemas/review';
+import { AcknowledgementsCreateSchema, type AcknowledgementsCreate } from '../../shared/schemas/gate';
+import { PHOTO_MAX_BYTES } from '../../shared/schemas/photo';
+import { FamilyListQuerySchema, type FamilyListQuery } from '../../shared/schemas/family';
 import { FAMILY_TRANSITIONS } from '../../shared/families/familyWorkflow';
 import type { AppContext } from '../context';
 import { requireRole, signedInPerson } from '../auth/requireRole';

@@ -1,6 +1,6 @@
 /** Spec sheets as PDF: `GET /api/variants/:sku/spec-sheet.pdf` and `GET /api/families/:id/spec-sheet.pdf`. */
 import { Router } from 'express';
-import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import { FamilyIdParamsSchema, SkuParamsSchema } from '../../shared/schemas/sales';
 import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';

@@ -3,7 +3,9 @@
  * or a quote needs. `listCatalogueVariants` and `getVariantBySku` are the entry points other features use.
  */
 import { and, asc, eq, inArray, isNotNull } from 'drizzle-orm';
-import type { Acknowledgement, CatalogueQuery, CatalogueVariant, Photo } from '../../shared/schemas/family';
+import type { Acknowledgement } from '../../shared/schemas/gate';
+import type { Photo } from '../../shared/schemas/photo';
+import type { CatalogueQuery, CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { AppContext } from '../context';
 import { familyPhotos, familyRevisions, familyVariants, families, type FamilyVariantRow } from '../db/schema';
 import { acknowledgementsOf, actorsById, toPhoto } from './familyView';

@@ -5,21 +5,11 @@ import { FAMILY_TRANSITIONS, transitionRefusal } from '../../shared/families/fam
 import { buildVariantMatrix } from '../../shared/families/variantMatrix';
 import { revisionDiff } from '../../shared/families/revisionDiff';
 import type { Person } from '../../shared/schemas/auth';
-import type {
-  AcknowledgementsCreate,
-  AuditListResponse,
-  ComputeStatus,
-  Family,
-  FamilyAction,
-  FamilyCreateSchema,
-  FamilyListQuery,
-  FamilySummary,
-  FamilyUpdate,
-  ReviewComment,
-  RevisionDiff,
-  VariantListQuery,
-  VariantListResponse,
-} from '../../shared/schemas/family';
+import type { FamilyAction, FamilyCreateSchema, FamilyUpdate } from '../../shared/schemas/familySpec';
+import type { ComputeStatus, VariantListQuery, VariantListResponse } from '../../shared/schemas/variant';
+import type { AuditListResponse, ReviewComment, RevisionDiff } from '../../shared/schemas/review';
+import type { AcknowledgementsCreate } from '../../shared/schemas/gate';
+import type { Family, FamilyListQuery, FamilySummary } from '../../shared/schemas/family';
 import { findTemplate, parseParams } from '../../templates/index';
 import type { AppContext } from '../context';
 import type { Queryable } from '../db/client';

@@ -1,7 +1,7 @@
 /** Checks a family's content against its template, the printers and the materials: 400 naming the field. */
 import { findSkuClashes } from '../../shared/families/sku';
 import { variantCount } from '../../shared/families/variantMatrix';
-import { FAMILY_MAX_VARIANTS, type Axis, type AxisValue } from '../../shared/schemas/family';
+import { FAMILY_MAX_VARIANTS, type Axis, type AxisValue } from '../../shared/schemas/familySpec';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import { findTemplate, parseParams, TemplateParamError } from '../../templates/index';
 import { badRequest, type HttpError } from '../http/HttpError';

@@ -3,17 +3,12 @@ import { asc, desc, eq, inArray } from 'drizzle-orm';
 import { allowedActions } from '../../shared/families/familyWorkflow';
 import { evaluateFamilyGate } from '../../shared/families/familyGate';
 import type { Person } from '../../shared/schemas/auth';
-import type {
-  Acknowledgement,
-  Actor,
-  ComputeStatus,
-  Family,
-  FamilyAction,
-  FamilyGate,
-  FamilySummary,
-  Photo,
-  Variant,
-} from '../../shared/schemas/family';
+import type { FamilyAction } from '../../shared/schemas/familySpec';
+import type { ComputeStatus, Variant } from '../../shared/schemas/variant';
+import type { Actor } from '../../shared/schemas/review';
+import type { Acknowledgement, FamilyGate } from '../../shared/schemas/gate';
+import type { Photo } from '../../shared/schemas/photo';
+import type { Family, FamilySummary } from '../../shared/schemas/family';
 import { findTemplate } from '../../templates/index';
 import type { Queryable } from '../db/client';
 import {

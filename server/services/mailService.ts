@@ -1,6 +1,6 @@
 /** E-mail of one running app: the fake SMTP server, the outbox sender, and the admin listing. */
 import { desc } from 'drizzle-orm';
-import type { MailMessagesResponse } from '../../shared/schemas/family';
+import type { MailMessagesResponse } from '../../shared/schemas/mail';
 import type { AppContext } from '../context';
 import { mailMessages, mailOutbox } from '../db/schema';
 import { FakeSmtpServer } from '../mail/FakeSmtpServer';

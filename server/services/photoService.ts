@@ -2,7 +2,7 @@
 import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import sharp, { type OutputInfo } from 'sharp';
-import { PHOTO_NORMAL_PX, PHOTO_THUMB_PX, type Photo } from '../../shared/schemas/family';
+import { PHOTO_NORMAL_PX, PHOTO_THUMB_PX, type Photo } from '../../shared/schemas/photo';
 import type { Person } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
 import { familyPhotos, families } from '../db/schema';

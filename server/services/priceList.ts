@@ -1,7 +1,7 @@
 /** The price list of published variants, as rows, as CSV (RFC 4180) and as an .xlsx workbook. */
 import ExcelJS from 'exceljs';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
-import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { PriceListRow } from '../../shared/schemas/sales';
 import { csvText } from '../csv/csvText';
 import { productName, STUDIO_NAME } from './specSheet';

@@ -1,7 +1,7 @@
 /** Wholesale quotes: the figures from a published variant, the sales settings and the farm; saved and read back. */
 import { desc, eq } from 'drizzle-orm';
 import { estimateFarmCapacity } from '../../shared/production/estimateFarmCapacity';
-import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { Quote, QuoteCreate, QuoteSummary } from '../../shared/schemas/quote';
 import type { SalesSettings } from '../../shared/schemas/sales';
 import type { Db } from '../db/client';

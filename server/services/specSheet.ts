@@ -5,7 +5,7 @@ import { SPECIES } from '../../shared/birdfit/species';
 import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
-import type { CatalogueVariant } from '../../shared/schemas/family';
+import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { Material } from '../../shared/schemas/production';
 import { assessOutdoor } from '../../shared/thermal/assessOutdoor';

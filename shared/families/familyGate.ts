@@ -1,12 +1,5 @@
-import type {
-  Acknowledgement,
-  ComputeState,
-  FamilyGate,
-  GateBlocker,
-  GateWarning,
-  GateWarningCode,
-  Variant,
-} from '../schemas/family';
+import type { ComputeState, Variant } from '../schemas/variant';
+import type { Acknowledgement, FamilyGate, GateBlocker, GateWarning, GateWarningCode } from '../schemas/gate';
 import { exceedsHeatDeflection, OUTDOOR_HEAT_SOURCE } from './outdoorHeat';
 import { needsAcknowledgement } from './variantVerdict';
 

@@ -1,5 +1,5 @@
 import type { Role } from '../schemas/auth';
-import type { FamilyAction, FamilyState } from '../schemas/family';
+import type { FamilyAction, FamilyState } from '../schemas/familySpec';
 
 /** One workflow transition: the states it starts from, where it goes and who may take it. */
 export interface Transition {

@@ -1,4 +1,5 @@
-import type { Axis, AxisValue, FamilySpec, RevisionDiff } from '../schemas/family';
+import type { Axis, AxisValue, FamilySpec } from '../schemas/familySpec';
+import type { RevisionDiff } from '../schemas/review';
 import { variantCount } from './variantMatrix';
 
 /** What the diff reads of a revision. */

@@ -1,4 +1,4 @@
-import { SKU_PREFIX, type Axis, type AxisValue } from '../schemas/family';
+import { SKU_PREFIX, type Axis, type AxisValue } from '../schemas/familySpec';
 
 /** Letters or digits a word value keeps in its SKU segment. */
 export const SKU_WORD_CHARS = 4;

@@ -1,4 +1,4 @@
-import type { Axis, AxisValue, VariantAttributes } from '../schemas/family';
+import type { Axis, AxisValue, VariantAttributes } from '../schemas/familySpec';
 import { skuFor } from './sku';
 
 /** One cell of the variant matrix, before anything is computed. */

@@ -1,5 +1,5 @@
 import type { BirdFitWarning } from '../schemas/birdfit';
-import type { VariantReport, VariantVerdict } from '../schemas/family';
+import type { VariantReport, VariantVerdict } from '../schemas/variant';
 import { outdoorHeatReasons } from './outdoorHeat';
 
 /** Bird-fit severities that must be acknowledged in writing before a family can be submitted. */

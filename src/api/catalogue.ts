@@ -1,4 +1,4 @@
-import { CatalogueResponseSchema, type CatalogueQuery, type CatalogueVariant } from '../../shared/schemas/family';
+import { CatalogueResponseSchema, type CatalogueQuery, type CatalogueVariant } from '../../shared/schemas/catalogue';
 import { api } from './client';
 
 /**

@@ -1,24 +1,26 @@
+import { type FamilyAction, type FamilyCreate, type FamilyUpdate } from '../../shared/schemas/familySpec';
+import {
+  ComputeStatusSchema,
+  VariantListResponseSchema,
+  type ComputeStatus,
+  type VariantListResponse,
+} from '../../shared/schemas/variant';
 import {
   AuditListResponseSchema,
-  ComputeStatusSchema,
-  FamilyListResponseSchema,
-  FamilyResponseSchema,
   RevisionDiffSchema,
-  VariantListResponseSchema,
-  type AcknowledgementsCreate,
-  type ComputeStatus,
-  type Family,
-  type FamilyAction,
   type FamilyAuditEvent,
-  type FamilyCreate,
-  type FamilyListQuery,
-  type FamilySummary,
-  type FamilyUpdate,
   type ReturnDecision,
   type ReviewDecision,
   type RevisionDiff,
   type Transition,
-  type VariantListResponse,
+} from '../../shared/schemas/review';
+import { type AcknowledgementsCreate } from '../../shared/schemas/gate';
+import {
+  FamilyListResponseSchema,
+  FamilyResponseSchema,
+  type Family,
+  type FamilyListQuery,
+  type FamilySummary,
 } from '../../shared/schemas/family';
 import { api } from './client';
 

@@ -1,4 +1,4 @@
-import { MailMessagesResponseSchema, type MailMessagesResponse } from '../../shared/schemas/family';
+import { MailMessagesResponseSchema, type MailMessagesResponse } from '../../shared/schemas/mail';
 import { api } from './client';
 
 /** Messages the development mail server captured and the outgoing queue, newest first (admin). */

@@ -1,5 +1,5 @@
 import { ApiErrorSchema } from '../../shared/schemas/error';
-import { PHOTO_MAX_BYTES, PhotoResponseSchema, type Photo } from '../../shared/schemas/family';
+import { PHOTO_MAX_BYTES, PhotoResponseSchema, type Photo } from '../../shared/schemas/photo';
 import { ApiError } from './ApiError';
 
 /** Content types the server accepts for photos (it checks the bytes, this only spares a pointless upload). */

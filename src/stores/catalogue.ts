@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia';
 import { ref } from 'vue';
-import type { CatalogueQuery, CatalogueVariant } from '../../shared/schemas/family';
+import type { CatalogueQuery, CatalogueVariant } from '../../shared/schemas/catalogue';
 import { listCatalogue } from '../api/catalogue';
 
 /** The published catalogue as sales and catalogue managers browse it. */

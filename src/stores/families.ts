@@ -1,14 +1,8 @@
 import { defineStore } from 'pinia';
 import { ref } from 'vue';
-import type {
-  AcknowledgementsCreate,
-  Family,
-  FamilyAction,
-  FamilyCreate,
-  FamilyListQuery,
-  FamilySummary,
-  FamilyUpdate,
-} from '../../shared/schemas/family';
+import type { FamilyAction, FamilyCreate, FamilyUpdate } from '../../shared/schemas/familySpec';
+import type { AcknowledgementsCreate } from '../../shared/schemas/gate';
+import type { Family, FamilyListQuery, FamilySummary } from '../../shared/schemas/family';
 import * as familiesApi from '../api/families';
 
 /** Variant families: the list the person may see and the family open on screen, with its workflow actions. */

@@ -1,6 +1,5 @@
 /**
- * Tables of variant families (revisions, variants, acknowledgements, photos) and of e-mail (outbox and the messages
- * the local fake SMTP server captured). Re-exported from ../schema.ts.
+ * Tables of variant families (revisions, variants, acknowledgements, photos). Re-exported from ../schema.ts.
  */
 import {
   doublePrecision,
@@ -13,18 +12,10 @@ import {
   timestamp,
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
-import type {
-  Axis,
-  AxisValue,
-  ComputeState,
-  FamilyState,
-  GateWarningCode,
-  ReviewComment,
-  VariantAttributes,
-  VariantCost,
-  VariantReport,
-  VariantVerdict,
-} from '../../../shared/schemas/family';
+import type { Axis, AxisValue, FamilyState, VariantAttributes } from '../../../shared/schemas/familySpec';
+import type { ComputeState, VariantCost, VariantReport, VariantVerdict } from '../../../shared/schemas/variant';
+import type { ReviewComment } from '../../../shared/schemas/review';
+import type { GateWarningCode } from '../../../shared/schemas/gate';
 import type { BirdFitWarning, Region } from '../../../shared/schemas/birdfit';
 import { newId } from '../newId';
 import { people } from './people';
@@ -160,34 +151,6 @@ export const familyPhotos = pgTable(
   },
   (table) => [index('family_photos_family_idx').on(table.familyId)],
 );
-
-/** Outgoing e-mail, queued in the same transaction as the workflow step and retried with backoff. */
-export const mailOutbox = pgTable(
-  'mail_outbox',
-  {
-    id: serial('id').primaryKey(),
-    to: text('to').array().notNull(),
-    subject: text('subject').notNull(),
-    text: text('text').notNull(),
-    status: text('status').$type<'pending' | 'sent' | 'failed'>().notNull().default('pending'),
-    attempts: integer('attempts').notNull().default(0),
-    lastError: text('last_error'),
-    nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
-    sentAt: timestamp('sent_at', { withTimezone: true }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  },
-  (table) => [index('mail_outbox_status_next_idx').on(table.status, table.nextAttemptAt)],
-);
-
-/** Messages the local fake SMTP server received (development and tests). */
-export const mailMessages = pgTable('mail_messages', {
-  id: serial('id').primaryKey(),
-  from: text('from').notNull(),
-  to: text('to').array().notNull(),
-  subject: text('subject').notNull(),
-  text: text('text').notNull(),
-  receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
-});
 
 /** A family row. */
 export type FamilyRow = typeof families.$inferSelect;

@@ -1,4 +1,4 @@
-import { AttributeValueSchema, type Axis, type AxisValue } from '../../../shared/schemas/family';
+import { AttributeValueSchema, type Axis, type AxisValue } from '../../../shared/schemas/familySpec';
 import type { ParameterDescription } from '../../../templates/types';
 
 /**
