@@ -15,7 +15,7 @@ import { seedProduction } from '../server/db/seedProduction';
 import { hashPassword } from '../server/auth/password';
 import { EnvSchema } from '../server/env';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
-import { createFamily } from '../server/services/familyService';
+import { createFamily } from '../server/services/families/familyCommands';
 
 function time<T>(fn: () => T): { value: T; ms: number } {
   const started = performance.now();

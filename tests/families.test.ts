@@ -12,7 +12,7 @@ import { type Variant } from '../shared/schemas/variant';
 import { type Family } from '../shared/schemas/family';
 import { findTemplate, generate } from '../templates/index';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
-import { currentRevisionId } from '../server/services/familyService';
+import { currentRevisionId } from '../server/services/families/familyQueries';
 import { acknowledgeAll, computeNow, createTestFamily, familyInState, smallFamilyBody } from './familiesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { manifoldReport } from './templates.meshCheck';

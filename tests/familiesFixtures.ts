@@ -6,7 +6,7 @@ import sharp from 'sharp';
 import type { FamilyCreate, FamilyState } from '../shared/schemas/familySpec';
 import type { Family } from '../shared/schemas/family';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
-import { currentRevisionId } from '../server/services/familyService';
+import { currentRevisionId } from '../server/services/families/familyQueries';
 import type { TestApp } from './setup/testApp';
 
 let codeCounter = 0;

@@ -12,14 +12,10 @@ import { FARM_PRINTER_ID } from '../../shared/production/defaults';
 import { computeRevision } from '../jobs/computeRevision';
 import { computeVariantGeometry } from '../jobs/variantGeometry';
 import { EnvSchema } from '../env';
-import {
-  acknowledgeWarnings,
-  createFamily,
-  currentRevisionId,
-  getFamily,
-  transitionFamily,
-  type FamilyContext,
-} from '../services/familyService';
+import { acknowledgeWarnings, createFamily } from '../services/families/familyCommands';
+import { currentRevisionId, getFamily } from '../services/families/familyQueries';
+import { transitionFamily } from '../services/families/familyTransitions';
+import type { FamilyContext } from '../services/families/loadFamily';
 import type { Db } from './client';
 import { people } from './schema';
 import { DEMO_PEOPLE } from './seedDemo';

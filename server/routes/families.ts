@@ -26,7 +26,17 @@ import { requireRole, signedInPerson } from '../auth/requireRole';
 import { badRequest, HttpError } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { familyJobs } from '../jobs/FamilyJobRunner';
-import * as families from '../services/familyService';
+import { acknowledgeWarnings, createFamily, updateFamily } from '../services/families/familyCommands';
+import { cancelCompute, startCompute } from '../services/families/familyCompute';
+import {
+  currentRevisionId,
+  diffRevisions,
+  familyAudit,
+  getFamily,
+  listFamilies,
+  listVariants,
+} from '../services/families/familyQueries';
+import { transitionFamily } from '../services/families/familyTransitions';
 import { addPhoto } from '../services/photoService';
 
 /** Route parameter `:id`. */
@@ -66,34 +76,34 @@ export function familiesRouter(ctx: AppContext): Router {
   const idOf = (res: Parameters<RequestHandler>[1]): string => parsedParams<{ id: string }>(res).id;
 
   router.get('/', readers, validate({ query: FamilyListQuerySchema }), async (_req, res) => {
-    res.json({ families: await families.listFamilies(ctx, parsedQuery<FamilyListQuery>(res)) });
+    res.json({ families: await listFamilies(ctx, parsedQuery<FamilyListQuery>(res)) });
   });
 
   router.post('/', designers, validate({ body: FamilyCreateSchema }), async (_req, res) => {
-    const family = await families.createFamily(ctx, signedInPerson(res), parsedBody(res));
+    const family = await createFamily(ctx, signedInPerson(res), parsedBody(res));
     res.status(201).json({ family });
   });
 
   router.get('/:id', readers, idParams, async (_req, res) => {
-    res.json({ family: await families.getFamily(ctx, idOf(res), signedInPerson(res)) });
+    res.json({ family: await getFamily(ctx, idOf(res), signedInPerson(res)) });
   });
 
   router.patch('/:id', designers, validate({ params: IdParamsSchema, body: FamilyUpdateSchema }), async (_req, res) => {
-    const family = await families.updateFamily(ctx, signedInPerson(res), idOf(res), parsedBody<FamilyUpdate>(res));
+    const family = await updateFamily(ctx, signedInPerson(res), idOf(res), parsedBody<FamilyUpdate>(res));
     res.json({ family });
   });
 
   router.post('/:id/compute', designers, idParams, async (_req, res) => {
-    res.status(202).json(await families.startCompute(ctx, signedInPerson(res), idOf(res)));
+    res.status(202).json(await startCompute(ctx, signedInPerson(res), idOf(res)));
   });
 
   router.post('/:id/cancel', designers, idParams, async (_req, res) => {
-    res.json(await families.cancelCompute(ctx, signedInPerson(res), idOf(res)));
+    res.json(await cancelCompute(ctx, signedInPerson(res), idOf(res)));
   });
 
   router.get('/:id/progress', readers, idParams, async (req, res) => {
     const id = idOf(res);
-    const row = { revisionId: await families.currentRevisionId(ctx, id) };
+    const row = { revisionId: await currentRevisionId(ctx, id) };
     const jobs = familyJobs(ctx);
     res.writeHead(200, {
       'Content-Type': 'text/event-stream; charset=utf-8',
@@ -131,7 +141,7 @@ export function familiesRouter(ctx: AppContext): Router {
     readers,
     validate({ params: IdParamsSchema, query: VariantListQuerySchema }),
     async (_req, res) => {
-      res.json(await families.listVariants(ctx, idOf(res), parsedQuery<VariantListQuery>(res)));
+      res.json(await listVariants(ctx, idOf(res), parsedQuery<VariantListQuery>(res)));
     },
   );
 
@@ -140,7 +150,7 @@ export function familiesRouter(ctx: AppContext): Router {
     designers,
     validate({ params: IdParamsSchema, body: AcknowledgementsCreateSchema }),
     async (_req, res) => {
-      const family = await families.acknowledgeWarnings(
+      const family = await acknowledgeWarnings(
         ctx,
         signedInPerson(res),
         idOf(res),
@@ -153,7 +163,7 @@ export function familiesRouter(ctx: AppContext): Router {
   const step = (action: FamilyAction) => async (_req: unknown, res: Parameters<RequestHandler>[1]) => {
     const body = parsedBody<ReviewDecision & Partial<ReturnDecision>>(res);
     const comment = action === 'return' ? body.comments : body.comment;
-    const family = await families.transitionFamily(ctx, signedInPerson(res), idOf(res), action, { ...body, comment });
+    const family = await transitionFamily(ctx, signedInPerson(res), idOf(res), action, { ...body, comment });
     res.json({ family });
   };
   const bodies: Record<FamilyAction, z.ZodType> = {
@@ -174,12 +184,12 @@ export function familiesRouter(ctx: AppContext): Router {
     validate({ params: IdParamsSchema, query: RevisionDiffQuerySchema }),
     async (_req, res) => {
       const { from, to } = parsedQuery<{ from: number; to: number }>(res);
-      res.json(await families.diffRevisions(ctx, idOf(res), from, to));
+      res.json(await diffRevisions(ctx, idOf(res), from, to));
     },
   );
 
   router.get('/:id/audit', readers, idParams, async (_req, res) => {
-    res.json(await families.familyAudit(ctx, idOf(res)));
+    res.json(await familyAudit(ctx, idOf(res)));
   });
 
   router.post('/:id/photos', designers, idParams, photoUpload, async (req, res) => {

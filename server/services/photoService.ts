@@ -9,7 +9,7 @@ import { familyPhotos, families } from '../db/schema';
 import { fileKey, readAll, type StoredFile } from '../storage/FileStore';
 import { badRequest, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
-import { familySubject } from './familyService';
+import { familySubject } from './families/loadFamily';
 import { toPhoto } from './familyView';
 
 /** Image types a photo may be, recognised by their first bytes. */

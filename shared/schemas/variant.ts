@@ -123,6 +123,8 @@ export type Variant = z.infer<typeof VariantSchema>;
 
 /** Sort keys of the variant table. */
 export const VariantSortSchema = z.enum(['index', 'sku', 'verdict', 'costCents', 'supportVolumeMm3', 'printTimeMin']);
+/** A sort key of the variant table (see {@link VariantSortSchema}). */
+export type VariantSort = z.infer<typeof VariantSortSchema>;
 
 /** Query of `GET /api/families/:id/variants`. */
 export const VariantListQuerySchema = z.object({
