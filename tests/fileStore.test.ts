@@ -13,7 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fileKey, readAll, type FileStore } from '../server/storage/FileStore';
 import { LocalFileStore } from '../server/storage/LocalFileStore';
 import { openFileStore } from '../server/storage/openFileStore';
-import { PHOTO_NORMAL_PX } from '../shared/schemas/family';
+import { PHOTO_NORMAL_PX } from '../shared/schemas/photo';
 import { startFakeS3, type FakeS3 } from './setup/fakeS3';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
