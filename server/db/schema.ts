@@ -91,3 +91,4 @@ export * from './tables/families';
 export * from './tables/mail';
 export * from './tables/sales';
 export * from './tables/jobs';
+export * from './tables/orders';

@@ -17,6 +17,7 @@ export const DEMO_PEOPLE: ReadonlyArray<{ email: string; name: string; roles: Ro
   { email: 'maren@fernhollow.test', name: 'Maren Hale', roles: ['designer'] },
   { email: 'tobias@fernhollow.test', name: 'Tobias Reyne', roles: ['catalogue_manager'] },
   { email: 'ada@fernhollow.test', name: 'Ada Quill', roles: ['sales'] },
+  { email: 'ines@fernhollow.test', name: 'Ines Marlow', roles: ['operations'] },
   { email: 'joss@fernhollow.test', name: 'Joss Whitby', roles: ['admin'] },
 ];
 

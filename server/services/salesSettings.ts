@@ -3,6 +3,7 @@ import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { salesSettings } from '../db/schema';
 import { SalesSettingsSchema, type SalesSettings } from '../../shared/schemas/sales';
+import { DEFAULT_SHOP_SETTINGS } from '../../shared/shop/defaultShopSettings';
 
 const ROW_ID = 'studio';
 
@@ -49,6 +50,7 @@ export const DEFAULT_SALES_SETTINGS: SalesSettings = {
     { minQuantity: 100, discountPct: 10 },
     { minQuantity: 500, discountPct: 15 },
   ],
+  shop: DEFAULT_SHOP_SETTINGS,
 };
 
 /** Sales settings with who changed them last and when. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 /** Every role a person can hold; a person may hold several. */
-export const ROLES = ['designer', 'catalogue_manager', 'sales', 'admin'] as const;
+export const ROLES = ['designer', 'catalogue_manager', 'sales', 'operations', 'admin'] as const;
 
 /** One role. */
 export const RoleSchema = z.enum(ROLES);
@@ -13,6 +13,7 @@ export const ROLE_LABELS: Record<Role, string> = {
   designer: 'Designer',
   catalogue_manager: 'Catalogue manager',
   sales: 'Sales',
+  operations: 'Operations',
   admin: 'Admin',
 };
 

@@ -1,5 +1,7 @@
 import { z } from 'zod';
+import { DEFAULT_SHOP_SETTINGS } from '../shop/defaultShopSettings';
 import { DimDivisorSchema, PackagingRulesSchema } from './shipping';
+import { ShopSettingsSchema } from './shop';
 
 /** The print farm as quotes see it: how many machines, for how long a day, and how often a plate fails. */
 export const FarmSettingsSchema = z.object({
@@ -25,7 +27,10 @@ export const QuantityBreakSchema = z.object({
 /** A quantity break (see {@link QuantityBreakSchema}). */
 export type QuantityBreak = z.infer<typeof QuantityBreakSchema>;
 
-/** Settings of the sales area: shipping divisors with their dates, packaging, farm and quantity breaks. */
+/**
+ * Settings of the sales area: shipping divisors with their dates, packaging, farm, quantity breaks and the shop
+ * (currency, VAT, shipping zones × weight bands; defaults for settings saved before the shop existed).
+ */
 export const SalesSettingsSchema = z.object({
   dimDivisors: z.array(DimDivisorSchema).min(1).max(20),
   packaging: PackagingRulesSchema,
@@ -37,6 +42,7 @@ export const SalesSettingsSchema = z.object({
     .refine((breaks) => breaks.every((b, i) => i === 0 || b.minQuantity > breaks[i - 1].minQuantity), {
       message: 'quantityBreaks must be in ascending order of minQuantity',
     }),
+  shop: ShopSettingsSchema.default(DEFAULT_SHOP_SETTINGS),
 });
 /** Sales settings (see {@link SalesSettingsSchema}). */
 export type SalesSettings = z.infer<typeof SalesSettingsSchema>;

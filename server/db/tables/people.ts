@@ -36,7 +36,7 @@ export const people = pgTable(
   (table) => [
     check(
       'people_roles_known',
-      sql`cardinality(${table.roles}) > 0 and ${table.roles} <@ array['designer','catalogue_manager','sales','admin']::text[]`,
+      sql`cardinality(${table.roles}) > 0 and ${table.roles} <@ array['designer','catalogue_manager','sales','operations','admin']::text[]`,
     ),
   ],
 );

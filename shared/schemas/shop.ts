@@ -1,0 +1,170 @@
+/** Shapes of the public shop: its settings (currency, VAT, shipping table), the ship-to address and checkout. */
+import { z } from 'zod';
+import { isValidCountryCode } from '../shop/countryCodes';
+
+/** A currency as ISO 4217 letters, e.g. `EUR`. */
+export const CurrencySchema = z.string().regex(/^[A-Z]{3}$/, 'currency must be three capital letters such as EUR');
+
+/** One shipping zone: the countries it covers and the price of each weight band, VAT included. */
+export const ShippingZoneSchema = z.object({
+  id: z.string().trim().min(1).max(40),
+  label: z.string().trim().min(1).max(80),
+  /** ISO 3166-1 alpha-2 codes; an empty list means every country no other zone names. */
+  countries: z.array(z.string().length(2)).max(300),
+  /** Price for each weight band (same order as `weightBandsKg`), in minor units of the shop currency. */
+  ratesMinor: z.array(z.number().int().nonnegative()).min(1).max(20),
+});
+/** A shipping zone (see {@link ShippingZoneSchema}). */
+export type ShippingZone = z.infer<typeof ShippingZoneSchema>;
+
+/** The shipping table: zones × weight bands, priced by billable weight (heavier of actual and dimensional). */
+export const ShippingTableSchema = z
+  .object({
+    /** Which of the sales settings' dimensional-weight divisors applies (its id). */
+    divisorId: z.string().trim().min(1).max(40),
+    /** Upper bound of each band, ascending; a parcel heavier than the last band cannot be shipped. */
+    weightBandsKg: z.array(z.number().positive().max(1000)).min(1).max(20),
+    zones: z.array(ShippingZoneSchema).min(1).max(30),
+  })
+  .superRefine((table, ctx) => {
+    table.weightBandsKg.forEach((kg, i) => {
+      if (i > 0 && kg <= table.weightBandsKg[i - 1])
+        ctx.addIssue({ code: 'custom', path: ['weightBandsKg', i], message: 'weight bands must go up' });
+    });
+    table.zones.forEach((zone, i) => {
+      if (zone.ratesMinor.length !== table.weightBandsKg.length)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['zones', i, 'ratesMinor'],
+          message: `zone ${zone.label} needs one price for each of the ${table.weightBandsKg.length} weight bands`,
+        });
+    });
+  });
+/** The shipping table (see {@link ShippingTableSchema}). */
+export type ShippingTable = z.infer<typeof ShippingTableSchema>;
+
+/** How the shop sells: currency, VAT, how long a checkout stays open, the shipping table. */
+export const ShopSettingsSchema = z.object({
+  currency: CurrencySchema,
+  /** VAT rate charged on goods and shipping; 0 where the studio does not charge VAT. */
+  vatRatePct: z.number().min(0).max(50),
+  /** Show shop prices with VAT included (consumers) or before VAT with "+ VAT" (the charge is the same). */
+  showPricesWithVat: z.boolean(),
+  /** An unpaid order expires after this long at the payment page. */
+  checkoutExpiryMin: z
+    .number()
+    .int()
+    .min(30)
+    .max(24 * 60),
+  shipping: ShippingTableSchema,
+});
+/** Shop settings (see {@link ShopSettingsSchema}). */
+export type ShopSettings = z.infer<typeof ShopSettingsSchema>;
+
+/** Text a person types: trimmed, with a length limit and a message that names the field in words. */
+function text(label: string, max: number, min = 1) {
+  return z
+    .string(`${label} is required`)
+    .trim()
+    .min(min, `${label} is required`)
+    .max(max, `${label} is at most ${max} characters`);
+}
+
+/** Where an order is shipped. */
+export const ShipToSchema = z.object({
+  name: text('name', 120),
+  line1: text('address line 1', 120),
+  line2: z.string().trim().max(120, 'address line 2 is at most 120 characters').default(''),
+  city: text('town or city', 80),
+  /** County, state or province, where the country uses one. */
+  region: z.string().trim().max(80, 'region is at most 80 characters').default(''),
+  postalCode: text('postcode', 16).regex(
+    /^[A-Za-z0-9][A-Za-z0-9 -]{0,15}$/,
+    'postcode has characters a postcode never has',
+  ),
+  country: z
+    .string('country is required')
+    .trim()
+    .toUpperCase()
+    .refine(isValidCountryCode, 'country must be chosen from the list'),
+});
+/** A shipping address (see {@link ShipToSchema}). */
+export type ShipTo = z.infer<typeof ShipToSchema>;
+
+/** Most units of one SKU in one order. */
+export const MAX_LINE_QUANTITY = 50;
+/** Most lines in one order. */
+export const MAX_ORDER_LINES = 30;
+
+/** One cart line as the browser sends it: only the SKU and how many; prices are looked up on the server. */
+export const CartItemSchema = z.object({
+  sku: z.string('SKU is required').trim().min(1, 'SKU is required').max(80),
+  quantity: z
+    .number('quantity must be a whole number')
+    .int('quantity must be a whole number')
+    .min(1, 'quantity must be at least 1')
+    .max(MAX_LINE_QUANTITY, `quantity must be at most ${MAX_LINE_QUANTITY}`),
+});
+/** A cart line (see {@link CartItemSchema}). */
+export type CartItem = z.infer<typeof CartItemSchema>;
+
+/** E-mail of a customer. */
+export const CustomerEmailSchema = z
+  .string('e-mail is required')
+  .trim()
+  .toLowerCase()
+  .max(254, 'e-mail is at most 254 characters')
+  .pipe(z.email('e-mail is not a valid address'));
+
+/** Body of `POST /api/shop/checkout` (and of the quote before it). Any price or total the browser adds is dropped. */
+export const CheckoutRequestSchema = z.object({
+  email: CustomerEmailSchema,
+  shipTo: ShipToSchema,
+  items: z
+    .array(CartItemSchema, 'items is required')
+    .min(1, 'the cart is empty')
+    .max(MAX_ORDER_LINES, `at most ${MAX_ORDER_LINES} lines in one order`),
+});
+/** Body of `POST /api/shop/checkout`. */
+export type CheckoutRequest = z.infer<typeof CheckoutRequestSchema>;
+
+/** Body of `POST /api/shop/quote`: the cart and the destination country, for the total before paying. */
+export const ShopQuoteRequestSchema = z.object({
+  country: ShipToSchema.shape.country,
+  items: CheckoutRequestSchema.shape.items,
+});
+/** Body of `POST /api/shop/quote`. */
+export type ShopQuoteRequest = z.infer<typeof ShopQuoteRequestSchema>;
+
+/** One priced line of a quote or an order. */
+export const PricedLineSchema = z.object({
+  sku: z.string(),
+  productName: z.string(),
+  quantity: z.number().int(),
+  /** Unit price charged, VAT included, minor units. */
+  unitPriceMinor: z.number().int(),
+  lineTotalMinor: z.number().int(),
+  /** Mesh content hash of the variant sold (what the farm prints). */
+  meshSha256: z.string(),
+  /** Billable weight of one unit's parcel. */
+  billableKg: z.number(),
+});
+/** A priced line (see {@link PricedLineSchema}). */
+export type PricedLine = z.infer<typeof PricedLineSchema>;
+
+/** What an order costs, computed on the server from SKUs and settings. */
+export const ShopQuoteSchema = z.object({
+  currency: z.string(),
+  lines: z.array(PricedLineSchema),
+  subtotalMinor: z.number().int(),
+  shippingMinor: z.number().int(),
+  /** VAT contained in the total. */
+  vatMinor: z.number().int(),
+  vatRatePct: z.number(),
+  totalMinor: z.number().int(),
+  /** Sum of the billable weights of the parcels (one per unit). */
+  billableKg: z.number(),
+  shippingZone: z.string(),
+});
+/** A priced cart (see {@link ShopQuoteSchema}). */
+export type ShopQuote = z.infer<typeof ShopQuoteSchema>;
