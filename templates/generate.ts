@@ -4,7 +4,7 @@ import { meshHash } from '../shared/mesh/meshHash';
 import { findTemplate } from './findTemplate';
 import { loadKernel } from './lib/kernel';
 import { meshVolumeMm3 } from './lib/meshVolumeMm3';
-import { parseParams } from './lib/parseParams';
+import { parseParams, type ParseParamsOptions } from './lib/parseParams';
 import { scoped } from './lib/scope';
 import { TemplateParamError } from './lib/TemplateParamError';
 import { toMeshParts } from './lib/toMesh';
@@ -33,12 +33,17 @@ export interface GenerateResult {
  * call this, so the same template version and parameters give the same sha256 on both.
  * @param templateId - a registered template id
  * @param rawParams - raw parameters (missing keys take defaults)
+ * @param options - the parameter just moved, so a refusal it causes names it
  * @throws TemplateParamError for an unknown template or a bad parameter; MeshValidationError if the mesh is invalid
  */
-export async function generate(templateId: string, rawParams: unknown): Promise<GenerateResult> {
+export async function generate(
+  templateId: string,
+  rawParams: unknown,
+  options: ParseParamsOptions = {},
+): Promise<GenerateResult> {
   const template = findTemplate(templateId);
   if (!template) throw new TemplateParamError('templateId', `templateId: unknown template "${templateId}"`);
-  const params = parseParams(template, rawParams);
+  const params = parseParams(template, rawParams, options);
   await loadKernel();
   const output = scoped(() => template.build(params));
   const { mesh, partTriangles } = toMeshParts(output.parts);

@@ -2,6 +2,9 @@
 export { TEMPLATES, findTemplate } from './findTemplate';
 export { describeParameters } from './lib/describeParameters';
 export { parseParams } from './lib/parseParams';
+export type { ParseParamsOptions } from './lib/parseParams';
+export { liveLimits } from './lib/liveLimits';
+export type { LiveLimit, LiveLimits } from './lib/liveLimits';
 export { TemplateParamError } from './lib/TemplateParamError';
 export { generate } from './generate';
 export type { GenerateResult } from './generate';

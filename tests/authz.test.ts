@@ -94,6 +94,13 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/templates', allowed: 'signed-in' },
   {
     method: 'post',
+    route: '/api/templates/:id/limits',
+    path: () => '/api/templates/round-pod/limits',
+    allowed: 'signed-in',
+    body: { params: { wallThicknessMm: 12 } },
+  },
+  {
+    method: 'post',
     route: '/api/exports',
     allowed: ['designer'],
     body: { templateId: 'gable-box', params: { entryHoleDiameterMm: 28 }, format: 'stl' },

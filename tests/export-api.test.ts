@@ -103,24 +103,24 @@ describe('POST /api/exports', () => {
     [
       { templateId: 'a-frame', params: { entryHoleDiameterMm: 80 }, format: 'stl' },
       'params.entryHoleDiameterMm',
-      /^entryHoleDiameterMm must be between 22 and 65 mm$/,
+      /^Entry-hole diameter must be between 22 and 65 mm$/,
     ],
     [
       { templateId: 'bark-trunk', params: { storeys: 3 }, format: 'stl' },
       'params.storeys',
-      /^storeys must be between 1 and 2$/,
+      /^Storeys must be between 1 and 2$/,
     ],
     [
       { templateId: 'gable-box', params: { trimStyle: 'thatch' }, format: 'stl' },
       'params.trimStyle',
-      /^trimStyle must be one of none, shingles, boards$/,
+      /^Trim must be one of none, shingles, boards$/,
     ],
     [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^format:/],
     // an entry the default cavity cannot hold: rejected with the range the other parameters allow, not moved
     [
       { templateId: 'round-pod', params: { holeAboveFloorMm: 200 }, format: 'stl' },
       'params.holeAboveFloorMm',
-      /^holeAboveFloorMm must be between 60 and 14\d(\.\d)? mm for a 180 × 228 mm body/,
+      /^Hole height above floor must be between 60 and 14\d(\.\d)? mm for a 180 × 228 mm body/,
     ],
   ])('answers 400 naming the field and its allowed range: %o', async (body, path, message) => {
     const res = await designer.post('/api/exports').send(body);

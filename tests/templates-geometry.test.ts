@@ -48,7 +48,7 @@ describe('overhang in the build orientation (normals computed here)', () => {
 
   it('rejects a gable roof flatter than 45°, naming the range', () => {
     const gable = findTemplate('gable-box');
-    expect(() => parseParams(gable!, { roofPitchDeg: 44 })).toThrow('roofPitchDeg must be between 45 and 65 deg');
+    expect(() => parseParams(gable!, { roofPitchDeg: 44 })).toThrow('Roof pitch must be between 45 and 65 deg');
   });
 });
 

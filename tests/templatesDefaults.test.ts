@@ -205,7 +205,7 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
     // 220 mm is the declared maximum; at the default cavity the entry would cut into the roof.
     await expect(generate(id, { holeAboveFloorMm: 220 })).rejects.toThrow(TemplateParamError);
     await expect(generate(id, { holeAboveFloorMm: 220 })).rejects.toThrow(
-      /^holeAboveFloorMm must be between 60 and \d+(\.\d)? mm for /,
+      /^Hole height above floor must be between 60 and \d+(\.\d)? mm for /,
     );
   });
 });

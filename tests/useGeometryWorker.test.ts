@@ -170,7 +170,7 @@ describe('useGeometryWorker', () => {
       requestId: worker.posted[0].requestId,
       ok: false,
       field: 'entryHoleDiameterMm',
-      message: 'entryHoleDiameterMm must be between 22 and 65 mm',
+      message: 'Entry-hole diameter must be between 22 and 65 mm',
     });
     expect(geometry.error.value).toContain('between 22 and 65 mm');
     expect(geometry.errorField.value).toBe('entryHoleDiameterMm');

@@ -1,8 +1,15 @@
-/** `/api/templates`: the parametric templates and their parameters, for the design editor and other clients. */
+/** `/api/templates`: the parametric templates, their parameters and live limits, for the editor and other clients. */
 import { Router } from 'express';
+import { z } from 'zod';
 import { requireAuth } from '../auth/requireRole';
+import { notFound } from '../http/HttpError';
+import { parsedBody, parsedParams, validate } from '../http/validate';
 import { describeParameters } from '../../templates/lib/describeParameters';
-import { TEMPLATES } from '../../templates/index';
+import { liveLimits } from '../../templates/lib/liveLimits';
+import { findTemplate, TEMPLATES } from '../../templates/index';
+import { TemplateLimitsRequestSchema, type TemplateLimitsRequest } from '../../shared/schemas/templateLimits';
+
+const TemplateIdParamsSchema = z.object({ id: z.string().min(1) });
 
 /** Builds the templates router (mounted at `/api/templates`); any signed-in person may read it. */
 export function templatesRouter(): Router {
@@ -19,5 +26,17 @@ export function templatesRouter(): Router {
       })),
     });
   });
+  // The range each numeric parameter may take given the others (see templates/lib/liveLimits.ts).
+  router.post(
+    '/:id/limits',
+    validate({ params: TemplateIdParamsSchema, body: TemplateLimitsRequestSchema }),
+    (_req, res) => {
+      const { id } = parsedParams<{ id: string }>(res);
+      const template = findTemplate(id);
+      if (!template) throw notFound(`There is no template called "${id}".`);
+      const { params } = parsedBody<TemplateLimitsRequest>(res);
+      res.json({ limits: liveLimits(template, params) });
+    },
+  );
   return router;
 }

@@ -2,6 +2,7 @@ import { onScopeDispose, ref, shallowRef } from 'vue';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import type { Region } from '../../shared/schemas/birdfit';
+import type { LiveLimits } from '../../templates/lib/liveLimits';
 import type { DesignFigures, GeometryRequest, GeometryResponse, ProductionChoice } from '../workers/geometryProtocol';
 
 /** Longest the worker may stay silent on a request before it is restarted and the design shows an error. */
@@ -41,6 +42,8 @@ export function useGeometryWorker() {
   const busy = ref(false);
   const error = ref<string | null>(null);
   const errorField = ref<string | null>(null);
+  /** Each numeric parameter's live range given the others, for the latest request (null until the first answer). */
+  const limits = shallowRef<LiveLimits | null>(null);
 
   let worker: Worker | null = null;
   let nextId = 1;
@@ -105,6 +108,10 @@ export function useGeometryWorker() {
   function settle(response: GeometryResponse): void {
     if (awaitingMesh === response.requestId && (!response.ok || response.stage === 'mesh')) awaitingMesh = null;
     const latest = response.requestId === latestId;
+    if (response.ok && response.stage === 'limits') {
+      if (latest) limits.value = response.limits;
+      return;
+    }
     if (!response.ok) {
       if (latest) fail(response.message, response.field ?? null);
     } else if (response.stage === 'mesh' && latest) {
@@ -144,12 +151,14 @@ export function useGeometryWorker() {
    * @param params - raw parameters in millimetres
    * @param production - printer, material, colour, settings and rates the figures are for
    * @param region - bird-fit region, both when omitted
+   * @param moved - the parameter the person just changed, so a refusal it causes names it
    */
   function request(
     templateId: string,
     params: Record<string, unknown>,
     production: ProductionChoice,
     region?: Region,
+    moved?: string,
   ): void {
     latestId = nextId++;
     // Plain copies: reactive proxies cannot be cloned into the worker.
@@ -159,6 +168,7 @@ export function useGeometryWorker() {
       params: { ...params },
       production: JSON.parse(JSON.stringify(production)) as ProductionChoice,
       region,
+      moved,
     };
     busy.value = true;
     pump();
@@ -169,5 +179,5 @@ export function useGeometryWorker() {
     queued = null;
   });
 
-  return { result, busy, error, errorField, request };
+  return { result, busy, error, errorField, limits, request };
 }

@@ -6,6 +6,8 @@
  */
 import '../zodJitless';
 import { generate } from '../../templates/generate';
+import { findTemplate } from '../../templates/index';
+import { liveLimits } from '../../templates/lib/liveLimits';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
 import type { GeometryRequest, GeometryResponse } from './geometryProtocol';
 import { computeDesignFigures } from './computeDesignFigures';
@@ -37,9 +39,11 @@ function yieldToMessages(): Promise<void> {
 async function handle(request: GeometryRequest): Promise<void> {
   const { requestId } = request;
   const started = performance.now();
+  const template = findTemplate(request.templateId);
+  if (template) post({ requestId, ok: true, stage: 'limits', limits: liveLimits(template, request.params) });
   let result;
   try {
-    result = await generate(request.templateId, request.params);
+    result = await generate(request.templateId, request.params, { moved: request.moved });
   } catch (err) {
     fail(requestId, err);
     return;

@@ -10,6 +10,7 @@ import type {
   ProductionEstimate,
 } from '../../shared/schemas/production';
 import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
+import type { LiveLimits } from '../../templates/lib/liveLimits';
 
 /** What the design is to be made with: the chosen printer, material and colour, and the settings and rates. */
 export interface ProductionChoice {
@@ -32,6 +33,8 @@ export interface GeometryRequest {
   production: ProductionChoice;
   /** Bird-fit region; both regions when omitted. */
   region?: Region;
+  /** The parameter the person just changed: a refusal it causes names it (see parseParams). */
+  moved?: string;
 }
 
 /** The key figures beside the model; a figure is null when its engine is not available. */
@@ -90,6 +93,13 @@ export type GeometryResponse =
       analysisMs: number;
     }
   | { requestId: number; ok: true; stage: 'skipped' }
+  | {
+      requestId: number;
+      ok: true;
+      /** Sent first, before the build: each numeric parameter's live range given the others. */
+      stage: 'limits';
+      limits: LiveLimits;
+    }
   | {
       requestId: number;
       ok: false;
