@@ -1,6 +1,7 @@
 import './zodJitless';
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
+import '../shared/schemas/humanMessages';
 import '@fontsource/fraunces/500.css';
 import '@fontsource/fraunces/600.css';
 import '@fontsource/fraunces/700.css';

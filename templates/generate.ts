@@ -42,7 +42,7 @@ export async function generate(
   options: ParseParamsOptions = {},
 ): Promise<GenerateResult> {
   const template = findTemplate(templateId);
-  if (!template) throw new TemplateParamError('templateId', `templateId: unknown template "${templateId}"`);
+  if (!template) throw new TemplateParamError('templateId', `There is no template called "${templateId}".`);
   const params = parseParams(template, rawParams, options);
   await loadKernel();
   const output = scoped(() => template.build(params));

@@ -94,7 +94,7 @@ describe('POST /api/exports', () => {
   }, 60_000);
 
   it.each([
-    [{ templateId: 'dovecote', params: {}, format: 'stl' }, 'templateId', /unknown template "dovecote"/],
+    [{ templateId: 'dovecote', params: {}, format: 'stl' }, 'templateId', /^There is no template called "dovecote"\.$/],
     [
       { templateId: 'a-frame', params: { chimney: true }, format: 'stl' },
       'params.chimney',
@@ -115,7 +115,7 @@ describe('POST /api/exports', () => {
       'params.trimStyle',
       /^Trim must be one of none, shingles, boards$/,
     ],
-    [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^format:/],
+    [{ templateId: 'gable-box', params: {}, format: 'obj' }, 'format', /^Format must be one of: stl, 3mf\.$/],
     // an entry the default cavity cannot hold: rejected with the range the other parameters allow, not moved
     [
       { templateId: 'round-pod', params: { holeAboveFloorMm: 200 }, format: 'stl' },

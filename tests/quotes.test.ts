@@ -144,12 +144,31 @@ describe('quotes API', () => {
 
   it('says when the delivery date cannot be met', async () => {
     const sales = await suite.t.agent('sales');
+    const tomorrow = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10);
     const res = await sales
       .post('/api/quotes')
-      .send({ sku: FIXTURE_SKUS[1], quantity: 5000, deliveryDate: '2020-01-01', customerName: 'Too Soon Ltd' });
+      .send({ sku: FIXTURE_SKUS[1], quantity: 5000, deliveryDate: tomorrow, customerName: 'Too Soon Ltd' });
     expect(res.status).toBe(201);
     expect(res.body.feasible).toBe(false);
-    expect(res.body.earliestDeliveryDate > '2020-01-01').toBe(true);
+    expect(res.body.earliestDeliveryDate > tomorrow).toBe(true);
+  });
+
+  it('refuses a past delivery date, a part quantity and a blank customer, in words for people', async () => {
+    const sales = await suite.t.agent('sales');
+    const cases: Array<[object, string, string]> = [
+      [{ deliveryDate: '2020-01-01' }, 'deliveryDate', 'The delivery date cannot be in the past.'],
+      [{ quantity: 2.5 }, 'quantity', 'The quantity must be a whole number.'],
+      [{ customerName: '   ' }, 'customerName', "Give the customer's name."],
+      [{ quantity: 100_001 }, 'quantity', 'One quote can cover at most 100,000 units.'],
+    ];
+    for (const [change, path, message] of cases) {
+      const res = await sales
+        .post('/api/quotes')
+        .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-01', customerName: 'Wren & Co', ...change });
+      expect(res.status, path).toBe(400);
+      expect(res.body.error.message).toBe(message);
+      expect(res.body.error.details[0].path).toBe(path);
+    }
   });
 
   it('rejects bad input naming the field, and unknown SKUs and ids', async () => {
@@ -158,16 +177,19 @@ describe('quotes API', () => {
       .post('/api/quotes')
       .send({ sku: FIXTURE_SKUS[0], quantity: 0, deliveryDate: '2099-01-01', customerName: 'X' });
     expect(zero.status).toBe(400);
-    expect(zero.body.error.message).toMatch(/^quantity:/);
+    expect(zero.body.error.message).toBe('The quantity must be at least 1.');
+    expect(zero.body.error.details[0].path).toBe('quantity');
     const date = await sales
       .post('/api/quotes')
       .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '31/12/2099', customerName: 'X' });
-    expect(date.body.error.message).toMatch(/^deliveryDate:/);
+    expect(date.body.error.message).toBe('Enter the delivery date as a date such as 2027-03-01.');
+    expect(date.body.error.details[0].path).toBe('deliveryDate');
     const sku = await sales
       .post('/api/quotes')
       .send({ sku: 'FH-NOPE-1', quantity: 3, deliveryDate: '2099-01-01', customerName: 'X' });
     expect(sku.status).toBe(400);
-    expect(sku.body.error.message).toMatch(/^sku:/);
+    expect(sku.body.error.message).toBe('There is no published product with the SKU FH-NOPE-1.');
+    expect(sku.body.error.details[0].path).toBe('sku');
     const missing = await sales.get(`/api/quotes/${crypto.randomUUID()}`);
     expect(missing.status).toBe(404);
     const notAnId = await sales.get('/api/quotes/not-an-id');

@@ -2,6 +2,7 @@
 import type { RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import { badRequest } from './HttpError';
+import '../../shared/schemas/humanMessages';
 
 /** The schemas one route validates. */
 export interface ValidateSchemas {
@@ -23,7 +24,8 @@ export interface FieldIssue {
 
 /**
  * Middleware that parses `req.body`, `req.query` and `req.params` with the given zod schemas.
- * Bad input answers 400 `bad_request` with message `<field>: <reason>` and every failing field in `details`.
+ * Bad input answers 400 `bad_request` with the first problem as a sentence naming the field by its label (see
+ * shared/schemas/humanMessages.ts) and every failing field, by path, in `details`.
  * @param schemas - the schema for each part to check
  */
 export function validate(schemas: ValidateSchemas): RequestHandler {
@@ -42,7 +44,7 @@ export function validate(schemas: ValidateSchemas): RequestHandler {
     }
     if (issues.length > 0) {
       const first = issues[0];
-      throw badRequest(`${first.path || first.in}: ${first.message}`, issues);
+      throw badRequest(first.message, issues);
     }
     res.locals.parsed = parsed;
     next();

@@ -29,8 +29,8 @@ export function quotesRouter(ctx: AppContext): Router {
     const body = parsedBody<QuoteCreate>(res);
     const variant = await getVariantBySku(ctx, body.sku);
     if (!variant)
-      throw badRequest(`sku: no published variant ${body.sku}`, [
-        { in: 'body', path: 'sku', message: 'not in the catalogue' },
+      throw badRequest(`There is no published product with the SKU ${body.sku}.`, [
+        { in: 'body', path: 'sku', message: 'This SKU is not in the catalogue.' },
       ]);
     const { settings } = await getSalesSettings(ctx.db);
     const quote = await insertQuote(ctx.db, computeQuote(variant, body, settings, new Date()), person);

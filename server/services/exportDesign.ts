@@ -70,7 +70,7 @@ export async function exportDesign(
   catalogue: ExportCatalogue = { printers: new Map(), materials: new Map() },
 ): Promise<ExportResult> {
   const template = findTemplate(request.templateId);
-  if (!template) throw paramError('templateId', `templateId: unknown template "${request.templateId}"`);
+  if (!template) throw paramError('templateId', `There is no template called "${request.templateId}".`);
   try {
     parseParams(template, request.params);
   } catch (err) {

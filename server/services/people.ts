@@ -46,7 +46,7 @@ export async function createPerson(
   studioId?: string,
 ): Promise<Person> {
   if (await findPersonByEmail(db, input.email))
-    throw conflict('email_taken', `email: ${input.email} is already in use.`);
+    throw conflict('email_taken', `The e-mail address ${input.email} is already in use.`);
   const passwordHash = await hashPassword(input.password);
   const roles = uniqueRoles(input.roles);
   const created = db.transaction(async (tx) => {
@@ -65,7 +65,7 @@ export async function createPerson(
   });
   return created.catch((err: unknown) => {
     // Two requests for the same e-mail can both pass the check above; the unique index decides.
-    if (isUniqueViolation(err)) throw conflict('email_taken', `email: ${input.email} is already in use.`);
+    if (isUniqueViolation(err)) throw conflict('email_taken', `The e-mail address ${input.email} is already in use.`);
     throw err;
   });
 }
@@ -93,7 +93,7 @@ export async function updatePerson(db: Db, id: string, input: PersonUpdate, acto
     if (before.roles.includes('admin') && !roles.includes('admin')) {
       const admins = await tx.select({ roles: people.roles }).from(people);
       if (admins.filter((row) => row.roles.includes('admin')).length <= 1)
-        throw conflict('last_admin', 'roles: the studio needs at least one admin.');
+        throw conflict('last_admin', 'The studio needs at least one admin: give the admin role to someone else first.');
     }
     const [after] = await tx
       .update(people)

@@ -17,7 +17,7 @@ export function checkPresetParams(
 ): { params: Record<string, unknown>; templateVersion: number } {
   const template = findTemplate(templateId);
   if (!template)
-    throw badRequest(`templateId: unknown template "${templateId}"`, [
+    throw badRequest(`There is no template called "${templateId}".`, [
       { in: 'body', path: 'templateId', message: 'unknown template' },
     ]);
   try {

@@ -37,7 +37,7 @@ export interface ProductMesh {
  */
 export async function productMesh(templateId: string, rawParams: unknown): Promise<ProductMesh> {
   const template = findTemplate(templateId);
-  if (!template) throw new TemplateParamError('templateId', `templateId: unknown template "${templateId}"`);
+  if (!template) throw new TemplateParamError('templateId', `There is no template called "${templateId}".`);
   const params = parseParams(template, rawParams);
   await loadKernel();
   const { mesh, facts } = scoped(() => {

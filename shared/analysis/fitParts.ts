@@ -19,6 +19,78 @@ export interface PartsFit {
   copiesPerPlate: number;
   /** Tallest part: the build height that limits the printer. */
   heightMm: number;
+  /** How the parts of one unit go on plates (the one plate rule; see {@link unitPlatePlan}). */
+  plan: UnitPlatePlan;
+}
+
+/** Plates that carry the same parts: which parts of a unit, and how many units' worth of them one plate holds. */
+export interface PlateGroup {
+  /** Indexes of the parts on these plates, in part order. */
+  partIndexes: number[];
+  /** Units' worth of these parts on one plate (at least 1 when the parts fit). */
+  unitsPerPlate: number;
+}
+
+/**
+ * The plate rule for the parts of one unit: all parts on the same plate when a complete set fits (`together`,
+ * one plate group, as many sets as fit), otherwise each part on plates of its own (`separate`, one group per part,
+ * as many copies of that part as fit), or `none` when a part does not fit the printer at all.
+ */
+export interface UnitPlatePlan {
+  layout: 'together' | 'separate' | 'none';
+  groups: PlateGroup[];
+  /** Plates one unit needs when printed alone: 1 together, one per part when separate, 0 when it does not fit. */
+  platesPerUnit: number;
+}
+
+/**
+ * The plate rule from a fit: together when a complete set fits one plate, otherwise one plate group per part.
+ * @param setsPerPlate - complete sets per plate (0 when a set needs more than one plate)
+ * @param parts - each part's own fit, in part order
+ */
+export function unitPlatePlan(setsPerPlate: number, parts: readonly PlateFit[]): UnitPlatePlan {
+  if (parts.length === 0 || parts.some((fit) => !fit.fits)) return { layout: 'none', groups: [], platesPerUnit: 0 };
+  if (setsPerPlate > 0) {
+    return {
+      layout: 'together',
+      groups: [{ partIndexes: parts.map((_, i) => i), unitsPerPlate: setsPerPlate }],
+      platesPerUnit: 1,
+    };
+  }
+  return {
+    layout: 'separate',
+    groups: parts.map((fit, i) => ({ partIndexes: [i], unitsPerPlate: fit.copiesPerPlate })),
+    platesPerUnit: parts.length,
+  };
+}
+
+/**
+ * Build plates needed for a number of units under the plate rule: for each plate group, the units divided by the
+ * units one of its plates holds, rounded up, summed over the groups.
+ * @param plan - the plate rule of the design on the printer
+ * @param units - complete units wanted
+ */
+export function platesForUnits(plan: UnitPlatePlan, units: number): number {
+  return plan.groups.reduce((sum, group) => sum + Math.ceil(units / group.unitsPerPlate - 1e-9), 0);
+}
+
+/**
+ * The plate rule in words for a figure or a warning: `3 per plate (every part together)` or
+ * `2 plates per unit: body 1 per plate, floor plug 6 per plate`.
+ * @param plan - the plate rule
+ * @param partNames - part names in part order (`floor-plug` reads "floor plug")
+ */
+export function describePlatePlan(plan: UnitPlatePlan, partNames: readonly string[] = []): string {
+  if (plan.layout === 'none') return 'does not fit this printer';
+  if (plan.layout === 'together') {
+    const n = plan.groups[0].unitsPerPlate;
+    return plan.groups[0].partIndexes.length > 1 ? `${n} per plate (all parts together)` : `${n} per plate`;
+  }
+  const name = (i: number): string => (partNames[i] ?? `part ${i + 1}`).replace(/[-_]/g, ' ');
+  return (
+    `${plan.platesPerUnit} plates per unit: ` +
+    plan.groups.map((g) => `${name(g.partIndexes[0])} ${g.unitsPerPlate} per plate`).join(', ')
+  );
 }
 
 /**
@@ -45,6 +117,33 @@ export function partSizesMm(mesh: IndexedMesh, partTriangles: readonly number[])
     first += count;
   }
   return sizes;
+}
+
+/**
+ * Volume of each part of a mesh whose parts follow one another (divergence theorem over each part's triangles).
+ * @param mesh - the mesh, mm
+ * @param partTriangles - triangle count of each part, in mesh order
+ * @returns one volume per part, mm³
+ */
+export function partVolumesMm3(mesh: IndexedMesh, partTriangles: readonly number[]): number[] {
+  const p = mesh.positions;
+  const volumes: number[] = [];
+  let first = 0;
+  for (const count of partTriangles) {
+    let sixfold = 0;
+    for (let t = first; t < first + count; t++) {
+      const a = mesh.indices[t * 3] * 3;
+      const b = mesh.indices[t * 3 + 1] * 3;
+      const c = mesh.indices[t * 3 + 2] * 3;
+      sixfold +=
+        p[a] * (p[b + 1] * p[c + 2] - p[b + 2] * p[c + 1]) -
+        p[a + 1] * (p[b] * p[c + 2] - p[b + 2] * p[c]) +
+        p[a + 2] * (p[b] * p[c + 1] - p[b + 1] * p[c]);
+    }
+    volumes.push(Math.abs(sixfold) / 6);
+    first += count;
+  }
+  return volumes;
 }
 
 /**
@@ -92,10 +191,21 @@ export function fitPartSizes(
   const fits = parts.length > 0 && parts.every((fit) => fit.fits);
   const heightMm = Math.max(0, ...sizesMm.map((size) => size[2]));
   const sizes = sizesMm.map((size): [number, number, number] => [size[0], size[1], size[2]]);
-  if (!fits) return { fits, parts, partSizesMm: sizes, setsPerPlate: 0, copiesPerPlate: 0, heightMm };
+  if (!fits) {
+    const plan = unitPlatePlan(0, parts);
+    return { fits, parts, partSizesMm: sizes, setsPerPlate: 0, copiesPerPlate: 0, heightMm, plan };
+  }
   const setsPerPlate = maxSetsPerPlate(sizesMm, buildVolumeMm, spacingMm);
   const copiesPerPlate = setsPerPlate > 0 ? setsPerPlate : Math.min(...parts.map((fit) => fit.copiesPerPlate));
-  return { fits, parts, partSizesMm: sizes, setsPerPlate, copiesPerPlate, heightMm };
+  return {
+    fits,
+    parts,
+    partSizesMm: sizes,
+    setsPerPlate,
+    copiesPerPlate,
+    heightMm,
+    plan: unitPlatePlan(setsPerPlate, parts),
+  };
 }
 
 /**

@@ -184,10 +184,10 @@ export type AnalysisReport = z.infer<typeof AnalysisReportSchema>;
 /** The options of an analysis request (multipart form fields arrive as text, so numbers are coerced). */
 export const AnalysisRequestSchema = z.object({
   up: z.enum([...AxisUpSchema.options, 'auto']).default('+z'),
-  printerId: z.string().min(1).max(64).optional(),
-  materialId: z.string().min(1).max(64).optional(),
+  printerId: z.string().trim().min(1).max(64).optional(),
+  materialId: z.string().trim().min(1).max(64).optional(),
   /** One of the material's colour ids (its first colour when omitted). */
-  colourId: z.string().min(1).max(64).optional(),
+  colourId: z.string().trim().min(1).max(64).optional(),
   infillPct: z.coerce.number().min(0).max(100).optional(),
   overhangDeg: z.coerce.number().min(0).max(89).optional(),
 });

@@ -4,7 +4,7 @@ import { z } from 'zod';
 export const ROLES = ['designer', 'catalogue_manager', 'sales', 'operations', 'admin'] as const;
 
 /** One role. */
-export const RoleSchema = z.enum(ROLES);
+export const RoleSchema = z.enum(ROLES, { error: 'Choose a role: Designer, Catalogue manager, Sales or Admin.' });
 /** One role. */
 export type Role = z.infer<typeof RoleSchema>;
 
@@ -23,7 +23,7 @@ export const EmailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email
 /** Body of `POST /api/auth/sign-in`. */
 export const SignInSchema = z.object({
   email: EmailSchema,
-  password: z.string().min(1, 'password is required').max(256),
+  password: z.string().min(1, 'Enter your password.').max(256),
 });
 /** Body of `POST /api/auth/sign-in`. */
 export type SignIn = z.infer<typeof SignInSchema>;
@@ -32,7 +32,8 @@ export type SignIn = z.infer<typeof SignInSchema>;
 export const PersonSchema = z.object({
   id: z.string(),
   email: z.string(),
-  name: z.string().min(1).max(120),
+  /** Trimmed first, so a name of spaces only is refused. */
+  name: z.string().trim().min(1, 'Give the person a name.').max(120, 'A name can be at most 120 characters long.'),
   roles: z.array(RoleSchema).min(1),
 });
 /** A person as the API shows them. */
@@ -41,7 +42,8 @@ export type Person = z.infer<typeof PersonSchema>;
 /** Body of `POST /api/people` (admin). */
 export const PersonCreateSchema = PersonSchema.pick({ name: true, roles: true }).extend({
   email: EmailSchema,
-  password: z.string().min(10, 'password must be at least 10 characters').max(256),
+  /** Never trimmed: spaces are part of a password. */
+  password: z.string().min(10, 'The password needs at least 10 characters.').max(256),
 });
 /** Body of `POST /api/people` (admin). */
 export type PersonCreate = z.infer<typeof PersonCreateSchema>;

@@ -9,20 +9,20 @@ export const PRESET_THUMBNAIL_PREFIX = 'data:image/png;base64,';
 /** A PNG data URL rendered from the viewer canvas on save, limited in size. */
 export const PresetThumbnailSchema = z
   .string()
-  .max(PRESET_THUMBNAIL_MAX_CHARS, `thumbnail must be at most ${PRESET_THUMBNAIL_MAX_CHARS} characters`)
+  .max(PRESET_THUMBNAIL_MAX_CHARS, 'The preview picture is too large.')
   .refine((value) => value.startsWith(PRESET_THUMBNAIL_PREFIX), {
-    message: `thumbnail must be a PNG data URL starting with ${PRESET_THUMBNAIL_PREFIX}`,
+    message: 'The preview picture must be a PNG image.',
   })
   .refine((value) => /^[A-Za-z0-9+/]+={0,2}$/.test(value.slice(PRESET_THUMBNAIL_PREFIX.length)), {
-    message: 'thumbnail must be base64 after the data URL prefix',
+    message: 'The preview picture could not be read.',
   });
 
 /** A preset's display name: trimmed, 1 to 80 characters. */
 export const PresetNameSchema = z
   .string()
   .trim()
-  .min(1, 'name is required')
-  .max(80, 'name must be at most 80 characters');
+  .min(1, 'Give the preset a name.')
+  .max(80, 'A preset name can be at most 80 characters long.');
 
 /**
  * A designer's named parameter set for one template. `params` holds millimetres (and booleans / choices) exactly as
@@ -31,7 +31,7 @@ export const PresetNameSchema = z
 export const PresetSchema = z.object({
   id: z.string(),
   ownerId: z.string(),
-  templateId: z.string().min(1).max(64),
+  templateId: z.string().trim().min(1).max(64),
   /** Template version the parameters were saved against. */
   templateVersion: z.number().int().nonnegative(),
   name: PresetNameSchema,
@@ -54,12 +54,14 @@ export type PresetCreate = z.infer<typeof PresetCreateSchema>;
 export const PresetUpdateSchema = PresetSchema.pick({ name: true, params: true })
   .extend({ thumbnail: PresetThumbnailSchema.nullable() })
   .partial()
-  .refine((body) => Object.keys(body).length > 0, { message: 'nothing to update: send name, params or thumbnail' });
+  .refine((body) => Object.keys(body).length > 0, {
+    message: 'Nothing to save: change the name, the parameters or the picture first.',
+  });
 /** Body of `PATCH /api/presets/:id`. */
 export type PresetUpdate = z.infer<typeof PresetUpdateSchema>;
 
 /** Query of `GET /api/presets`. */
-export const PresetListQuerySchema = z.object({ templateId: z.string().min(1).max(64).optional() });
+export const PresetListQuerySchema = z.object({ templateId: z.string().trim().min(1).max(64).optional() });
 /** Query of `GET /api/presets`. */
 export type PresetListQuery = z.infer<typeof PresetListQuerySchema>;
 

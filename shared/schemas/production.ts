@@ -196,6 +196,15 @@ export const FarmCapacityInputSchema = z.object({
   plateChangeMin: z.number().nonnegative().default(10),
   /** Days added for packing and dispatch. */
   handlingDays: z.number().nonnegative().default(1),
+  /**
+   * The plate rule of the design (shared/analysis/fitParts.ts unitPlatePlan): one group when a unit's parts print
+   * together, one per part when they need plates of their own, each with the units' worth one plate holds and the
+   * print time of those parts for one unit. When given, it replaces `copiesPerPlate` and `printTimeMin`.
+   */
+  plateGroups: z
+    .array(z.object({ unitsPerPlate: z.number().int().positive(), printTimeMin: z.number().positive() }))
+    .min(1)
+    .optional(),
 });
 /** Farm capacity input (see {@link FarmCapacityInputSchema}). */
 export type FarmCapacityInput = z.input<typeof FarmCapacityInputSchema>;
@@ -205,7 +214,12 @@ export const FarmCapacitySchema = z.object({
   plates: z.number().int(),
   /** Plates the farm runs one after another on the busiest printer. */
   platesPerPrinter: z.number().int(),
+  /** Time of one plate (of the longest plate group when there are several). */
   plateTimeMin: z.number(),
+  /** Plates of each plate group, in the order of the input's groups (one group without them). */
+  groups: z
+    .array(z.object({ unitsPerPlate: z.number().int(), plates: z.number().int(), plateTimeMin: z.number() }))
+    .default([]),
   expectedGoodUnits: z.number(),
   printDays: z.number(),
   leadTimeDays: z.number().int(),

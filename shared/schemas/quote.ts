@@ -3,17 +3,31 @@ import { z } from 'zod';
 /** Largest quantity one wholesale quote covers. */
 export const QUOTE_MAX_QUANTITY = 100_000;
 
+/** Today's date in UTC as YYYY-MM-DD (read when a request is checked, not when the module loads). */
+function todayUtc(): string {
+  return new Date().toISOString().slice(0, 10);
+}
+
+/** A date the customer wants the goods, YYYY-MM-DD, today or later. */
+export const DeliveryDateSchema = z.iso
+  .date('Enter the delivery date as a date such as 2027-03-01.')
+  .refine((date) => date >= todayUtc(), { message: 'The delivery date cannot be in the past.' });
+
 /** Body of `POST /api/quotes`: what the customer asks for. */
 export const QuoteCreateSchema = z.object({
-  sku: z.string().trim().min(1, 'sku is required').max(80),
+  sku: z.string().trim().min(1, 'Choose a product.').max(80, 'A SKU can be at most 80 characters long.'),
   quantity: z
-    .number()
-    .int('quantity must be a whole number')
-    .positive('quantity must be at least 1')
-    .max(QUOTE_MAX_QUANTITY),
+    .number('Enter the quantity as a number.')
+    .int('The quantity must be a whole number.')
+    .positive('The quantity must be at least 1.')
+    .max(QUOTE_MAX_QUANTITY, `One quote can cover at most ${QUOTE_MAX_QUANTITY.toLocaleString('en-GB')} units.`),
   /** Date the customer wants the goods, YYYY-MM-DD. */
-  deliveryDate: z.iso.date('deliveryDate must be a date like 2027-03-01'),
-  customerName: z.string().trim().min(1, 'customerName is required').max(120),
+  deliveryDate: DeliveryDateSchema,
+  customerName: z
+    .string()
+    .trim()
+    .min(1, "Give the customer's name.")
+    .max(120, "A customer's name can be at most 120 characters long."),
 });
 /** Body of `POST /api/quotes`. */
 export type QuoteCreate = z.infer<typeof QuoteCreateSchema>;
@@ -105,4 +119,4 @@ export const QuoteListResponseSchema = z.object({ quotes: z.array(QuoteSummarySc
 export type QuoteListResponse = z.infer<typeof QuoteListResponseSchema>;
 
 /** Route parameters `:id` of a quote. */
-export const QuoteIdParamsSchema = z.object({ id: z.uuid('id must be a quote id') });
+export const QuoteIdParamsSchema = z.object({ id: z.uuid('This is not a quote reference we know.') });

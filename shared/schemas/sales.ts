@@ -40,7 +40,7 @@ export const SalesSettingsSchema = z.object({
     .array(QuantityBreakSchema)
     .max(10)
     .refine((breaks) => breaks.every((b, i) => i === 0 || b.minQuantity > breaks[i - 1].minQuantity), {
-      message: 'quantityBreaks must be in ascending order of minQuantity',
+      message: 'List the quantity breaks from the smallest quantity to the largest.',
     }),
   shop: ShopSettingsSchema.default(DEFAULT_SHOP_SETTINGS),
 });

@@ -1,0 +1,115 @@
+/**
+ * Every validation message a person can meet is written for people: no field keys (camelCase), no validation-library
+ * wording ("expected", "Too big", "Invalid input"). The test walks each input schema with typical bad values for
+ * every field and reads every message zod produces. Wording rules are our own house style: common practice, no source.
+ */
+import { describe, expect, it } from 'vitest';
+import type { z } from 'zod';
+import { fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
+import { PersonCreateSchema, PersonUpdateSchema, SignInSchema } from '../shared/schemas/auth';
+import { QuoteCreateSchema } from '../shared/schemas/quote';
+import { PresetCreateSchema, PresetUpdateSchema } from '../shared/schemas/preset';
+import { SalesSettingsSchema } from '../shared/schemas/sales';
+import { AnalysisRequestSchema } from '../shared/schemas/analysis';
+import { TemplateLimitsRequestSchema } from '../shared/schemas/templateLimits';
+import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
+
+/** Values people (or a broken client) typically send. */
+const BAD_VALUES: unknown[] = [undefined, null, '', '   ', -1, 0, 2.5, 1e12, 'abc', [], {}, true, '2020-01-01'];
+
+/** Each input schema with one valid body. */
+const SCHEMAS: Array<[string, z.ZodType, Record<string, unknown>]> = [
+  ['sign-in', SignInSchema, { email: 'ada@fernhollow.test', password: 'fernhollow-demo' }],
+  ['new person', PersonCreateSchema, { name: 'Ada', email: 'ada@x.test', password: 'long-enough-1', roles: ['sales'] }],
+  ['person update', PersonUpdateSchema, { name: 'Ada', roles: ['sales'] }],
+  ['quote', QuoteCreateSchema, { sku: 'FH-X-1', quantity: 3, deliveryDate: '2099-01-01', customerName: 'Wren & Co' }],
+  ['preset', PresetCreateSchema, { templateId: 'gable-box', name: 'Blue tit', params: {} }],
+  ['preset update', PresetUpdateSchema, { name: 'Blue tit' }],
+  ['sales settings', SalesSettingsSchema, structuredClone(DEFAULT_SALES_SETTINGS) as Record<string, unknown>],
+  ['analysis request', AnalysisRequestSchema, { up: '+z', infillPct: 15 }],
+  ['template limits', TemplateLimitsRequestSchema, { params: {} }],
+];
+
+const CAMEL_KEY = /\b[a-z]+[A-Z][A-Za-z0-9]*\b/;
+const LIBRARY_WORDING =
+  /expected|received|Too big|Too small|Invalid input|Invalid option|Invalid ISO|Invalid email|Invalid string/;
+
+/** Every message zod gives for the valid body with one field (at any depth of plain objects) replaced by a bad value. */
+function messagesFor(schema: z.ZodType, valid: Record<string, unknown>): string[] {
+  const messages: string[] = [];
+  const visit = (path: string[], value: unknown): void => {
+    for (const bad of BAD_VALUES) {
+      const body = structuredClone(valid);
+      let target = body as Record<string, unknown>;
+      for (const key of path.slice(0, -1)) target = target[key] as Record<string, unknown>;
+      target[path[path.length - 1]] = bad;
+      const result = schema.safeParse(body);
+      if (!result.success) messages.push(...result.error.issues.map((issue) => issue.message));
+    }
+    if (value && typeof value === 'object' && !Array.isArray(value)) {
+      for (const [key, inner] of Object.entries(value)) visit([...path, key], inner);
+    }
+  };
+  for (const [key, value] of Object.entries(valid)) visit([key], value);
+  return messages;
+}
+
+describe.each(SCHEMAS)('messages of the %s schema', (_name, schema, valid) => {
+  it('accepts the valid body', () => {
+    expect(schema.safeParse(valid).success).toBe(true);
+  });
+
+  it('name no field key and use no library wording, for every typical bad value of every field', () => {
+    const messages = messagesFor(schema, valid);
+    expect(messages.length).toBeGreaterThan(0);
+    for (const message of messages) {
+      expect(message, message).not.toMatch(CAMEL_KEY);
+      expect(message, message).not.toMatch(LIBRARY_WORDING);
+      expect(message, message).toMatch(/^[A-Z"].*[.:)]$|^[A-Z]/);
+    }
+  });
+});
+
+describe('text fields are trimmed before they are checked', () => {
+  it('refuses a person named with spaces only', () => {
+    const result = PersonCreateSchema.safeParse({
+      name: '   ',
+      email: 'a@b.test',
+      password: 'long-enough-1',
+      roles: ['sales'],
+    });
+    expect(result.success).toBe(false);
+    expect(result.error?.issues[0].message).toBe('Give the person a name.');
+    expect(PersonUpdateSchema.safeParse({ name: ' \t ' }).success).toBe(false);
+  });
+
+  it('stores names without the surrounding spaces', () => {
+    expect(PersonUpdateSchema.parse({ name: '  Ada Wren ' }).name).toBe('Ada Wren');
+    expect(
+      QuoteCreateSchema.parse({ sku: ' FH-X-1 ', quantity: 1, deliveryDate: '2099-01-01', customerName: ' Wren ' }),
+    ).toMatchObject({ sku: 'FH-X-1', customerName: 'Wren' });
+  });
+});
+
+describe('field labels', () => {
+  it('reads keys as words, with their unit', () => {
+    expect(fieldLabel(['customerName'])).toBe('Customer name');
+    expect(fieldLabel(['farm', 'hoursPerDay'])).toBe('Hours per day');
+    expect(fieldLabel(['quantityBreaks', 2, 'discountPct'])).toBe('Discount (%)');
+    expect(fieldLabel(['wallThicknessMm'])).toBe('Wall thickness (mm)');
+    expect(fieldLabel([])).toBe('This value');
+  });
+
+  it('words a too-big number with its limit, grouped', () => {
+    expect(
+      humanIssueMessage({
+        code: 'too_big',
+        origin: 'number',
+        maximum: 100000,
+        inclusive: true,
+        path: ['quantity'],
+        input: 1e6,
+      } as never),
+    ).toBe('Quantity must be 100,000 or less.');
+  });
+});
