@@ -17,7 +17,10 @@ import { checkPresetParams } from '../services/presetParams';
 import * as store from '../services/presetStore';
 
 function nameTaken(name: string): never {
-  throw conflict('preset_name_taken', `You already have a preset called "${name}" for this template: choose another name.`);
+  throw conflict(
+    'preset_name_taken',
+    `You already have a preset called "${name}" for this template: choose another name.`,
+  );
 }
 
 /**
