@@ -140,6 +140,7 @@ describe('quotes API', () => {
     expect(text).toContain(FIXTURE_SKUS[0]);
     expect(text).toContain(quote.earliestDeliveryDate);
     expect(text).not.toMatch(/margin/i); // the customer's copy carries no costs or margins
+    expect(text).not.toMatch(/build plate|printers|failures|production plan/i); // nor the farm's production plan
   });
 
   it('says when the delivery date cannot be met', async () => {

@@ -57,18 +57,14 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
     doc,
     [
       ['Requested delivery', quote.deliveryDate],
+      // The customer's copy gives dates only: the farm's production plan (plates, printers, failure allowance) stays
+      // on the studio's own quote screen.
       ['Earliest delivery', `${quote.earliestDeliveryDate} (${quote.farm.leadTimeDays} days from the quote date)`],
       [
         'Can we meet the date?',
         quote.feasible
           ? 'Yes: the earliest delivery is on or before the requested date.'
           : 'Not by the requested date: we can deliver from the earliest date above, or split the order.',
-      ],
-      [
-        'Production plan',
-        `${quote.farm.plates} build plates of ${quote.farm.copiesPerPlate} on ${quote.farm.printers} printers, ` +
-          `${quote.farm.hoursPerDay} h a day: ${quote.farm.printDays.toFixed(1)} printing days plus ${quote.farm.handlingDays} days packing and dispatch; ` +
-          `${quote.farm.failureRatePct} % of prints allowed for failures.`,
       ],
     ],
     x,
@@ -94,7 +90,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
 
   doc.font(FONT.body).fontSize(8).fillColor(INK.muted);
   doc.text(
-    'Lead times are estimated from the print time of the design and the farm settings on the quote date; confirm before ordering. ' +
+    'Delivery dates are estimated on the quote date; we confirm them when the order is placed. ' +
       'The spec sheet of each product gives its sizes, the birds it suits, care and cautions.',
     x,
     y + 14,

@@ -2,6 +2,7 @@
 import { asc, desc, eq, inArray } from 'drizzle-orm';
 import { allowedActions } from '../../shared/families/familyWorkflow';
 import { evaluateFamilyGate } from '../../shared/families/familyGate';
+import { reasonsAfterAcknowledgements } from '../../shared/families/variantVerdict';
 import type { Person } from '../../shared/schemas/auth';
 import type { FamilyAction } from '../../shared/schemas/familySpec';
 import type { ComputeStatus, Variant } from '../../shared/schemas/variant';
@@ -59,6 +60,17 @@ export function toVariant(row: FamilyVariantRow): Variant {
     birdFitWarnings: row.birdFitWarnings,
     error: row.error,
   };
+}
+
+/**
+ * The API shape of a variant row as people read it now: its reasons say which warnings have been acknowledged for
+ * its revision (the stored verdict was computed before them).
+ * @param row - the stored variant
+ * @param acknowledged - warning codes acknowledged for its revision
+ */
+export function toVariantAcknowledged(row: FamilyVariantRow, acknowledged: ReadonlySet<string>): Variant {
+  const variant = toVariant(row);
+  return { ...variant, reasons: reasonsAfterAcknowledgements(variant, acknowledged) };
 }
 
 /** The API shape of a photo row. @param row - stored photo @param uploader - who uploaded it */

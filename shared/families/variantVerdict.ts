@@ -44,7 +44,47 @@ export function variantVerdict(
   }
   if (reasons.length > 0) return { verdict: 'fail', reasons };
   const toAck = warnings.filter(needsAcknowledgement).map((warning) => warning.code);
-  if (toAck.length > 0) reasons.push(`bird-fit warnings to acknowledge: ${toAck.join(', ')}`);
+  if (toAck.length > 0) reasons.push(birdFitAckReason(toAck, false));
   if (report.outdoor) reasons.push(...outdoorHeatReasons(report.outdoor, materialName ?? report.outdoor.materialId));
   return { verdict: reasons.length > 0 ? 'warn' : 'pass', reasons };
+}
+
+const TO_ACKNOWLEDGE = 'bird-fit warnings to acknowledge: ';
+const ACKNOWLEDGED = 'bird-fit warnings acknowledged in writing: ';
+
+/** A warning code in words (`thin-walls` → "thin walls"). */
+function codeWords(code: string): string {
+  return code.replace(/[-_]/g, ' ');
+}
+
+/** The reason a row shows for bird-fit warnings, still to acknowledge or acknowledged. */
+function birdFitAckReason(codes: readonly string[], acknowledged: boolean): string {
+  return `${acknowledged ? ACKNOWLEDGED : TO_ACKNOWLEDGE}${codes.map(codeWords).join(', ')}`;
+}
+
+/**
+ * A variant's reasons as they read now that some warnings have been acknowledged for its revision: the stored
+ * "to acknowledge" reason is split into the codes still waiting and the codes acknowledged in writing, taken from
+ * the variant's own bird-fit warnings (the stored verdict was computed before any acknowledgement).
+ * @param variant - the stored reasons and bird-fit warnings
+ * @param acknowledged - the warning codes acknowledged for the variant's revision
+ * @returns the reasons to show
+ */
+export function reasonsAfterAcknowledgements(
+  variant: { reasons: readonly string[]; birdFitWarnings: readonly Pick<BirdFitWarning, 'code' | 'severity'>[] },
+  acknowledged: ReadonlySet<string>,
+): string[] {
+  const codes = variant.birdFitWarnings.filter(needsAcknowledgement).map((warning) => warning.code);
+  const waiting = codes.filter((code) => !acknowledged.has(code));
+  const done = codes.filter((code) => acknowledged.has(code));
+  const out: string[] = [];
+  for (const reason of variant.reasons) {
+    if (!reason.startsWith(TO_ACKNOWLEDGE)) {
+      out.push(reason);
+      continue;
+    }
+    if (waiting.length > 0) out.push(birdFitAckReason(waiting, false));
+    if (done.length > 0) out.push(birdFitAckReason(done, true));
+  }
+  return out;
 }

@@ -32,5 +32,14 @@ export const useProductionStore = defineStore('production', () => {
     return loading;
   }
 
-  return { catalogue, printers, materials, error, ensureLoaded };
+  /**
+   * A printer as people know it: its name, or the id until the catalogue has loaded (loading starts here).
+   * @param id - a printer profile id
+   */
+  function printerName(id: string): string {
+    if (!catalogue.value) void ensureLoaded();
+    return printers.value.find((printer) => printer.id === id)?.name ?? id;
+  }
+
+  return { catalogue, printers, materials, error, ensureLoaded, printerName };
 });
