@@ -7,7 +7,18 @@ import prettier from 'eslint-config-prettier';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'data/**', 'drizzle/**', 'node_modules/**', 'coverage/**', 'test-results/**', 'tmp/**'] },
+  {
+    ignores: [
+      'dist/**',
+      'data/**',
+      'drizzle/**',
+      'node_modules/**',
+      'coverage/**',
+      'test-results/**',
+      'tmp/**',
+      '.tsbuild/**',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...pluginVue.configs['flat/recommended'],

@@ -33,6 +33,6 @@ export function canonicalMeshBytes(mesh: IndexedMesh): Uint8Array<ArrayBuffer> {
  * @param mesh - the mesh to hash
  */
 export async function meshHash(mesh: IndexedMesh): Promise<string> {
-  const digest = await globalThis.crypto.subtle.digest('SHA-256', canonicalMeshBytes(mesh));
+  const digest = await crypto.subtle.digest('SHA-256', canonicalMeshBytes(mesh));
   return Array.from(new Uint8Array(digest), (byte) => byte.toString(16).padStart(2, '0')).join('');
 }
