@@ -23,6 +23,8 @@ import { priceListRouter } from './routes/priceList';
 import { quotesRouter } from './routes/quotes';
 import { settingsRouter } from './routes/settings';
 import { productionRouter } from './routes/production';
+import { farmRouter } from './routes/farm';
+import { farmNoticesRouter } from './routes/farmNotices';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -44,6 +46,9 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
   // Security headers (CSP, nosniff, no framing, referrer policy) on every answer: pages, files and API.
   app.use(securityHeaders({ publicOrigin: ctx.env.PUBLIC_ORIGIN }));
+
+  // Farm notices are checked over their raw bytes: mounted before the JSON parser (public: the signature is the check).
+  app.use('/api/webhooks/farm', farmNoticesRouter(ctx));
 
   // Every /api request: JSON body (1 MB), no caching, origin check on state-changing methods, session.
   app.use(
@@ -72,6 +77,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/quotes', quotesRouter(ctx));
   app.use('/api/settings', settingsRouter(ctx));
   app.use('/api/production', productionRouter(ctx));
+  app.use('/api/farm', farmRouter(ctx));
 
   // Anything else under /api is a 404 in the error shape (keep this after every API router).
   app.use('/api', (req) => {

@@ -8,6 +8,7 @@ import { migrateDatabase, openDatabase } from './db/client';
 import { seedIfNew } from './db/seed';
 import { startFamilyServices } from './services/familyServices';
 import { loadEnv, type Env } from './env';
+import { startFulfilment } from './farm/startFulfilment';
 
 /** Options of {@link boot}. */
 export interface BootOptions {
@@ -71,6 +72,7 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   const { port } = server.address() as AddressInfo;
   stage(`listening on port ${port}`);
   await startFamilyServices(ctx, server);
+  await startFulfilment(ctx, server, `http://localhost:${port}`);
 
   let closing: Promise<void> | undefined;
   return {

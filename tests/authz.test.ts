@@ -7,7 +7,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../shared/schemas/auth';
 import { demoPersonId } from '../server/db/seedDemo';
 import { eq } from 'drizzle-orm';
-import { families } from '../server/db/schema';
+import { families, farmDispatches, farmRuns } from '../server/db/schema';
+import { listCatalogueVariants } from '../server/services/catalogue';
+import { planRun } from '../shared/planning/planRun';
+import { loadProductionCatalogue } from '../server/services/productionCatalogue';
 import {
   acknowledgeAll,
   computeNow,
@@ -38,9 +41,19 @@ interface AuthzRow {
   body?: unknown | ((role: Role | null) => unknown);
   /** The call ends the session (sign-out): use a fresh agent for it. */
   consumesSession?: boolean;
+  /** A public route that authenticates by signature: the status an unsigned call gets from everyone (never 401/403). */
+  publicStatus?: number;
   /** A multipart file upload instead of a JSON body. */
   attach?: { field: string; filename: string; bytes: () => Promise<Buffer> };
 }
+
+/** A run request over a seeded published variant (its SKU is filled in by {@link planPath}). */
+const PLAN_BODY = {
+  items: [{ sku: 'seeded', quantity: 5 }],
+  printerId: 'workhorse-220',
+  startDate: '2099-03-02',
+  finishBy: '2099-03-20',
+};
 
 /** Every API route. Keep in the order of server/app.ts. */
 const ROUTES: AuthzRow[] = [
@@ -253,6 +266,41 @@ const ROUTES: AuthzRow[] = [
   { method: 'put', route: '/api/settings/sales', allowed: ['admin'], body: DEFAULT_SALES_SETTINGS },
   // Production catalogue: the design editor's printers, materials, settings and rates (anyone signed in).
   { method: 'get', route: '/api/production', allowed: 'signed-in' },
+  // Print farm: notices (public, signed: an unsigned call is 400 for everyone), exceptions (operations), demand and
+  // run planning (operations and catalogue managers); admins may do all of it.
+  { method: 'post', route: '/api/webhooks/farm', allowed: 'public', publicStatus: 400, body: { noticeId: 'x' } },
+  { method: 'get', route: '/api/farm/exceptions', allowed: ['operations', 'admin'] },
+  {
+    method: 'post',
+    route: '/api/farm/dispatches/:id/redispatch',
+    path: heldDispatchPath('/redispatch'),
+    allowed: ['operations', 'admin'],
+    body: {},
+  },
+  {
+    method: 'post',
+    route: '/api/farm/dispatches/:id/withdraw',
+    path: heldDispatchPath('/withdraw'),
+    allowed: ['operations', 'admin'],
+    body: { reason: 'authorization probe' },
+  },
+  { method: 'get', route: '/api/farm/demand', allowed: ['operations', 'catalogue_manager', 'admin'] },
+  { method: 'get', route: '/api/farm/variants', allowed: ['operations', 'catalogue_manager', 'admin'] },
+  {
+    method: 'post',
+    route: '/api/farm/plans',
+    path: planPath('/api/farm/plans'),
+    allowed: ['operations', 'catalogue_manager', 'admin'],
+    body: PLAN_BODY,
+  },
+  { method: 'get', route: '/api/farm/runs', allowed: ['operations', 'catalogue_manager', 'admin'] },
+  {
+    method: 'post',
+    route: '/api/farm/runs',
+    path: planPath('/api/farm/runs'),
+    allowed: ['operations', 'catalogue_manager', 'admin'],
+    body: PLAN_BODY,
+  },
 ];
 
 /** A new preset of the demo designer (one per call, so a delete in one case does not affect the next). */
@@ -318,8 +366,8 @@ function photoPath(suffix: string): (t: TestApp) => Promise<string> {
 const CALLERS: Array<Role | null> = [...ROLES, null];
 
 /** The status class a caller must get on a row. */
-function expected(row: AuthzRow, caller: Role | null): '2xx' | 401 | 403 {
-  if (row.allowed === 'public') return '2xx';
+function expected(row: AuthzRow, caller: Role | null): '2xx' | number {
+  if (row.allowed === 'public') return row.publicStatus ?? '2xx';
   if (caller === null) return 401;
   if (row.allowed === 'signed-in') return '2xx';
   return row.allowed.includes(caller) ? '2xx' : 403;
@@ -355,7 +403,8 @@ describe('authorization table', () => {
       expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
     } else {
       expect(res.status, JSON.stringify(res.body)).toBe(want);
-      expect(res.body.error.code).toBe(want === 401 ? 'unauthenticated' : 'forbidden');
+      if (want === 401 || want === 403)
+        expect(res.body.error.code).toBe(want === 401 ? 'unauthenticated' : 'forbidden');
     }
   });
 
@@ -385,4 +434,40 @@ async function salesQuotePath(t: TestApp): Promise<string> {
     .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-31', customerName: 'Authz probe' });
   if (res.status !== 201) throw new Error(`Could not create a quote: ${res.status} ${JSON.stringify(res.body)}`);
   return `/api/quotes/${res.body.id as string}`;
+}
+
+/** Fills PLAN_BODY's SKU with the first published variant of the seed, then answers `path`. */
+function planPath(path: string): (t: TestApp) => Promise<string> {
+  return async (t) => {
+    const [variant] = await listCatalogueVariants(t.ctx, {});
+    PLAN_BODY.items[0].sku = variant.sku;
+    PLAN_BODY.printerId = (await loadProductionCatalogue(t.ctx.db)).printers[0].id;
+    return path;
+  };
+}
+
+/** `/api/farm/dispatches/<id><suffix>` of a new held dispatch of a new run (never at a farm). */
+function heldDispatchPath(suffix: string): (t: TestApp) => Promise<string> {
+  return async (t) => {
+    const runId = crypto.randomUUID();
+    const plan = planRun([], {
+      buildVolumeMm: [220, 220, 250],
+      plateWarmUpMin: 6,
+      machineRateCentsPerHour: 50,
+      averagePowerW: 110,
+      electricityCentsPerKwh: 30,
+      labourCentsPerHour: 2500,
+      failureRatePct: 5,
+      hoursPerDay: 20,
+      startDate: '2099-03-02',
+      finishBy: '2099-03-09',
+      currency: 'EUR',
+    });
+    await t.ctx.db.insert(farmRuns).values({ id: runId, name: `RUN-authz-${runId}`, items: [], plan });
+    const [row] = await t.ctx.db
+      .insert(farmDispatches)
+      .values({ runId, idempotencyKey: `authz:${runId}`, status: 'held', holdMessage: 'authorization probe' })
+      .returning();
+    return `/api/farm/dispatches/${row.id}${suffix}`;
+  };
 }

@@ -92,3 +92,4 @@ export * from './tables/mail';
 export * from './tables/sales';
 export * from './tables/jobs';
 export * from './tables/orders';
+export * from './tables/farm';

@@ -4,3 +4,4 @@
 import './seedProduction';
 import './seedDemo';
 import './seedFamilies';
+import './seedDemand';

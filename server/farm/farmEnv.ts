@@ -14,6 +14,8 @@ export const FarmEnvSchema = z.object({
   FARM_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   /** How often the dispatcher and reconciliation look for work, in milliseconds. */
   FARM_POLL_MS: z.coerce.number().int().min(50).max(600_000).default(2000),
+  /** First wait before sending again to a farm that could not be reached, in milliseconds (doubling after). */
+  FARM_RETRY_BASE_MS: z.coerce.number().int().min(10).max(600_000).default(5000),
   /** An open work order not heard of for this long is asked about (reconciliation), in seconds. */
   FARM_RECONCILE_AFTER_S: z.coerce.number().positive().max(86_400).default(120),
 });

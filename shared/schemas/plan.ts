@@ -6,6 +6,8 @@ const SizeMmSchema = z.tuple([z.number().nonnegative(), z.number().nonnegative()
 /** One variant in a planned run, with what the engine measured for it. */
 export const PlanItemSchema = z.object({
   sku: z.string().min(1),
+  /** The variant's mesh hash (what the farm prints), when the item comes from the catalogue. */
+  meshSha256: z.string().optional(),
   /** Human name, e.g. the family name and axis values. */
   label: z.string(),
   materialId: z.string().min(1),

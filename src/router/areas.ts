@@ -7,6 +7,8 @@ import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
 import IconReview from '../components/icons/IconReview.vue';
 import IconQuotes from '../components/sales/IconQuotes.vue';
+import IconDemand from '../components/farm/IconDemand.vue';
+import IconFarm from '../components/farm/IconFarm.vue';
 
 /** One area of the product: a nav entry and a home-screen card. */
 export interface Area {
@@ -68,6 +70,23 @@ export const AREAS: readonly Area[] = [
     path: '/quotes',
     roles: ['sales', 'catalogue_manager'],
     icon: IconQuotes,
+  },
+  {
+    id: 'demand',
+    label: 'Demand',
+    description: 'See what sells week by week, compare on-demand and planned-run costs, and plan runs at the farm.',
+    path: '/demand',
+    roles: ['operations', 'catalogue_manager', 'admin'],
+    icon: IconDemand,
+  },
+  {
+    id: 'farm-exceptions',
+    label: 'Farm exceptions',
+    description:
+      'Orders the farm holds (address, colour) or cannot take yet: fix and send again, or cancel and refund.',
+    path: '/farm/exceptions',
+    roles: ['operations', 'admin'],
+    icon: IconFarm,
   },
   {
     id: 'people',

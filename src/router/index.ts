@@ -105,6 +105,24 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['sales', 'catalogue_manager'], title: 'Quote' },
   },
   {
+    path: '/demand',
+    name: 'demand',
+    component: () => import('../views/DemandView.vue'),
+    meta: { roles: ['operations', 'catalogue_manager', 'admin'], title: 'Demand' },
+  },
+  {
+    path: '/runs/plan',
+    name: 'run-planner',
+    component: () => import('../views/RunPlannerView.vue'),
+    meta: { roles: ['operations', 'catalogue_manager', 'admin'], title: 'Run planner' },
+  },
+  {
+    path: '/farm/exceptions',
+    name: 'farm-exceptions',
+    component: () => import('../views/FarmExceptionsView.vue'),
+    meta: { roles: ['operations', 'admin'], title: 'Farm exceptions' },
+  },
+  {
     path: '/admin/mail',
     name: 'admin-mail',
     component: () => import('../views/AdminMailView.vue'),
