@@ -1,12 +1,8 @@
-import { fitPartSizes } from '../../shared/analysis/fitParts';
-import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { assessDesign, plainOutdoor } from '../../shared/assessment/assessDesign';
 import { variantVerdict } from '../../shared/families/variantVerdict';
-import { estimateProduction } from '../../shared/production/estimateProduction';
-import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
 import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/variant';
-import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import type { VariantGeometry } from './variantGeometry';
 
@@ -34,38 +30,23 @@ export interface EvaluationContext {
  * printer on its own (a box and its floor plug may go on separate plates); copies per plate counts complete sets
  * when a set fits one plate, otherwise the copies of the part that fits fewest (shared/analysis/fitParts.ts).
  * The outdoor assessment (sol-air roof and wall temperatures against the material's heat-deflection temperature)
- * is stored in the report; a surface above that temperature makes the verdict `warn` with a reason.
+ * is stored in the report; a surface above that temperature makes the verdict `warn` with a reason. The figures
+ * come from the one design assessment (shared/assessment/assessDesign.ts).
  * @param geometry - what the worker measured
  * @param context - printer, material, support budget and region
  */
 export function evaluateVariant(geometry: VariantGeometry, context: EvaluationContext): VariantEvaluation {
   const { printer, material } = context;
-  const plate = [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z];
-  const partsFit = fitPartSizes(geometry.partSizesMm, plate);
-  const fitsPrinter = partsFit.fits;
-  const copiesPerPlate = partsFit.copiesPerPlate;
-  const heightMm = partsFit.heightMm;
-  const production = estimateProduction(
-    {
-      volumeMm3: geometry.volumeMm3,
-      surfaceAreaMm2: geometry.surfaceAreaMm2,
-      heightMm,
-      supportVolumeMm3: geometry.supportVolumeMm3,
-      bboxSizeMm: geometry.bboxSizeMm,
-      footprintMm2: geometry.footprintMm2,
-      upFacingAreaMm2: geometry.upFacingAreaMm2,
-      downFacingAreaMm2: geometry.downFacingAreaMm2,
-    },
-    printer,
-    material,
-    DEFAULT_SETTINGS,
-    DEFAULT_RATES,
+  const assessment = assessDesign(
+    geometry,
+    { printer, material, colourId: context.colourId, settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES },
+    { facts: geometry.facts, region: context.region },
   );
+  const { fit, production, birdFit } = assessment;
   const warnings: string[] = [];
-  if (fitsPrinter && partsFit.setsPerPlate === 0) warnings.push('the parts need separate build plates on this printer');
+  if (fit.fits && fit.setsPerPlate === 0) warnings.push('the parts need separate build plates on this printer');
   if (geometry.maxBridgeSpanMm > 10)
     warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
-  const birdFit = assessBirdFit(geometry.facts, context.region ? { region: context.region } : {});
   const report: VariantReport = {
     triangles: geometry.triangles,
     volumeMm3: geometry.volumeMm3,
@@ -81,17 +62,18 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     maxBridgeSpanMm: geometry.maxBridgeSpanMm,
     thinnestWallMm: geometry.thinnestWallMm,
     printerId: printer.id,
-    fitsPrinter,
-    copiesPerPlate,
+    fitsPrinter: fit.fits,
+    copiesPerPlate: fit.copiesPerPlate,
     massG: production.massG,
     filamentLengthM: production.filamentLengthM,
     printTimeMin: production.printTimeMin,
     facts: geometry.facts,
     warnings,
   };
-  const outdoor = outdoorOf(geometry, context);
-  if (outdoor) report.outdoor = outdoor;
-  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFit.warnings, material.name);
+  // The colour must be one of the material's colours; otherwise the report has no outdoor section.
+  if (assessment.outdoor) report.outdoor = plainOutdoor(assessment.outdoor);
+  const birdFitWarnings = birdFit?.warnings ?? [];
+  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFitWarnings, material.name);
   return {
     report,
     cost: {
@@ -102,26 +84,6 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     },
     verdict,
     reasons,
-    birdFitWarnings: birdFit.warnings,
+    birdFitWarnings,
   };
-}
-
-/**
- * assessOutdoor for the variant's material and colour, with the template's wall thickness and the default print
- * settings; undefined when the colour is not one of the material's colours.
- */
-function outdoorOf(geometry: VariantGeometry, context: EvaluationContext): OutdoorAssessment | undefined {
-  const { material, printer } = context;
-  const colourId = context.colourId ?? material.colours[0]!.id;
-  if (!material.colours.some((colour) => colour.id === colourId)) return undefined;
-  return assessOutdoor({
-    material,
-    colourId,
-    wall: {
-      wallThicknessMm: geometry.facts.wallThicknessMm,
-      wallLoops: DEFAULT_SETTINGS.wallLoops,
-      lineWidthMm: printer.lineWidthMm,
-      infillPct: DEFAULT_SETTINGS.infillPct,
-    },
-  });
 }

@@ -1,7 +1,6 @@
-import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
+import { measureDesign, type DesignMeasure } from '../../shared/assessment/assessDesign';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import { generate } from '../../templates/generate';
-import { partSizesMm } from '../../shared/analysis/fitParts';
 
 /** Ray budget of the support estimate: the analysis default, because the support budget gates the family. */
 export const FAMILY_SUPPORT_RAYS = 200_000;
@@ -11,8 +10,11 @@ export const FAMILY_SUPPORT_RAYS = 200_000;
  */
 export const FAMILY_WALL_SAMPLES = 1_500;
 
-/** What the worker measures for one parameter set: everything that depends on geometry alone. */
-export interface VariantGeometry {
+/**
+ * What the worker measures for one parameter set: everything that depends on geometry alone (a {@link DesignMeasure}
+ * for the design assessment, plus the facts and the report figures kept per variant).
+ */
+export interface VariantGeometry extends DesignMeasure {
   templateVersion: number;
   /** Complete parameters (defaults merged). */
   params: Record<string, number | boolean | string>;
@@ -54,10 +56,9 @@ export async function computeVariantGeometry(
   const started = performance.now();
   const result = await generate(templateId, params);
   const built = performance.now();
-  const { report } = analyzeGeometry(result.mesh, {
-    up: '+z',
-    supportMaxRays: FAMILY_SUPPORT_RAYS,
-    wallSamples: FAMILY_WALL_SAMPLES,
+  const { measure, report } = measureDesign(result.mesh, {
+    partTriangles: result.partTriangles,
+    geometry: { up: '+z', supportMaxRays: FAMILY_SUPPORT_RAYS, wallSamples: FAMILY_WALL_SAMPLES },
   });
   const analysed = performance.now();
   return {
@@ -66,22 +67,14 @@ export async function computeVariantGeometry(
     sha256: result.sha256,
     facts: result.facts,
     partCount: result.partCount,
-    partSizesMm: partSizesMm(result.mesh, result.partTriangles),
+    ...measure,
     triangles: report.triangles,
-    volumeMm3: report.volumeMm3,
-    surfaceAreaMm2: report.surfaceAreaMm2,
-    upFacingAreaMm2: report.upFacingAreaMm2,
-    downFacingAreaMm2: report.downFacingAreaMm2,
-    footprintMm2: report.footprintMm2,
-    bboxSizeMm: report.bbox.sizeMm,
     watertight: report.watertight,
     openEdges: report.edges.openEdges,
     nonManifoldEdges: report.edges.nonManifoldEdges,
     components: report.components,
     overhangAreaMm2: report.overhang.areaMm2,
-    supportVolumeMm3: report.supportVolumeMm3,
     maxBridgeSpanMm: report.bridges.maxSpanMm,
-    thinnestWallMm: report.thinnestWall ? report.thinnestWall.p5Mm : null,
     timingsMs: { generate: built - started, analyse: analysed - built },
   };
 }

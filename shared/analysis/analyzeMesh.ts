@@ -1,11 +1,8 @@
 import type { IndexedMesh } from '../schemas/mesh';
 import type { AnalysisOutdoor, AnalysisReport, BuildOrientation, GeometryReport } from '../schemas/analysis';
 import type { CostRates, Material, PrinterProfile, PrintSettings } from '../schemas/production';
-import { estimateProduction } from '../production/estimateProduction';
-import { assessOutdoor } from '../thermal/assessOutdoor';
-import { analyzeGeometry, type GeometryOptions } from './analyzeGeometry';
-import { buildPlateFit } from './buildPlateFit';
-import { componentSizesMm, fitPartSizes, fitParts } from './fitParts';
+import { assessDesign, measureDesign } from '../assessment/assessDesign';
+import type { GeometryOptions } from './analyzeGeometry';
 import { searchOrientation } from './searchOrientation';
 
 /** Everything the full report needs besides the mesh. */
@@ -46,9 +43,9 @@ export interface MeshAnalysis {
 }
 
 /**
- * The print-readiness report of a part: geometry in build orientation (searched when `up` is 'auto'), fit and
- * copies on the printer's plate, the production estimate (mass, filament, time, energy, cost) and the outdoor
- * fitness in the chosen material and colour (shared/thermal/assessOutdoor.ts).
+ * The print-readiness report of a part: geometry in build orientation (searched when `up` is 'auto'), then the one
+ * design assessment (shared/assessment/assessDesign.ts): fit and copies on the printer's plate, the production
+ * estimate (mass, filament, time, energy, cost) and the outdoor fitness in the chosen material and colour.
  * @param mesh - the part in model coordinates, mm
  * @param options - orientation, printer, material, colour, settings, rates and thresholds
  * @returns the JSON-able report, the overhang mask and the oriented mesh
@@ -59,47 +56,33 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
   const requested = options.up ?? '+z';
   const search = requested === 'auto' ? searchOrientation(mesh, { overhangDeg }) : null;
   const up: BuildOrientation = search ? { rotation: search.best.rotation } : (requested as BuildOrientation);
-  const { report: geometry, overhangMask, oriented } = analyzeGeometry(mesh, { ...options.geometry, up, overhangDeg });
   const { printer, material } = options;
-  const spacingMm = options.plateSpacingMm ?? 10;
-  const buildVolumeMm: [number, number, number] = [
-    printer.buildVolumeMm.x,
-    printer.buildVolumeMm.y,
-    printer.buildVolumeMm.z,
-  ];
-  const fit =
-    options.partTriangles && options.partTriangles.length > 1
-      ? { ...fitParts(oriented, options.partTriangles, buildVolumeMm, spacingMm), turnedOnPlate: false }
-      : geometry.components > 1
-        ? { ...fitPartSizes(componentSizesMm(oriented), buildVolumeMm, spacingMm), turnedOnPlate: false }
-        : buildPlateFit(geometry.bbox.sizeMm, buildVolumeMm, spacingMm);
-  const production = estimateProduction(
-    {
-      volumeMm3: Math.max(0, geometry.volumeMm3),
-      surfaceAreaMm2: geometry.surfaceAreaMm2,
-      heightMm: geometry.bbox.sizeMm[2],
-      supportVolumeMm3: geometry.supportVolumeMm3,
-      bboxSizeMm: geometry.bbox.sizeMm,
-      footprintMm2: geometry.footprintMm2,
-      upFacingAreaMm2: geometry.upFacingAreaMm2,
-      downFacingAreaMm2: geometry.downFacingAreaMm2,
-    },
-    printer,
-    material,
-    options.settings,
-    options.rates,
+  const {
+    measure,
+    report: geometry,
+    overhangMask,
+    oriented,
+  } = measureDesign(mesh, {
+    partTriangles: options.partTriangles && options.partTriangles.length > 1 ? options.partTriangles : undefined,
+    geometry: { ...options.geometry, up, overhangDeg },
+  });
+  const assessment = assessDesign(
+    measure,
+    { printer, material, colourId: options.colourId, settings: options.settings, rates: options.rates },
+    { wallThicknessMm: options.wallThicknessMm, plateSpacingMm: options.plateSpacingMm },
   );
-  const outdoor = outdoorFor(geometry, options);
+  const { fit, production, outdoor } = assessment;
+  if (!outdoor) throw new Error(assessment.outdoorProblem ?? 'outdoor fitness could not be assessed');
   const report: AnalysisReport = {
     ...geometry,
     up: requested,
     orientationSearch: search,
     buildPlate: {
       printerId: printer.id,
-      buildVolumeMm,
+      buildVolumeMm: fit.buildVolumeMm,
       fits: fit.fits,
       copiesPerPlate: fit.copiesPerPlate,
-      spacingMm,
+      spacingMm: fit.spacingMm,
       turnedOnPlate: fit.turnedOnPlate,
     },
     materialId: material.id,
@@ -108,31 +91,6 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
     warnings: [...warningsFor(geometry, fit.fits, printer), ...outdoorWarnings(outdoor, material)],
   };
   return { report, overhangMask, oriented };
-}
-
-function outdoorFor(g: GeometryReport, options: AnalyzeMeshOptions): AnalysisOutdoor {
-  const { material, printer, settings } = options;
-  const given = options.wallThicknessMm;
-  const measured = g.thinnestWall && g.thinnestWall.p5Mm > 0 ? g.thinnestWall.p5Mm : null;
-  const wallThicknessMm = given ?? measured;
-  const assessment = assessOutdoor({
-    material,
-    colourId: options.colourId ?? material.colours[0]!.id,
-    wall:
-      wallThicknessMm === null
-        ? undefined
-        : {
-            wallThicknessMm,
-            wallLoops: settings.wallLoops,
-            lineWidthMm: printer.lineWidthMm,
-            infillPct: settings.infillPct,
-          },
-  });
-  return {
-    ...assessment,
-    wallThicknessMm,
-    wallThicknessFrom: given !== undefined ? 'options' : measured !== null ? 'measured' : null,
-  };
 }
 
 function outdoorWarnings(o: AnalysisOutdoor, material: Material): string[] {

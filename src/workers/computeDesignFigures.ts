@@ -1,10 +1,5 @@
 import type { GenerateResult } from '../../templates/generate';
-import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
-import { fitParts } from '../../shared/analysis/fitParts';
-import { estimateProduction } from '../../shared/production/estimateProduction';
-import { productionInputFromGeometry } from '../../shared/production/productionInputFromGeometry';
-import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
-import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
+import { assessDesign, measureDesign, plainOutdoor } from '../../shared/assessment/assessDesign';
 import type { Region } from '../../shared/schemas/birdfit';
 import type { DesignFigures, ProductionChoice } from './geometryProtocol';
 
@@ -17,8 +12,9 @@ const PREVIEW_WALL_SAMPLES = 1_500;
 
 /**
  * The figures beside the model for one generated design on one printer, in one material and colour, and the
- * per-triangle overhang mask for the viewer. The mesh is already in build orientation (+z up); engines that are not
- * available are listed in `unavailable` rather than faked.
+ * per-triangle overhang mask for the viewer, from the one design assessment (shared/assessment/assessDesign.ts).
+ * The mesh is already in build orientation (+z up); engines that are not available are listed in `unavailable`
+ * rather than faked.
  * @param result - the generated design (mesh in build orientation, facts)
  * @param choice - printer, material, colour, print settings and cost rates
  * @param region - bird-fit region, both when omitted
@@ -29,52 +25,32 @@ export function computeDesignFigures(
   region?: Region,
 ): { figures: DesignFigures; overhangMask: Uint8Array | null } {
   const { printer, material, colour, settings, rates } = choice;
-  const plate = printer.buildVolumeMm;
-  const { report, overhangMask } = analyzeGeometry(result.mesh, {
-    up: '+z',
-    supportMaxRays: PREVIEW_SUPPORT_RAYS,
-    wallSamples: PREVIEW_WALL_SAMPLES,
-  });
-  const size = report.bbox.sizeMm;
   // Parts (box body, floor plug) are laid side by side in the mesh but print on their own or packed: fit each part.
-  const fit = fitParts(result.mesh, result.partTriangles, [plate.x, plate.y, plate.z]);
-  const production = estimateProduction(
-    productionInputFromGeometry(report, fit.heightMm),
-    printer,
-    material,
-    settings,
-    rates,
+  const { measure, report, overhangMask } = measureDesign(result.mesh, {
+    partTriangles: result.partTriangles,
+    geometry: { up: '+z', supportMaxRays: PREVIEW_SUPPORT_RAYS, wallSamples: PREVIEW_WALL_SAMPLES },
+  });
+  const assessment = assessDesign(
+    measure,
+    { printer, material, colourId: colour.id, settings, rates },
+    { facts: result.facts, region: region ?? null },
   );
   const unavailable: string[] = [];
-  let outdoor: DesignFigures['outdoor'] = null;
-  try {
-    // The side wall as printed: the template's wall thickness, the settings' perimeters and infill, the printer's line.
-    outdoor = assessOutdoor({
-      material,
-      colourId: colour.id,
-      wall: {
-        wallThicknessMm: result.facts.wallThicknessMm,
-        wallLoops: settings.wallLoops,
-        lineWidthMm: printer.lineWidthMm,
-        infillPct: settings.infillPct,
-      },
-    });
-  } catch (err) {
-    unavailable.push(`outdoor fitness (${err instanceof Error ? err.message : String(err)})`);
-  }
+  const outdoor = assessment.outdoor ? plainOutdoor(assessment.outdoor) : null;
+  if (!assessment.outdoor) unavailable.push(`outdoor fitness (${assessment.outdoorProblem})`);
   return {
     figures: {
       volumeMm3: report.volumeMm3,
       surfaceAreaMm2: report.surfaceAreaMm2,
-      boundingBoxMm: size,
+      boundingBoxMm: report.bbox.sizeMm,
       triangleCount: report.triangles,
       bodyCount: report.components,
       overhangAreaMm2: report.overhang.areaMm2,
       supportVolumeMm3: report.supportVolumeMm3,
-      fitsPrinter: fit.fits,
-      production,
+      fitsPrinter: assessment.fit.fits,
+      production: assessment.production,
       outdoor,
-      birdFit: assessBirdFit(result.facts, { region }),
+      birdFit: assessment.birdFit,
       unavailable,
     },
     overhangMask,
