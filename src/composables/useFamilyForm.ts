@@ -8,7 +8,7 @@ import { useMessage } from 'naive-ui';
 import { FAMILY_MAX_VARIANTS, FamilyCodeSchema, type Axis, type AxisValue } from '../../shared/schemas/familySpec';
 import type { Family } from '../../shared/schemas/family';
 import type { Region } from '../../shared/schemas/birdfit';
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS } from '../../shared/production/defaults';
+import { familySpecProblems } from '../../shared/families/familySpecProblems';
 import { findSkuClashes, skuFor } from '../../shared/families/sku';
 import { variantCount } from '../../shared/families/variantMatrix';
 import { loadTemplateCatalogue, type TemplateSummary } from '../api/templates';
@@ -16,6 +16,8 @@ import { ApiError } from '../api/ApiError';
 import { useFamiliesStore } from '../stores/families';
 import { usePresetsStore } from '../stores/presets';
 import { axisProblems } from '../components/families/axisProblems';
+import { summarySpecTemplate } from '../components/families/summarySpecTemplate';
+import { useProductionStore } from '../stores/production';
 
 /** The family editor's form (see the module comment); call once in the view's setup. */
 export function useFamilyForm() {
@@ -24,6 +26,7 @@ export function useFamilyForm() {
   const message = useMessage();
   const families = useFamiliesStore();
   const presets = usePresetsStore();
+  const production = useProductionStore();
 
   const familyId = computed(() => (typeof route.params.id === 'string' ? route.params.id : null));
   const templates = ref<TemplateSummary[]>([]);
@@ -42,8 +45,8 @@ export function useFamilyForm() {
   const baseParams = ref<Record<string, AxisValue>>({});
   const axes = ref<Axis[]>([]);
   const supportBudgetCm3 = ref<number | null>(5);
-  const printerId = ref(DEFAULT_PRINTERS[0].id);
-  const materialId = ref(DEFAULT_MATERIALS[0].id);
+  const printerId = ref('');
+  const materialId = ref('');
   const region = ref<Region | null>(null);
   /** Re-pin an existing family to the template's current version when saving. */
   const repin = ref(false);
@@ -55,11 +58,16 @@ export function useFamilyForm() {
   const presetOptions = computed(() =>
     (presets.byTemplate.get(templateId.value ?? '') ?? []).map((preset) => ({ label: preset.name, value: preset.id })),
   );
-  const printerOptions = DEFAULT_PRINTERS.map((printer) => ({
-    label: `${printer.name} (${printer.buildVolumeMm.x}×${printer.buildVolumeMm.y}×${printer.buildVolumeMm.z} mm)`,
-    value: printer.id,
-  }));
-  const materialOptions = DEFAULT_MATERIALS.map((material) => ({ label: material.name, value: material.id }));
+  // Printers and materials come from the studio's production catalogue (the database), like every other screen.
+  const printerOptions = computed(() =>
+    production.printers.map((printer) => ({
+      label: `${printer.name} (${printer.buildVolumeMm.x}×${printer.buildVolumeMm.y}×${printer.buildVolumeMm.z} mm)`,
+      value: printer.id,
+    })),
+  );
+  const materialOptions = computed(() =>
+    production.materials.map((material) => ({ label: material.name, value: material.id })),
+  );
 
   /** Parameters shown in the base panel: those not varied by a parameter axis. */
   const baseParameters = computed(() => {
@@ -79,6 +87,22 @@ export function useFamilyForm() {
     if (!codeOk.value || axes.value.some((axis) => !axis.values.length)) return null;
     return skuFor(code.value, axes.value, Object.fromEntries(axes.value.map((axis) => [axis.key, axis.values[0]])));
   });
+  /** The shared family spec check (the one the server runs), so problems show before saving. */
+  const specProblems = computed(() => {
+    if (!template.value || !production.catalogue) return [];
+    return familySpecProblems(
+      {
+        templateId: template.value.id,
+        baseParams: baseParams.value,
+        axes: axes.value,
+        printerId: printerId.value,
+        materialId: materialId.value,
+      },
+      summarySpecTemplate(template.value),
+      new Map(production.printers.map((printer) => [printer.id, printer])),
+      new Map(production.materials.map((material) => [material.id, material])),
+    ).problems;
+  });
   const canSave = computed(
     () =>
       !!name.value.trim() &&
@@ -87,6 +111,7 @@ export function useFamilyForm() {
       !tooMany.value &&
       !skuClashes.value.length &&
       !axisIssues.value.length &&
+      !specProblems.value.length &&
       supportBudgetCm3.value !== null,
   );
 
@@ -118,8 +143,15 @@ export function useFamilyForm() {
 
   onMounted(async () => {
     try {
-      const [catalogue] = await Promise.all([loadTemplateCatalogue(), presets.loaded ? null : presets.loadAll()]);
+      const [catalogue] = await Promise.all([
+        loadTemplateCatalogue(),
+        presets.loaded ? null : presets.loadAll(),
+        production.ensureLoaded(),
+      ]);
+      if (production.error) throw new Error(`The printers and materials could not be loaded: ${production.error}`);
       templates.value = catalogue;
+      printerId.value = production.printers[0]?.id ?? '';
+      materialId.value = production.materials[0]?.id ?? '';
       if (familyId.value) {
         const family = await families.open(familyId.value);
         existing.value = family;
@@ -219,6 +251,7 @@ export function useFamilyForm() {
     codeOk,
     skuClashes,
     skuExample,
+    specProblems,
     canSave,
     applyPreset,
     save,
