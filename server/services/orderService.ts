@@ -21,6 +21,7 @@ import type { Db, Queryable } from '../db/client';
 import { auditEvents, orderLines, orders, people, type OrderLineRow, type OrderRow } from '../db/schema';
 import { conflict, notFound } from '../http/HttpError';
 import { queueMail } from '../mail/queueMail';
+import { fulfilmentOf } from '../farm/farmViews';
 import { recordAudit } from './audit';
 import { orderMail } from './orderMail';
 import { runOrderTransitionHooks } from './orderHooks';
@@ -266,6 +267,7 @@ export async function get(db: Db, orderId: string): Promise<OrderDetail> {
       actor: entry.actor ?? null,
       details: entry.details,
     })),
+    fulfilment: await fulfilmentOf(db, orderId),
   };
 }
 

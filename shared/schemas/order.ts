@@ -1,5 +1,6 @@
 /** Orders of the shop: states, the allowed transitions, and the order as the API shows it. */
 import { z } from 'zod';
+import { OrderFulfilmentSchema } from './fulfilment';
 import { ShipToSchema } from './shop';
 
 /** Every state an order can be in. */
@@ -123,7 +124,11 @@ export const OrderSchema = z.object({
 export type Order = z.infer<typeof OrderSchema>;
 
 /** Answer of `GET /api/orders/:id`: the order and its history. */
-export const OrderDetailSchema = OrderSchema.extend({ history: z.array(OrderHistoryEntrySchema) });
+export const OrderDetailSchema = OrderSchema.extend({
+  history: z.array(OrderHistoryEntrySchema),
+  /** The farm side: dispatches with the farm's state, carrier and tracking number, reprints and their cost. */
+  fulfilment: OrderFulfilmentSchema,
+});
 /** Answer of `GET /api/orders/:id`. */
 export type OrderDetail = z.infer<typeof OrderDetailSchema>;
 
