@@ -11,6 +11,7 @@
  * `FH-HGB-28-SHIN-SAND`.
  */
 import { z } from 'zod';
+import { fieldLabel } from './humanMessages';
 import { RegionSchema } from './birdfit';
 
 /** Most variants one family may have; more is refused with a message naming the count. */
@@ -73,7 +74,12 @@ function noDuplicates(values: readonly unknown[], ctx: z.RefinementCtx): void {
   const seen = new Set<string>();
   values.forEach((value, index) => {
     const key = JSON.stringify(value);
-    if (seen.has(key)) ctx.addIssue({ code: 'custom', path: [index], message: `duplicate value ${key}` });
+    if (seen.has(key))
+      ctx.addIssue({
+        code: 'custom',
+        path: [index],
+        message: `The value ${key} is listed twice (a duplicate): remove one.`,
+      });
     seen.add(key);
   });
 }
@@ -85,7 +91,7 @@ export const ParamAxisSchema = z.object({
   key: z.string().min(1).max(64),
   /** Optional display label (defaults to the template's label). */
   label: z.string().max(80).optional(),
-  values: z.array(AxisValueSchema).min(1, 'an axis needs at least one value').max(50).superRefine(noDuplicates),
+  values: z.array(AxisValueSchema).min(1, 'Give the axis at least one value.').max(50).superRefine(noDuplicates),
 });
 /** A parameter axis (see {@link ParamAxisSchema}). */
 export type ParamAxis = z.infer<typeof ParamAxisSchema>;
@@ -95,7 +101,7 @@ export const AttributeAxisSchema = z.object({
   kind: z.literal('attribute'),
   key: AttributeKeySchema,
   label: z.string().max(80).optional(),
-  values: z.array(AttributeValueSchema).min(1, 'an axis needs at least one value').max(50).superRefine(noDuplicates),
+  values: z.array(AttributeValueSchema).min(1, 'Give the axis at least one value.').max(50).superRefine(noDuplicates),
 });
 /** A non-geometric axis (see {@link AttributeAxisSchema}). */
 export type AttributeAxis = z.infer<typeof AttributeAxisSchema>;
@@ -113,7 +119,11 @@ export const AxesSchema = z
     const seen = new Set<string>();
     axes.forEach((axis, index) => {
       if (seen.has(axis.key))
-        ctx.addIssue({ code: 'custom', path: [index, 'key'], message: `duplicate axis ${axis.key}` });
+        ctx.addIssue({
+          code: 'custom',
+          path: [index, 'key'],
+          message: `${fieldLabel([axis.key])} has two axes (a duplicate axis): merge their values into one.`,
+        });
       seen.add(axis.key);
     });
   });

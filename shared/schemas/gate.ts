@@ -37,7 +37,11 @@ export const AcknowledgementsCreateSchema = z.object({
     .array(
       z.object({
         code: GateWarningCodeSchema,
-        text: z.string().trim().min(ACK_MIN_CHARS, `text must be at least ${ACK_MIN_CHARS} characters`).max(2000),
+        text: z
+          .string()
+          .trim()
+          .min(ACK_MIN_CHARS, `Write at least ${ACK_MIN_CHARS} characters on why the warning is acceptable.`)
+          .max(2000),
       }),
     )
     .min(1),

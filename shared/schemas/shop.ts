@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { isValidCountryCode } from '../shop/countryCodes';
 
 /** A currency as ISO 4217 letters, e.g. `EUR`. */
-export const CurrencySchema = z.string().regex(/^[A-Z]{3}$/, 'currency must be three capital letters such as EUR');
+export const CurrencySchema = z.string().regex(/^[A-Z]{3}$/, 'The currency must be three capital letters such as EUR.');
 
 /** One shipping zone: the countries it covers and the price of each weight band, VAT included. */
 export const ShippingZoneSchema = z.object({

@@ -9,7 +9,7 @@ import type { Family, FamilyListQuery, FamilySummary } from '../../../shared/sch
 import { findTemplate, parseParams } from '../../../templates/index';
 import { auditEvents, familyRevisions, familyVariants, type FamilyRevisionRow } from '../../db/schema';
 import { notFound } from '../../http/HttpError';
-import { actorsById, familySummaries, toVariant } from '../familyView';
+import { acknowledgementsOf, actorsById, familySummaries, toVariantAcknowledged } from '../familyView';
 import { familySubject, loadFamily, viewFamily, type FamilyContext } from './loadFamily';
 
 /**
@@ -90,8 +90,10 @@ export async function listVariants(
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize);
   const [{ total }] = await ctx.db.select({ total: count() }).from(familyVariants).where(where);
+  // Reasons say which warnings are acknowledged already (the stored verdicts predate the acknowledgements).
+  const acknowledged = new Set((await acknowledgementsOf(ctx.db, revision.id)).map((ack) => ack.code));
   return {
-    variants: rows.map(toVariant),
+    variants: rows.map((row) => toVariantAcknowledged(row, acknowledged)),
     total,
     page: query.page,
     pageSize: query.pageSize,
