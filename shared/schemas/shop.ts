@@ -36,7 +36,7 @@ export const ShippingTableSchema = z
         ctx.addIssue({
           code: 'custom',
           path: ['zones', i, 'ratesMinor'],
-          message: `zone ${zone.label} needs one price for each of the ${table.weightBandsKg.length} weight bands`,
+          message: `The zone ${zone.label} needs one price for each of the ${table.weightBandsKg.length} weight bands.`,
         });
     });
   });
