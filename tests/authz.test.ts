@@ -50,7 +50,7 @@ interface AuthzRow {
 /** A run request over a seeded published variant (its SKU is filled in by {@link planPath}). */
 const PLAN_BODY = {
   items: [{ sku: 'seeded', quantity: 5 }],
-  printerId: 'workhorse-220',
+  printerId: 'rowan-farm-06',
   startDate: '2099-03-02',
   finishBy: '2099-03-20',
 };

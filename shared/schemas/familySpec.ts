@@ -148,7 +148,7 @@ export const FamilySpecSchema = z.object({
   /** Largest support volume a variant may need, mm³. */
   supportBudgetMm3: z.number().nonnegative().max(10_000_000),
   /** Printer every variant must fit (DEFAULT_PRINTERS / printer_profiles id). */
-  printerId: z.string().min(1).default('workhorse-220'),
+  printerId: z.string().min(1).default('rowan-farm-06'),
   /** Material when there is no material axis. */
   materialId: z.string().min(1).default('pla'),
   /** Region for the bird-fit rules; both regions when null. */
