@@ -85,7 +85,7 @@ describe('agreement with manifold-3d', () => {
 });
 
 describe('overhang: the 45° rule', () => {
-  // source: Mazlan et al. 2020 via trade-facts §3 — self-supporting overhang ≤ 45° from vertical
+  // source: Mazlan et al. 2020 — self-supporting overhang ≤ 45° from vertical
   const H = 20;
   const wedge = (deg: number): IndexedMesh => {
     const d = H * Math.tan((deg * Math.PI) / 180);
@@ -165,7 +165,7 @@ describe('support volume of known overhangs', () => {
 });
 
 describe('bridges', () => {
-  // limits: from memory, trade-facts §3 [M] (no published bridge limit)
+  // limits: from memory (no published bridge limit found)
   const table = (spanMm: number) => {
     const { Manifold } = wasm;
     return manifoldToMesh(

@@ -1,6 +1,6 @@
 /**
  * The outdoor section of the print-readiness report: sol-air roof and wall temperatures for the chosen material and
- * colour, checked against the worked values of trade-facts §2c (ASHRAE sol-air formula), and the wall thickness the
+ * colour, checked against the worked values of the ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals), and the wall thickness the
  * insulation estimate uses (given, or the measured thinnest wall). Also through the CLI with --colour.
  */
 import { execFile } from 'node:child_process';
@@ -41,13 +41,13 @@ describe('outdoor section of the analysis report', () => {
   it('gives the sol-air worked values for white and black PLA and flags black above the heat-deflection temperature', () => {
     const white = AnalysisReportSchema.parse(analyzeMesh(hollow, { ...base, colourId: 'white' }).report);
     const black = AnalysisReportSchema.parse(analyzeMesh(hollow, { ...base, colourId: 'black' }).report);
-    // source: ASHRAE sol-air worked values via trade-facts §2c — h_o 17, air 30 °C, wall 600 W/m², roof 1000 W/m²
+    // source: ASHRAE sol-air worked values — h_o 17, air 30 °C, wall 600 W/m², roof 1000 W/m²
     // with −3.9 K: α 0.25 wall 38.8 °C, roof 40.8 °C; α 0.95 wall 63.5 °C, roof 82.0 °C
     expect(white.outdoor.wall.solAirC).toBeCloseTo(38.8, 1);
     expect(white.outdoor.roof.solAirC).toBeCloseTo(40.8, 1);
     expect(black.outdoor.wall.solAirC).toBeCloseTo(63.5, 1);
     expect(black.outdoor.roof.solAirC).toBeCloseTo(82.0, 1);
-    // source: PLA heat-deflection temperature at 0.45 MPa, 55 °C (Ingeo 2003D) via trade-facts §2e
+    // source: PLA heat-deflection temperature at 0.45 MPa, 55 °C (Ingeo 2003D)
     expect(black.outdoor.heatDeflectionC).toBe(55);
     expect(black.outdoor.verdict).toBe('fail');
     expect(white.outdoor.verdict).toBe('ok');
@@ -62,7 +62,7 @@ describe('outdoor section of the analysis report', () => {
   it('uses the roof value of a mid colour (α 0.60) from the worked table', () => {
     const grey: Material = { ...pla, colours: [{ id: 'grey', name: 'Grey', hex: '#808080', solarAbsorptance: 0.6 }] };
     const report = analyzeMesh(hollow, { ...base, material: grey }).report;
-    // source: trade-facts §2c — roof, α 0.60: 61.4 °C (default colour is the material's first)
+    // source: ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals) — roof, α 0.60: 61.4 °C (default colour is the material's first)
     expect(report.outdoor.colourId).toBe('grey');
     expect(report.outdoor.roof.solAirC).toBeCloseTo(61.4, 1);
   });
@@ -77,7 +77,7 @@ describe('outdoor section of the analysis report', () => {
     const given = analyzeMesh(hollow, { ...base, colourId: 'white', wallThicknessMm: 2.4 }).report.outdoor;
     expect(given.wallThicknessFrom).toBe('options');
     expect(given.wallThicknessMm).toBe(2.4);
-    // source: trade-facts §2a — a 2.4 mm solid PLA wall ≈ 0.018 m²K/W; ¾ in pine ≈ 0.17 (3 loops × 2 faces × 0.45 mm
+    // source: USDA FPL Wood Handbook Table 4-7; MakeItFrom PLA data sheet — a 2.4 mm solid PLA wall ≈ 0.018 m²K/W; ¾ in pine ≈ 0.17 (3 loops × 2 faces × 0.45 mm
     // lines cover the whole 2.4 mm, so the wall is solid)
     expect(given.wallResistance!.rM2KW).toBeCloseTo(0.018, 3);
     expect(given.wallResistance!.pineBoardRM2KW).toBeCloseTo(0.17, 2);
@@ -90,14 +90,14 @@ describe('outdoor section of the analysis report', () => {
       await writeFile(file, toBinaryStl(geomToMesh(box([0, 0, 0], [40, 30, 10]))));
       const cli = ['tsx', 'server/cli/index.ts', 'analyze', '--in', file];
       const table = await run('npx', [...cli, '--colour', 'black']);
-      // source: trade-facts §2c — black roof 82.0 °C, wall 63.5 °C; °F = °C × 9/5 + 32 (180 °F, 146 °F)
+      // source: ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals) — black roof 82.0 °C, wall 63.5 °C; °F = °C × 9/5 + 32 (180 °F, 146 °F)
       expect(table.stdout).toMatch(/Roof in full sun\s+82\.0 °C \(180 °F\), above the limit/);
       expect(table.stdout).toMatch(/Wall in full sun\s+63\.5 °C \(146 °F\), above the limit/);
       expect(table.stdout).toMatch(/Heat deflection\s+55\.0 °C \(131 °F\)/);
       expect(table.stdout).toMatch(/Follow local rules/);
       const json = await run('npx', [...cli, '--colour', 'white', '--json']);
       const report = AnalysisReportSchema.parse(JSON.parse(json.stdout));
-      expect(report.outdoor.roof.solAirC).toBeCloseTo(40.8, 1); // trade-facts §2c, α 0.25
+      expect(report.outdoor.roof.solAirC).toBeCloseTo(40.8, 1); // ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals), α 0.25
       const bad = await run('npx', [...cli, '--colour', 'tartan']).catch(
         (err: { code: number; stderr: string }) => err,
       );
@@ -121,7 +121,7 @@ describe('POST /api/analyses with colourId', () => {
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const report = AnalysisReportSchema.parse(res.body);
     expect(report.outdoor.colourId).toBe('black');
-    expect(report.outdoor.roof.solAirC).toBeCloseTo(82.0, 1); // trade-facts §2c, α 0.95 roof
+    expect(report.outdoor.roof.solAirC).toBeCloseTo(82.0, 1); // ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals), α 0.95 roof
     const bad = await designer.post('/api/analyses').field('colourId', 'tartan').attach('file', stl, 'cube.stl');
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^colourId: /);

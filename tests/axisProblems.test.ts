@@ -15,7 +15,7 @@ const flag = parameters.find((param) => param.kind === 'boolean');
 
 describe('axisProblems', () => {
   it('accepts values inside the range, including both ends', () => {
-    // source: RSPB via trade-facts §1b — 25 mm blue tit, 28 mm great tit, 32 mm house sparrow
+    // source: RSPB — 25 mm blue tit, 28 mm great tit, 32 mm house sparrow
     expect(axisProblems({ kind: 'param', key: entry.key, values: [25, 28, 32] }, parameters)).toEqual([]);
     expect(axisProblems({ kind: 'param', key: entry.key, values: [entry.min!, entry.max!] }, parameters)).toEqual([]);
   });

@@ -39,7 +39,7 @@ describe('species table', () => {
   });
 
   it('carries the published North American values', () => {
-    // source: Bureau of Biological Survey table (bfnc.ca) via trade-facts §1a, inches converted at 25.4 mm
+    // source: Bureau of Biological Survey table (bfnc.ca), inches converted at 25.4 mm
     expect(row('eastern-bluebird').holeDiameterMm.min).toBeCloseTo(38.1, 1);
     expect(row('eastern-bluebird').floorMm.max).toBeCloseTo(127, 0);
     expect(row('eastern-bluebird').holeAboveFloorMm.min).toBeCloseTo(152.4, 1);
@@ -47,21 +47,21 @@ describe('species table', () => {
     expect(row('black-capped-chickadee').holeDiameterMm.min).toBeCloseTo(28.6, 1);
     expect(row('northern-flicker').holeDiameterMm.min).toBeCloseTo(63.5, 1);
     expect(row('american-kestrel').floorMm.min).toBeCloseTo(203.2, 1);
-    // source: trade-facts §1a/§7 — Tree Swallow 1½ in (classic) vs 1¼ in (TWRA): the range keeps both
+    // source: Bureau of Biological Survey table vs TWRA tree swallow page — 1½ in (classic) vs 1¼ in: the range keeps both
     expect(row('tree-swallow').holeDiameterMm.min).toBeCloseTo(31.8, 1);
     expect(row('tree-swallow').holeDiameterMm.max).toBeCloseTo(38.1, 1);
   });
 
   it('carries the published European hole sizes', () => {
-    // source: RSPB via trade-facts §1b — blue tit 25, great tit 28, house sparrow 32, starling 45 mm
+    // source: RSPB — blue tit 25, great tit 28, house sparrow 32, starling 45 mm
     expect(row('blue-tit').holeDiameterMm.min).toBe(25);
     expect(row('great-tit').holeDiameterMm.min).toBe(28);
     expect(row('house-sparrow').holeDiameterMm.min).toBe(32);
     expect(row('common-starling').holeDiameterMm.min).toBe(45);
-    // source: NABU and BUND via trade-facts §1b — blue tit up to 28, great tit up to 32 mm
+    // source: NABU and BUND — blue tit up to 28, great tit up to 32 mm
     expect(row('blue-tit').holeDiameterMm.max).toBe(28);
     expect(row('great-tit').holeDiameterMm.max).toBe(32);
-    // source: RSPB via trade-facts §1b — hole ≥ 125 mm above the floor; mounting 2–4 m
+    // source: RSPB — hole ≥ 125 mm above the floor; mounting 2–4 m
     expect(row('blue-tit').holeAboveFloorMm.min).toBe(125);
     expect(row('blue-tit').mountingHeightM).toEqual({ min: 2, max: 4 });
   });
@@ -85,16 +85,16 @@ describe('species table', () => {
 
 describe('assessBirdFit', () => {
   it('suits Eastern Bluebird with a 38.1 mm hole and no starling warning', () => {
-    // source: NABS/TWRA and the classic table via trade-facts §1a — Eastern Bluebird 1½ in (38.1 mm)
+    // source: NABS/TWRA and the classic table — Eastern Bluebird 1½ in (38.1 mm)
     const r = assessBirdFit(good, { region: 'north-america' });
     expect(r.suits.map((s) => s.speciesId)).toContain('eastern-bluebird');
-    // source: trade-facts §1a — "a 1½ in hole keeps starlings out"
+    // source: Bureau of Biological Survey table (E. Dearborn, Bird Houses and How to Build Them, USDA, 1914/1923) — "a 1½ in hole keeps starlings out"
     expect(r.warnings.map((w) => w.code)).not.toContain('admits-starlings');
     expect(r.suits.map((s) => s.speciesId)).not.toContain('european-starling-na');
   });
 
   it('suits blue tits with a 25 mm hole but not great tits, and says why', () => {
-    // source: RSPB via trade-facts §1b — blue tit 25 mm, great tit 28 mm, hole ≥ 125 mm above the floor
+    // source: RSPB — blue tit 25 mm, great tit 28 mm, hole ≥ 125 mm above the floor
     const box = {
       ...good,
       entryHoleDiameterMm: 25,
@@ -114,7 +114,7 @@ describe('assessBirdFit', () => {
   });
 
   it('gives the reasons for a shallow box', () => {
-    // source: Bureau of Biological Survey via trade-facts §1a — Northern Flicker 16–18 in deep, hole 14–16 in up
+    // source: Bureau of Biological Survey — Northern Flicker 16–18 in deep, hole 14–16 in up
     const r = assessBirdFit({ ...good, entryHoleDiameterMm: 63.5 }, { region: 'north-america' });
     const flicker = r.species.find((s) => s.speciesId === 'northern-flicker')!;
     expect(flicker.suits).toBe(false);
@@ -123,7 +123,7 @@ describe('assessBirdFit', () => {
   });
 
   it('warns against a perch', () => {
-    // source: USFWS "For the Birds" (2001) via trade-facts §1c — never put a perch under the hole
+    // source: USFWS "For the Birds" (2001) — never put a perch under the hole
     const r = assessBirdFit({ ...good, hasPerch: true });
     const w = r.warnings.find((x) => x.code === 'perch')!;
     expect(w.severity).toBe('warning');
@@ -132,7 +132,7 @@ describe('assessBirdFit', () => {
   });
 
   it('warns that a hole over 1½ in admits starlings in North America only', () => {
-    // source: trade-facts §1a — starling box 2 in hole; a 1½ in hole keeps starlings out
+    // source: Bureau of Biological Survey table (E. Dearborn, Bird Houses and How to Build Them, USDA, 1914/1923) — starling box 2 in hole; a 1½ in hole keeps starlings out
     expect(codes({ ...good, entryHoleDiameterMm: 40 }, 'north-america')).toContain('admits-starlings');
     expect(codes({ ...good, entryHoleDiameterMm: 40 }, 'europe')).not.toContain('admits-starlings');
     // the starling row itself suits a 2 in hole box built to its size
@@ -149,7 +149,7 @@ describe('assessBirdFit', () => {
   });
 
   it('notes house sparrows from 32 mm, as a caution in North America and information in Europe', () => {
-    // source: RSPB and NABU via trade-facts §1b — house sparrow 32 mm
+    // source: RSPB and NABU — house sparrow 32 mm
     const r = assessBirdFit({ ...good, entryHoleDiameterMm: 32 });
     const w = r.warnings.filter((x) => x.code === 'admits-house-sparrows');
     expect(w.find((x) => x.region === 'north-america')!.severity).toBe('caution');
@@ -159,7 +159,7 @@ describe('assessBirdFit', () => {
   });
 
   it('warns about missing drainage, ventilation and cleaning access', () => {
-    // source: RSPB/BTO/NABU/USFWS drainage; Cornell ventilation and cleaning access (trade-facts §1b, §1c)
+    // source: RSPB/BTO/NABU/USFWS drainage; Cornell ventilation and cleaning access (RSPB nest-box advice; BTO essential guide; NABU; USFWS For the Birds, 2001; Cornell NestWatch)
     const c = codes({ ...good, drainageHoleCount: 0, ventilationAreaMm2: 0, cleaningAccess: false });
     expect(c).toEqual(expect.arrayContaining(['no-drainage', 'no-ventilation', 'no-cleaning-access']));
     const ok = codes(good);
@@ -167,7 +167,7 @@ describe('assessBirdFit', () => {
   });
 
   it('cautions when the hole is under 125 mm above the floor', () => {
-    // source: RSPB via trade-facts §1b — bottom of hole ≥ 125 mm above the inside floor
+    // source: RSPB — bottom of hole ≥ 125 mm above the inside floor
     expect(codes({ ...good, holeAboveFloorMm: 100 })).toContain('hole-low-above-floor');
     expect(codes({ ...good, holeAboveFloorMm: 125 })).not.toContain('hole-low-above-floor');
   });
@@ -178,12 +178,12 @@ describe('assessBirdFit', () => {
   });
 
   it('explains thin printed walls against wood guidance', () => {
-    // source: BTO and Which? via trade-facts §1b (≥ 15 mm); Cornell via §1c (¾ in)
+    // source: BTO and Which? (≥ 15 mm); Cornell NestWatch (¾ in)
     const r = assessBirdFit({ ...good, wallThicknessMm: 3 });
     const w = r.warnings.find((x) => x.code === 'thin-walls')!;
     expect(w.severity).toBe('warning');
     expect(w.message).toMatch(/PLA/);
-    // source: trade-facts §2a [C] — 3 mm PLA (k 0.13) = 0.023 m²K/W vs 19 mm pine (k 0.11) = 0.173: about 13 %
+    // source: computed from k (USDA FPL Wood Handbook Table 4-7; MakeItFrom PLA data sheet) — 3 mm PLA (k 0.13) = 0.023 m²K/W vs 19 mm pine (k 0.11) = 0.173: about 13 %
     expect(w.message).toMatch(/about 13 %/);
     expect(
       assessBirdFit({ ...good, wallThicknessMm: 16 }).warnings.find((x) => x.code === 'thin-walls')!.severity,

@@ -71,7 +71,7 @@ describe('catalogue service for spec sheets and quotes', () => {
     expect(variant!.templateVersion).toBe(findTemplate('gable-box')?.version); // the seeded family's template, current version
     expect(variant!.attributes).toEqual({ colour: 'sand', material: 'pla', finish: null });
     expect(variant!.params).toMatchObject({ entryHoleDiameterMm: 25, trimStyle: 'none', cavityDepthMm: 160 });
-    // source: RSPB via trade-facts §1b — blue tit hole 25 mm; the box reports the hole it was built with
+    // source: RSPB — blue tit hole 25 mm; the box reports the hole it was built with
     expect(variant!.report.facts.entryHoleDiameterMm).toBeCloseTo(25, 1);
     expect(variant!.report.massG).toBeGreaterThan(0);
     expect(variant!.cost.breakdown.totalCents).toBe(variant!.cost.costCents);

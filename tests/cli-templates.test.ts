@@ -72,7 +72,7 @@ describe('npm run cli -- export', () => {
     // source: node:crypto, an independent sha256 of the bytes on disk
     expect(printed.fileSha256).toBe(createHash('sha256').update(file).digest('hex'));
     expect(printed.fileSha256).not.toBe(printed.meshSha256);
-    // source: Bourke via trade-facts §6
+    // source: Bourke
     expect(file.byteLength).toBe(84 + 50 * printed.triangles);
     // source: Debian admesh 0.98 — no disconnected facets, two parts (pod + floor plug), same volume
     const { stdout: report } = await run('admesh', ['--exact', '--normal-directions', out]);

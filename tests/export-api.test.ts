@@ -47,7 +47,7 @@ describe('POST /api/exports', () => {
     const local = await generate('gable-box', params);
     expect(res.headers['x-mesh-sha256']).toBe(local.sha256);
     expect(Number(res.headers['x-mesh-triangles'])).toBe(local.triangles);
-    // source: Bourke via trade-facts §6 — 84 + 50·N bytes
+    // source: Bourke — 84 + 50·N bytes
     expect((res.body as Buffer).byteLength).toBe(84 + 50 * local.triangles);
   }, 60_000);
 
@@ -193,7 +193,7 @@ describe('GET /api/templates', () => {
     // source: issue 3 — ridge strip default 6.35 mm
     expect(ridge).toMatchObject({ unit: 'mm', kind: 'number', default: 6.35 });
     const pitch = gable.parameters.find((p: { key: string }) => p.key === 'roofPitchDeg');
-    // source: trade-facts §3 — 45° self-supporting limit enforced by the range
+    // source: Mazlan et al., J. Adv. Ind. Tech. & Appl. (UTHM), 2020 — 45° self-supporting limit enforced by the range
     expect(pitch.min).toBe(45);
   });
 });

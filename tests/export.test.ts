@@ -19,10 +19,10 @@ describe('binary STL', () => {
   it('is 84 + 50·N bytes with the triangle count at byte 80', () => {
     const bytes = writeStl(design.mesh);
     const n = design.mesh.indices.length / 3;
-    // source: Paul Bourke "STL format" via trade-facts §6 — 80-byte header, uint32 count, 50 bytes per facet
+    // source: Paul Bourke "STL format" — 80-byte header, uint32 count, 50 bytes per facet
     expect(bytes.byteLength).toBe(84 + 50 * n);
     expect(new DataView(bytes.buffer).getUint32(80, true)).toBe(n);
-    // source: freesurferformats docs via trade-facts §6 — a binary header must not start with "solid"
+    // source: freesurferformats docs — a binary header must not start with "solid"
     expect(new TextDecoder().decode(bytes.subarray(0, 5))).not.toBe('solid');
   });
 
@@ -56,7 +56,7 @@ describe('binary STL', () => {
 describe('3MF package', () => {
   it('holds the OPC parts, the core namespace, millimetres and every triangle', () => {
     const files = unzipSync(write3mf(design.mesh, { unit: 'millimeter' }));
-    // source: 3MF Core Specification via trade-facts §6 — OPC zip with content types, root relationship, model part
+    // source: 3MF Core Specification — OPC zip with content types, root relationship, model part
     expect(Object.keys(files).sort()).toEqual(['3D/3dmodel.model', '[Content_Types].xml', '_rels/.rels']);
     expect(strFromU8(files['[Content_Types].xml'])).toContain('application/vnd.ms-package.3dmanufacturing-3dmodel+xml');
     const rels = strFromU8(files['_rels/.rels']);

@@ -257,7 +257,7 @@ describe('computing and the family gate', () => {
     await computeNow(t, family.id);
     current = (await designer.get(`/api/families/${family.id}`)).body.family as Family;
     expect(current.gate.blockers.map((b) => b.code)).toEqual(['birdfit_unacknowledged']);
-    // source: BTO / Which? via trade-facts §1 — timber walls of at least 15 mm; the 10 mm printed wall is flagged
+    // source: BTO / Which? — timber walls of at least 15 mm; the 10 mm printed wall is flagged
     expect(current.gate.warnings.find((w) => w.code === 'thin-walls')?.severity).toBe('warning');
     submit = await designer.post(`/api/families/${family.id}/submit`).send({});
     expect(submit.status).toBe(409);

@@ -1,8 +1,8 @@
 /**
  * Outdoor fitness in families: every computed variant stores the sol-air roof and wall temperatures of its material
  * and colour, and a surface above the material's heat-deflection temperature blocks the gate until a designer
- * acknowledges it in writing. Expected temperatures are the worked values of trade-facts §2c (ASHRAE sol-air
- * formula); PLA's heat-deflection temperature is trade-facts §2e.
+ * acknowledges it in writing. Expected temperatures are the values of the ASHRAE sol-air
+ * formula (ASHRAE Handbook—Fundamentals); PLA's heat-deflection temperature is from the NatureWorks Ingeo 2003D data sheet.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Variant } from '../shared/schemas/variant';
@@ -42,14 +42,14 @@ describe('outdoor heat in the family gate', () => {
     expect(white.status, white.error ?? '').toBe('done');
     expect(black.status, black.error ?? '').toBe('done');
 
-    // source: ASHRAE sol-air worked values via trade-facts §2c — h_o 17, air 30 °C; roof 1000 W/m² − 3.9 K,
+    // source: ASHRAE sol-air worked values — h_o 17, air 30 °C; roof 1000 W/m² − 3.9 K,
     // wall 600 W/m²: α 0.25 roof 40.8 °C, wall 38.8 °C; α 0.95 roof 82.0 °C, wall 63.5 °C
-    // (white 0.25 and black 0.95 are the absorptances of shared/production/defaults.ts, trade-facts §2d)
+    // (white 0.25 and black 0.95 are the absorptances of shared/production/defaults.ts; solar absorptance table, scirp.org paper 88555)
     expect(white.report!.outdoor!.roof.solAirC).toBeCloseTo(40.8, 1);
     expect(white.report!.outdoor!.wall.solAirC).toBeCloseTo(38.8, 1);
     expect(black.report!.outdoor!.roof.solAirC).toBeCloseTo(82.0, 1);
     expect(black.report!.outdoor!.wall.solAirC).toBeCloseTo(63.5, 1);
-    // source: Ingeo 2003D heat distortion at 0.45 MPa via trade-facts §2e — PLA 55 °C
+    // source: Ingeo 2003D heat distortion at 0.45 MPa — PLA 55 °C
     expect(black.report!.outdoor!.heatDeflectionC).toBe(55);
     expect(black.report!.outdoor!.wallResistance?.ratioToPine).toBeGreaterThan(0);
 
@@ -111,7 +111,7 @@ describe('outdoor heat in the family gate', () => {
     );
     await computeNow(t, family.id);
     const current = (await (await t.agent('designer')).get(`/api/families/${family.id}`)).body.family as Family;
-    // source: trade-facts §2c/§2e — white roof 40.8 °C stays under PLA's 55 °C by more than the 10 K caution margin
+    // source: ASHRAE sol-air formula; NatureWorks Ingeo 2003D data sheet — white roof 40.8 °C stays under PLA's 55 °C by more than the 10 K caution margin
     expect(current.gate.warnings.some((w) => w.code === 'outdoor-heat')).toBe(false);
     expect(current.gate.blockers.some((b) => b.code === 'outdoor_unacknowledged')).toBe(false);
   });
@@ -127,8 +127,8 @@ describe('outdoor heat in the family gate', () => {
     for (const summary of seeded) {
       expect(summary.state).not.toBe('draft');
       const family = (await designer.get(`/api/families/${summary.id}`)).body.family as Family;
-      // source: trade-facts §2c formula with moss green α 0.65 (roof 64.3 °C) and bark brown α 0.80 (roof 73.2 °C),
-      // both above PLA's 55 °C (trade-facts §2e)
+      // source: ASHRAE sol-air formula with moss green α 0.65 (roof 64.3 °C) and bark brown α 0.80 (roof 73.2 °C),
+      // both above PLA's 55 °C (NatureWorks Ingeo 2003D data sheet)
       const heat = family.gate.warnings.find((w) => w.code === 'outdoor-heat');
       expect(heat?.acknowledgement?.text.length).toBeGreaterThanOrEqual(10);
       expect(family.gate.ok).toBe(true);

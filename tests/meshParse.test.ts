@@ -23,7 +23,7 @@ const cube = geomToMesh(box([0, 0, 0], [20, 20, 20]));
 describe('parseStl', () => {
   it('reads a binary STL whose size is 84 + 50 N bytes', () => {
     const bytes = toBinaryStl(cube);
-    // source: Paul Bourke "STL format" via trade-facts §6 — 80-byte header, uint32 count, 50 bytes per facet
+    // source: Paul Bourke "STL format" — 80-byte header, uint32 count, 50 bytes per facet
     expect(bytes.length).toBe(84 + 50 * 12);
     const mesh = parseStl(bytes);
     expect(mesh.indices.length / 3).toBe(12);
@@ -33,7 +33,7 @@ describe('parseStl', () => {
   });
 
   it('reads a binary STL whose header starts with "solid" as binary (by size)', () => {
-    // source: freesurferformats docs via trade-facts §6 — readers may mistake such files for ASCII
+    // source: freesurferformats docs — readers may mistake such files for ASCII
     const bytes = toBinaryStl(cube);
     bytes.set(strToU8('solid but binary'), 0);
     expect(parseStl(bytes).indices.length / 3).toBe(12);
@@ -125,7 +125,7 @@ describe('parse3mf', () => {
     const xml = `<?xml version="1.0" encoding="UTF-8"?><model unit="inch" xmlns="http://schemas.microsoft.com/3dmanufacturing/core/2015/02"><resources>${cubeObject(1)}</resources><build><item objectid="1" transform="2 0 0 0 1 0 0 0 1 10 0 0"/></build></model>`;
     const mesh = parse3mf(make3mf(xml));
     const m = measureMesh(mesh);
-    // source: 3MF Core Spec §Model — unit inch; 1 in = 25.4 mm (trade-facts unit helpers)
+    // source: 3MF Core Spec §Model — unit inch; 1 in = 25.4 mm (NIST SP 811, 2008: the inch is 25.4 mm exactly)
     expect(m.volumeMm3).toBeCloseTo(2 * 25.4 ** 3, 0);
     expect(m.minMm[0]).toBeCloseTo(10 * 25.4, 3);
     expect(meshTopology(mesh).watertight).toBe(true);

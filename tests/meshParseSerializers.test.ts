@@ -37,7 +37,7 @@ describe('reading files from outside writers', () => {
   it('binary STL from @jscad/stl-serializer: 84 + 50 N bytes, same volume and area', () => {
     const bytes = toBytes(serializeStl({ binary: true }, part));
     const mesh = parseMeshFile(bytes, 'part.stl');
-    // source: Bourke via trade-facts §6 — binary STL size 84 + 50 N
+    // source: Bourke — binary STL size 84 + 50 N
     expect(bytes.length).toBe(84 + 50 * (mesh.indices.length / 3));
     const m = measureMesh(mesh);
     expect(m.volumeMm3 / volume).toBeCloseTo(1, 4);

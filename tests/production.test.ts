@@ -51,25 +51,25 @@ const cube40: ProductionInput = {
 
 describe('filament', () => {
   it('gives the published cross-section of 1.75 mm filament', () => {
-    // source: fabbaloo 2018 via trade-facts §4 — 1.75 mm: A = 2.405 mm²
+    // source: fabbaloo 2018 — 1.75 mm: A = 2.405 mm²
     expect(filamentAreaMm2(1.75)).toBeCloseTo(2.405, 3);
-    // source: trade-facts §4 [C] — 2.85 mm: A = 6.379 mm²
+    // source: computed from ρ and the filament cross-section (fabbaloo, Basic 3D printer filament calculations, 2018) — 2.85 mm: A = 6.379 mm²
     expect(filamentAreaMm2(2.85)).toBeCloseTo(6.379, 3);
   });
 
   it('gives about 335 m per kg of 1.75 mm PLA at 1.24 g/cm³', () => {
-    // source: ecoreprap.com via trade-facts §4 [P] — 1 kg PLA, 1.75 mm ≈ 335 m ([C] 335.3 m)
+    // source: ecoreprap.com — 1 kg PLA, 1.75 mm ≈ 335 m ([C] 335.3 m)
     expect(filamentLengthM(1000, 1.24, 1.75)).toBeCloseTo(335.3, 0);
-    // source: ecoreprap.com via trade-facts §4 [P] — with ρ 1.25 ≈ 333 m
+    // source: ecoreprap.com — with ρ 1.25 ≈ 333 m
     expect(Math.abs(filamentLengthM(1000, 1.25, 1.75) - 333)).toBeLessThan(0.6);
   });
 
   it('matches the computed lengths per kg and masses per metre of PETG and ASA', () => {
-    // source: trade-facts §4 [C] — length per kg: PETG 327.4 m; ASA 388.6 m; ABS ≈ 400 m (ρ 1.04)
+    // source: computed from ρ and the filament cross-section (fabbaloo, Basic 3D printer filament calculations, 2018) — length per kg: PETG 327.4 m; ASA 388.6 m; ABS ≈ 400 m (ρ 1.04)
     expect(filamentLengthM(1000, petg.densityGcm3, 1.75)).toBeCloseTo(327.4, 0);
     expect(filamentLengthM(1000, asa.densityGcm3, 1.75)).toBeCloseTo(388.6, 0);
     expect(Math.abs(filamentLengthM(1000, 1.04, 1.75) - 400)).toBeLessThan(1);
-    // source: trade-facts §4 [C] — mass per metre: PLA 2.98 g/m, PETG 3.06 g/m, ASA 2.57 g/m
+    // source: computed from ρ and the filament cross-section (fabbaloo, Basic 3D printer filament calculations, 2018) — mass per metre: PLA 2.98 g/m, PETG 3.06 g/m, ASA 2.57 g/m
     expect(1 / filamentLengthM(1, pla.densityGcm3, 1.75)).toBeCloseTo(2.98, 2);
     expect(1 / filamentLengthM(1, petg.densityGcm3, 1.75)).toBeCloseTo(3.06, 1);
     expect(1 / filamentLengthM(1, asa.densityGcm3, 1.75)).toBeCloseTo(2.57, 2);
@@ -78,7 +78,7 @@ describe('filament', () => {
 
 describe('volumetric flow', () => {
   it('is layer height × line width × speed', () => {
-    // source: muppetlabs "Calibrating maximum volumetric rate" via trade-facts §4 — 0.2 × 0.45 × 100 = 9 mm³/s
+    // source: muppetlabs "Calibrating maximum volumetric rate" — 0.2 × 0.45 × 100 = 9 mm³/s
     expect(volumetricFlowMm3s(0.2, 0.45, 100)).toBeCloseTo(9, 9);
   });
 });
@@ -89,13 +89,13 @@ describe('default data', () => {
     for (const m of DEFAULT_MATERIALS) expect(() => MaterialSchema.parse(m)).not.toThrow();
     expect(() => PrintSettingsSchema.parse(DEFAULT_SETTINGS)).not.toThrow();
     expect(() => CostRatesSchema.parse(DEFAULT_RATES)).not.toThrow();
-    // source: NatureWorks Ingeo 4043D TDS via trade-facts §2e — PLA 1.24 g/cm³; Ingeo 2003D HDT 55 °C at 0.45 MPa
+    // source: NatureWorks Ingeo 4043D TDS — PLA 1.24 g/cm³; Ingeo 2003D HDT 55 °C at 0.45 MPa
     expect(pla.densityGcm3).toBe(1.24);
     expect(pla.heatDeflectionC).toBeGreaterThanOrEqual(55);
     expect(pla.heatDeflectionC).toBeLessThanOrEqual(58);
-    // source: renato.design via trade-facts §2e — ASA 1.07 g/cm³
+    // source: renato.design — ASA 1.07 g/cm³
     expect(asa.densityGcm3).toBe(1.07);
-    // source: trade-facts §2d — white paint α ≈ 0.25 (white enamel 0.252), black ≈ 0.95 (soot 0.95)
+    // source: solar absorptance table, scirp.org paper 88555 — white paint α ≈ 0.25 (white enamel 0.252), black ≈ 0.95 (soot 0.95)
     expect(pla.colours.find((c) => c.id === 'white')!.solarAbsorptance).toBeCloseTo(0.25, 2);
     expect(pla.colours.find((c) => c.id === 'black')!.solarAbsorptance).toBeCloseTo(0.95, 2);
   });
@@ -155,7 +155,7 @@ describe('estimateProduction', () => {
     const e = estimateProduction(cube40, printer, pla, solid, DEFAULT_RATES);
     expect(e.extrudedVolumeMm3).toBeCloseTo(64000, 6);
     expect(e.massG).toBeCloseTo(64 * 1.24, 6);
-    // source: L = m/(ρ·A), trade-facts §4 — 64 cm³ / 2.405 mm² = 26.61 m
+    // source: L = m/(ρ·A), fabbaloo, Basic 3D printer filament calculations, 2018 — 64 cm³ / 2.405 mm² = 26.61 m
     expect(e.filamentLengthM).toBeCloseTo(64000 / 2.405 / 1000, 1);
   });
 
@@ -186,7 +186,7 @@ describe('estimateProduction', () => {
   });
 
   it('reduces print time to V / Q without overheads (the lower bound)', () => {
-    // source: trade-facts §4 [C] — t_min ≈ V_extruded / Q_eff; Q = 0.2 × 0.45 × 100 = 9 mm³/s
+    // source: computed from ρ and the filament cross-section (fabbaloo, Basic 3D printer filament calculations, 2018) — t_min ≈ V_extruded / Q_eff; Q = 0.2 × 0.45 × 100 = 9 mm³/s
     const bare = { ...PrinterProfileSchema.parse(printer), layerChangeS: 0 };
     const settings = { ...SETTINGS, infillPct: 100, flowEfficiency: 1, travelOverheadPct: 0 };
     const e = estimateProduction(cube40, bare, pla, settings, DEFAULT_RATES);
@@ -195,7 +195,7 @@ describe('estimateProduction', () => {
   });
 
   it('caps the flow at the printer maximum', () => {
-    // source: Ellis' Print Tuning Guide via trade-facts §4 — a V6-class hot end melts about 11 mm³/s
+    // source: Ellis' Print Tuning Guide — a V6-class hot end melts about 11 mm³/s
     const fast = { ...SETTINGS, printSpeedMmS: 300, flowEfficiency: 1 };
     const e = estimateProduction(cube40, printer, pla, fast, DEFAULT_RATES);
     expect(printer.maxVolumetricFlowMm3s).toBe(11);
@@ -203,7 +203,7 @@ describe('estimateProduction', () => {
   });
 
   it('takes energy as average power × time', () => {
-    // source: 3dprintscape via trade-facts §4 — 189.5 W average over a 1 h print = 0.1895 kWh
+    // source: 3dprintscape — 189.5 W average over a 1 h print = 0.1895 kWh
     const p = { ...PrinterProfileSchema.parse(printer), averagePowerW: 189.5, layerChangeS: 0 };
     const oneHourMm3 = 9 * 3600; // at exactly 9 mm³/s
     const part: ProductionInput = { ...cube40, volumeMm3: oneHourMm3, surfaceAreaMm2: 0, footprintMm2: 0 };

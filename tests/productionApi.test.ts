@@ -24,11 +24,11 @@ describe('GET /api/production', () => {
     const catalogue = ProductionCatalogueSchema.parse(res.body);
     expect(catalogue.printers.length).toBeGreaterThanOrEqual(1);
     const pla = catalogue.materials.find((item) => item.id === 'pla');
-    // source: NatureWorks Ingeo 2003D via trade-facts §2e — heat distortion at 0.45 MPa 55 °C
+    // source: NatureWorks Ingeo 2003D — heat distortion at 0.45 MPa 55 °C
     expect(pla?.heatDeflectionC).toBeCloseTo(55, 0);
-    // source: NatureWorks Ingeo 4043D via trade-facts §2e — density 1.24 g/cm³
+    // source: NatureWorks Ingeo 4043D — density 1.24 g/cm³
     expect(pla?.densityGcm3).toBeCloseTo(1.24, 2);
-    // source: trade-facts §2d — soot 0.95, black paint 0.975; white enamel 0.252
+    // source: solar absorptance table, scirp.org paper 88555 — soot 0.95, black paint 0.975; white enamel 0.252
     expect(pla?.colours.find((c) => c.id === 'black')?.solarAbsorptance).toBeGreaterThanOrEqual(0.9);
     expect(pla?.colours.find((c) => c.id === 'white')?.solarAbsorptance).toBeLessThanOrEqual(0.3);
     // No stored settings or rates yet: the defaults apply.

@@ -63,20 +63,20 @@ describe('variant spec sheet', () => {
   it('holds the cautions (heat, perches, mounting height, predator guards, local rules) and the care', () => {
     for (const title of ['Heat.', 'Perches.', 'Mounting height.', 'Predator guards.', 'Local rules.'])
       expect(text).toContain(title);
-    expect(text).toContain('41.7 °C'); // Audubon (2024) via trade-facts §1d: > 107 °F (41.7 °C) is lethal to nestlings
-    expect(text).toMatch(/perch under the entry/); // USFWS "For the Birds" via trade-facts §1c
-    expect(text).toMatch(/outside only/); // NestWatch FAQ via trade-facts §1c: paint the exterior only
+    expect(text).toContain('41.7 °C'); // Audubon (2024): > 107 °F (41.7 °C) is lethal to nestlings
+    expect(text).toMatch(/perch under the entry/); // USFWS "For the Birds"
+    expect(text).toMatch(/outside only/); // NestWatch FAQ: paint the exterior only
     expect(text).toMatch(/once a year/);
   });
 
   it('prints the roof and wall sol-air temperatures of its colour beside the heat-deflection temperature, in °C and °F', () => {
-    // source: sol-air formula of trade-facts §2c (T_sa = T_o + α·I/h_o − ε·ΔR/h_o; h_o 17, 30 °C air, roof 1000 W/m²
-    // with −3.9 K, wall 600 W/m²) with sand's estimated α 0.40 (shared/production/defaults.ts, colour classes of §2d)
+    // source: ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals) (T_sa = T_o + α·I/h_o − ε·ΔR/h_o; h_o 17, 30 °C air, roof 1000 W/m²
+    // with −3.9 K, wall 600 W/m²) with sand's estimated α 0.40 (shared/production/defaults.ts, colour classes of the published absorptance tables)
     const roofC = 30 + (0.4 * 1000) / 17 - 3.9; // 49.6 °C
     const wallC = 30 + (0.4 * 600) / 17; // 44.1 °C
     const cf = (c: number, d = 1) => `${c.toFixed(d)} °C (${((c * 9) / 5 + 32).toFixed(0)} °F)`;
     expect(text).toContain(`${cf(roofC)} / ${cf(wallC)}`); // key figures, page 1
-    // source: PLA heat-deflection temperature at 0.45 MPa via trade-facts §2e — 55 °C (= 131 °F)
+    // source: PLA heat-deflection temperature at 0.45 MPa — 55 °C (= 131 °F)
     expect(text).toContain('55 °C (131 °F), PLA at 0.45 MPa');
     // The heat caution repeats them and, with the roof within the 10 K margin, advises shade; it defers to local advice.
     expect(text).toContain(`reaches about ${cf(roofC)} on the roof and ${cf(wallC)} on the walls`);
@@ -85,15 +85,15 @@ describe('variant spec sheet', () => {
   });
 
   it('names the species it suits with the source of the guidance', () => {
-    // source: RSPB via trade-facts §1b — great tit hole 28 mm, so a 28 mm box suits it
+    // source: RSPB — great tit hole 28 mm, so a 28 mm box suits it
     expect(text).toContain('Great tit (Parus major)');
     expect(text).toMatch(/\[1\] .*RSPB|\[2\] .*RSPB/);
   });
 
   it('gives the shipping box with actual and dimensional weight under each divisor and its date', () => {
     expect(text).toMatch(/Box, outside \(L × W × H\) \d+ × \d+ × \d+ mm \([\d.]+ × [\d.]+ × [\d.]+ in\)/);
-    expect(text).toContain('139 in³/lb (2017-01-01)'); // UPS, trade-facts §5
-    expect(text).toContain('5000 cm³/kg'); // metric, trade-facts §5
+    expect(text).toContain('139 in³/lb (2017-01-01)'); // UPS help centre, Determine billable weight
+    expect(text).toContain('5000 cm³/kg'); // UPS metric dimensional-weight page
     expect(text).toMatch(/Actual weight [\d.]+ (g|kg) \([\d.]+ lb\)/);
   });
 
@@ -134,8 +134,8 @@ describe('family spec sheet and errors', () => {
     const text = flat(run('pdftotext', ['-raw', file, '-']));
     for (const sku of FIXTURE_SKUS) expect(text).toContain(sku);
     expect(text).toContain('32 mm (1.26 in)'); // 32 / 25.4 = 1.26
-    // source: sol-air formula of trade-facts §2c with moss green's estimated α 0.65: roof 30 + 0.65·1000/17 − 3.9
-    // = 64.3 °C (148 °F), above PLA's 55 °C (trade-facts §2e), so the sheet says it may sag
+    // source: ASHRAE sol-air formula (ASHRAE Handbook—Fundamentals) with moss green's estimated α 0.65: roof 30 + 0.65·1000/17 − 3.9
+    // = 64.3 °C (148 °F), above PLA's 55 °C (NatureWorks Ingeo 2003D data sheet), so the sheet says it may sag
     expect(text).toContain('64.3 °C (148 °F)');
     expect(text).toMatch(/The roof can pass that temperature and may sag or warp/);
   }, 60_000);

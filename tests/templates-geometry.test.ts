@@ -8,7 +8,7 @@ import { TEMPLATES, generate, parseParams, findTemplate } from '../templates/ind
 import { TEARDROP_TIP_RADII } from '../templates/lib/teardrop';
 import { triangleFacets } from './templates.meshCheck';
 
-/** source: trade-facts §3 (Mazlan et al. 2020) — self-supporting up to 45° from vertical; 0.5° numerical tolerance. */
+/** source: Mazlan et al., J. Adv. Ind. Tech. & Appl. (UTHM), 2020 — self-supporting up to 45° from vertical; 0.5° numerical tolerance. */
 const LIMIT_NZ = -Math.sin((45.5 * Math.PI) / 180);
 
 /** Down-facing area steeper than 45° from vertical, split into sloped faces and flat (bridged) ceilings. */

@@ -110,7 +110,7 @@ describe.each(TEMPLATES.map((template) => [template.id, template] as const))('te
         expect(p.step).toBeGreaterThan(0);
       }
     }
-    // source: USFWS "For the Birds" via trade-facts §1c — perches help predators, so the perch is off by default
+    // source: USFWS "For the Birds" — perches help predators, so the perch is off by default
     const perch = described.find((p) => p.key === 'perch');
     expect(perch?.default).toBe(false);
     expect(perch?.help).toMatch(/predator/i);
@@ -187,12 +187,12 @@ describe('default designs suit a small cavity nester', () => {
     '%s: 32 mm hole at least 125 mm above the floor, walls ≥ 10 mm',
     async (id) => {
       const { facts } = await generate(id, {});
-      // source: NABU/BUND 32 mm and RSPB ≥ 125 mm via trade-facts §1b
+      // source: NABU/BUND 32 mm and RSPB ≥ 125 mm
       expect(facts.entryHoleDiameterMm).toBe(32);
       expect(facts.holeAboveFloorMm).toBeGreaterThanOrEqual(125);
-      // source: NABU 12 × 12 cm base via trade-facts §1b (round chambers: diameter ≥ 10 cm, from memory close enough)
+      // source: NABU 12 × 12 cm base (round chambers: diameter ≥ 10 cm, from memory close enough)
       expect(facts.floorWidthMm).toBeGreaterThanOrEqual(100);
-      // walls: printed walls with air-filled infill; 10 mm is our choice (trade-facts §7.4 gives 15–20 mm for wood)
+      // walls: printed walls with air-filled infill; 10 mm is our choice (BTO gives ≥ 15 mm and NABU 20 mm for wood)
       expect(facts.wallThicknessMm).toBeGreaterThanOrEqual(10);
       expect(facts.hasPerch).toBe(false);
       expect(facts.drainageHoleCount).toBeGreaterThan(0);

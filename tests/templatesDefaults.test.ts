@@ -197,7 +197,7 @@ describe.each(TEMPLATES.map((t) => [t.id] as const))('template %s at its default
       .warnings.filter((w) => w.severity === 'warning')
       .map((w) => w.code);
     // 'thin-walls' is true for every printed PLA box: 10 mm of PLA is thinner than the 15–19 mm wood that guidance
-    // asks for (trade-facts §2a), so it stays and says how to compensate.
+    // asks for (BTO essential guide; Cornell NestWatch), so it stays and says how to compensate.
     expect(blocking.filter((code) => code !== 'thin-walls')).toEqual([]);
   }, 60_000);
 

@@ -8,7 +8,7 @@ import { DEFAULT_SHOP_SETTINGS } from '../../shared/shop/defaultShopSettings';
 const ROW_ID = 'studio';
 
 /**
- * Defaults of the demo studio. Divisors follow trade-facts §5: UPS/FedEx US domestic 139 in³/lb [P] (the move from
+ * Defaults of the demo studio. Divisors (UPS help centre, "Determine billable weight"; USPS dimensional weight notice): the parcel carriers' US domestic 139 in³/lb [P] (the move from
  * 166 to 139 in 2017 is from memory, so the 2017-01-01 date is approximate), the metric 5000 cm³/kg rule of the UPS
  * metric page [P] (date: the studio's own start on it, an assumption), USPS 166 in³/lb over 1 ft³ since
  * 23 June 2019 [P]. Packaging and farm figures are assumptions of the scenario (common practice, no source).
@@ -17,7 +17,7 @@ export const DEFAULT_SALES_SETTINGS: SalesSettings = {
   dimDivisors: [
     {
       id: 'ups-fedex-us',
-      label: 'UPS / FedEx, US domestic',
+      label: 'Parcel carrier, US domestic',
       unitSystem: 'imperial',
       divisor: 139,
       effectiveFrom: '2017-01-01',
@@ -35,7 +35,7 @@ export const DEFAULT_SALES_SETTINGS: SalesSettings = {
     },
     {
       id: 'usps',
-      label: 'USPS, over 1 ft³',
+      label: 'Postal service, parcels over 1 ft³',
       unitSystem: 'imperial',
       divisor: 166,
       effectiveFrom: '2019-06-23',

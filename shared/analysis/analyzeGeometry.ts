@@ -13,7 +13,7 @@ import { TriangleBvh } from './TriangleBvh';
 export interface GeometryOptions {
   /** Which model direction points up, or a rotation (default '+z'). */
   up?: BuildOrientation;
-  /** Overhang threshold, degrees from vertical (default 45; trade-facts §3 [P]). */
+  /** Overhang threshold, degrees from vertical (default 45; Mazlan et al., J. Adv. Ind. Tech. & Appl. (UTHM), 2020). */
   overhangDeg?: number;
   /** Ray budget of the support estimate (default 200,000). */
   supportMaxRays?: number;
@@ -87,7 +87,7 @@ export function analyzeGeometry(mesh: IndexedMesh, options: GeometryOptions = {}
       warnSpanMm,
       failSpanMm,
       maxSpanMm: bridges.length ? bridges[0].spanMm : 0,
-      limitsSource: 'from memory: no published bridge limit found; 10 mm warn / 20 mm fail (trade-facts §3 [M])',
+      limitsSource: 'from memory: no published bridge limit found; 10 mm warn / 20 mm fail',
       regions: bridges,
     },
     thinnestWall: wall,

@@ -7,9 +7,9 @@ import { PLATE_TOLERANCE_MM } from './measureMesh';
 export interface BridgeOptions {
   /** Faces within this angle of facing straight down count as flat (common practice, no source). */
   flatWithinDeg?: number;
-  /** Span above which a bridge is flagged. From memory: a ~10 mm default, see trade-facts §3 [M]. */
+  /** Span above which a bridge is flagged. From memory: a ~10 mm default; no published limit found. */
   warnSpanMm?: number;
-  /** Span above which a bridge is judged to fail. From memory: ~20 mm, see trade-facts §3 [M]. */
+  /** Span above which a bridge is judged to fail. From memory: ~20 mm; no published limit found. */
   failSpanMm?: number;
 }
 

@@ -7,7 +7,7 @@ import { PINE_BOARD_MM, PINE_K_WMK } from '../thermal/wallResistance';
 export const HOLE_TOLERANCE_MM = 1;
 /** Floor, depth and hole height may fall this share short of the published minimum (assumption, no source). */
 export const SIZE_TOLERANCE = 0.05;
-/** A hole wider than 1½ in admits European starlings (trade-facts §1a, low-authority source). */
+/** A hole wider than 1½ in admits European starlings (a low-authority web source, from memory otherwise). */
 export const STARLING_SAFE_HOLE_MM = 38.1;
 /** House sparrows use a 32 mm hole (RSPB, NABU). */
 export const HOUSE_SPARROW_HOLE_MM = 32;

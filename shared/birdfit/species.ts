@@ -1,6 +1,6 @@
 import type { Species } from '../schemas/birdfit';
 
-// Sources (full references in shared/reference/trade-facts.md §1a–§1b of the workspace):
+// Sources (docs/sources.md describes each):
 const CLASSIC =
   'US Bureau of Biological Survey table "Dimensions of nesting boxes" (bfnc.ca; Dearborn, Bird Houses and How to Build Them, 1914/1923)';
 const EUROPE =

@@ -6,7 +6,7 @@ export const STL_HEADER = 'Nestwright binary STL, units: millimetre';
 /**
  * Writes a binary STL: 80-byte header, uint32 triangle count, then per triangle the unit normal, three vertices
  * (float32, little-endian) and a zero uint16 attribute count, so the file is 84 + 50·N bytes
- * (source: Paul Bourke, "STL format", via trade-facts §6).
+ * (source: Paul Bourke, "STL format", 1999).
  * @param mesh - a validated, outward-wound mesh in millimetres
  */
 export function writeStl(mesh: IndexedMesh): Uint8Array<ArrayBuffer> {

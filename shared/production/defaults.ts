@@ -1,6 +1,6 @@
 import type { CostRates, Finish, Material, PrinterProfile, PrintSettings } from '../schemas/production';
 
-// Values marked [P], [M] or [C] follow ../../../shared/reference/trade-facts.md (published / from memory / computed).
+// Values are marked [P] published (the source is named beside it), [M] from memory, [C] computed from published values.
 // The printers, rates and prices are an invented farm for the demo studio; change them per studio.
 
 /** Id of the farm profile that new families, the editor and the demo families start with. */
@@ -113,7 +113,7 @@ export const DEFAULT_PRINTERS: PrinterProfile[] = [
   },
 ];
 
-// Solar absorptance per colour (trade-facts §2d). Filament colours are not paints: these are colour-class
+// Solar absorptance per colour (published solar absorptance tables, e.g. scirp.org paper 88555). Filament colours are not paints: these are colour-class
 // estimates anchored on the published paint values, to be measured for each filament where it matters.
 const WHITE = { id: 'white', name: 'White', hex: '#f4f2ec', solarAbsorptance: 0.25 }; // white enamel 0.252 [P]
 const SAND = { id: 'sand', name: 'Sand', hex: '#d8c8a4', solarAbsorptance: 0.4 }; // between light cream 0.30 and light green 0.50 [P]; estimate
@@ -121,35 +121,35 @@ const MOSS = { id: 'moss-green', name: 'Moss green', hex: '#5f6f3a', solarAbsorp
 const BARK = { id: 'bark-brown', name: 'Bark brown', hex: '#5a4030', solarAbsorptance: 0.8 }; // dark class > 0.70 [P]; estimate
 const BLACK = { id: 'black', name: 'Black', hex: '#1c1c1c', solarAbsorptance: 0.95 }; // soot 0.95, black paint 0.975 [P]
 
-/** Filament materials with sourced properties (trade-facts §2a, §2e) and example prices. */
+/** Filament materials with sourced properties (data sheets named beside each value) and example prices. */
 export const DEFAULT_MATERIALS: Material[] = [
   {
     id: 'pla',
     name: 'PLA',
-    densityGcm3: 1.24, // NatureWorks Ingeo 4043D TDS, ASTM D792 (trade-facts §2e [P])
+    densityGcm3: 1.24, // NatureWorks Ingeo 4043D TDS, ASTM D792
     priceCentsPerKg: 2500, // retail 1 kg spools ≈ US$15–25/kg [M]; a fablab price €32/kg [P]
-    heatDeflectionC: 55, // Ingeo 2003D heat distortion at 0.45 MPa (trade-facts §2e [P]); PolyTerra 57.8 [P]
-    glassTransitionC: 58, // 55–60, Ingeo 4043D (trade-facts §2e [P])
-    thermalConductivityWmK: 0.13, // MakeItFrom data sheet (trade-facts §2a [P]); 0.12 Zmeskal [P]; 0.267 GHP [P] disagrees
+    heatDeflectionC: 55, // Ingeo 2003D heat distortion at 0.45 MPa; PolyTerra 57.8 [P]
+    glassTransitionC: 58, // 55–60, Ingeo 4043D
+    thermalConductivityWmK: 0.13, // MakeItFrom data sheet; 0.12 Zmeskal [P]; 0.267 GHP [P] disagrees
     colours: [WHITE, SAND, MOSS, BARK, BLACK],
   },
   {
     id: 'petg',
     name: 'PETG',
-    densityGcm3: 1.27, // trade-facts §2e [M], fabbaloo filament list [P]
+    densityGcm3: 1.27, // from memory [M]; fabbaloo filament list [P]
     priceCentsPerKg: 2800, // assumption, no source
-    heatDeflectionC: 70, // unfilled filament ~70 (trade-facts §2e [M])
-    glassTransitionC: 80, // 75–85 additive.tools (trade-facts §2e [P])
-    thermalConductivityWmK: 0.2, // ~0.2 (trade-facts §2a [M])
+    heatDeflectionC: 70, // unfilled filament ~70, from memory [M]
+    glassTransitionC: 80, // 75–85 additive.tools
+    thermalConductivityWmK: 0.2, // ~0.2, from memory [M]
     colours: [WHITE, SAND, MOSS, BARK, BLACK],
   },
   {
     id: 'asa',
     name: 'ASA',
-    densityGcm3: 1.07, // renato.design (trade-facts §2e [P])
+    densityGcm3: 1.07, // renato.design
     priceCentsPerKg: 3200, // assumption, no source
-    heatDeflectionC: 90, // 90–100 at 0.45 MPa, renato.design (trade-facts §2e [P]); lower end used
-    glassTransitionC: 100, // ≈ 100 (trade-facts §2e [P])
+    heatDeflectionC: 90, // 90–100 at 0.45 MPa, renato.design; lower end used
+    glassTransitionC: 100, // ≈ 100
     thermalConductivityWmK: 0.17, // from memory: ABS-family polymers ≈ 0.17; not in the reference
     colours: [WHITE, SAND, MOSS, BARK, BLACK],
   },

@@ -80,7 +80,7 @@ export const OutdoorAssessmentSchema = z.object({
 export type OutdoorAssessment = z.infer<typeof OutdoorAssessmentSchema>;
 
 /**
- * Options of the outdoor assessment. Defaults are the worked case of trade-facts §2c: air 30 °C, roof 1000 W/m²,
+ * Options of the outdoor assessment. Defaults are the ASHRAE Handbook—Fundamentals sol-air design case: air 30 °C, roof 1000 W/m²,
  * wall 600 W/m², h_o 17 W/m²K, roof long-wave correction 3.9 K.
  */
 export const AssessOutdoorOptionsSchema = z.object({

@@ -11,7 +11,7 @@ export type DimUnitSystem = z.infer<typeof DimUnitSystemSchema>;
  */
 export const DimDivisorSchema = z.object({
   id: z.string().trim().min(1).max(40),
-  /** Who applies it, e.g. "UPS / FedEx, US domestic". */
+  /** Who applies it, in generic words customers may read, e.g. "Parcel carrier, US domestic" (the carrier stays in `source`). */
   label: z.string().trim().min(1).max(80),
   unitSystem: DimUnitSystemSchema,
   /** in³ per lb (imperial) or cm³ per kg (metric). */

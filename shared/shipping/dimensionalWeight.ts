@@ -7,7 +7,7 @@ export const G_PER_LB = 453.59237;
 
 /**
  * Dimensional and billable weight of a parcel under one carrier divisor, following the published UPS rule
- * (trade-facts §5): each dimension rounded to the nearest whole inch (or centimetre), DIM weight = L × W × H ÷ divisor
+ * (UPS help centre, "Determine billable weight"): each dimension rounded to the nearest whole inch (or centimetre), DIM weight = L × W × H ÷ divisor
  * rounded up to the next whole pound (or kilogram), actual weight rounded up likewise, billable = the larger.
  * A divisor with `appliesAboveVolume` (USPS: only parcels over 1 ft³) gives a DIM weight of 0 below that volume.
  * @param outerMm - outside dimensions of the box

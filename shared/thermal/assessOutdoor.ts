@@ -8,7 +8,7 @@ import {
 import { solAirTemperature } from './solAirTemperature';
 import { wallResistance } from './wallResistance';
 
-/** Nestlings die above this inside temperature (Audubon 2024, quoting K. Stumpf; trade-facts §1d). */
+/** Nestlings die above this inside temperature (Audubon 2024, quoting K. Stumpf). */
 export const NESTLING_LETHAL_C = 41.7;
 
 const ORDER: OutdoorVerdict[] = ['ok', 'caution', 'fail'];

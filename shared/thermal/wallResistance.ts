@@ -1,10 +1,10 @@
 import { WallResistanceInputSchema, type WallResistance, type WallResistanceInput } from '../schemas/outdoor';
 
-/** Still air near 25 °C (Neutrium 0.0259 at 298 K; Carroll 0.02643 at 25 °C; trade-facts §2a). */
+/** Still air near 25 °C (Neutrium 0.0259 at 298 K; Carroll 0.02643 at 25 °C). */
 export const AIR_K_WMK = 0.026;
-/** Eastern white pine at 12 % moisture (USDA FPL Wood Handbook Table 4-7; trade-facts §2a). */
+/** Eastern white pine at 12 % moisture (USDA FPL Wood Handbook Table 4-7). */
 export const PINE_K_WMK = 0.11;
-/** A ¾ in board, the wall thickness North American guidance asks for (Cornell; trade-facts §1c). */
+/** A ¾ in board, the wall thickness North American guidance asks for (Cornell). */
 export const PINE_BOARD_MM = 19;
 /** Closed cells larger than this may let air circulate (Grabowska & Kasperski 2020: 6 mm where convection can occur). */
 export const CONVECTION_CELL_MM = 6;

@@ -19,7 +19,7 @@ export interface BarkTubeOptions {
 /**
  * A solid upright cylinder (z from 0 to height) whose side carries a bark pattern: furrows that wander as they run
  * up the trunk. The radial change per millimetre of height stays well under 1, so no face is more than 45° from
- * vertical and the texture prints without support (source: 45° self-supporting rule, trade-facts §3).
+ * vertical and the texture prints without support (source: 45° self-supporting rule, Mazlan et al., J. Adv. Ind. Tech. & Appl. (UTHM), 2020).
  * @param options - size, texture depth, seed and resolution
  */
 export function barkTube(options: BarkTubeOptions): Solid {

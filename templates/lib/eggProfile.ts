@@ -27,7 +27,7 @@ function ellipseRadius(a: number, b: number, z: number): number {
 /**
  * The region between the axis and an egg outline, cut flat at `cutZMm`, as a counter-clockwise (r, z) outline ready
  * to revolve. Where requested, the parts of the curve flatter than 45° are replaced by 45° cones, so the solid (or
- * the cavity) prints upright without support. source: 45° self-supporting rule, trade-facts §3.
+ * the cavity) prints upright without support. source: 45° self-supporting rule, Mazlan et al., J. Adv. Ind. Tech. & Appl. (UTHM), 2020.
  * @param options - sizes and where to use cones
  */
 export function eggProfile(options: EggProfileOptions): Outline {

@@ -5,7 +5,7 @@ export const TEARDROP_TIP_RADII = 1.15;
 
 /**
  * Outline of a horizontal hole that prints without support: a circle whose upper part runs out in two 45° flanks,
- * truncated flat at {@link TEARDROP_TIP_RADII} radii ("flat teardrop"; source: Zaggo via trade-facts §3). The tip
+ * truncated flat at {@link TEARDROP_TIP_RADII} radii ("flat teardrop"; source: Zaggo). The tip
  * points to +v (the build direction once placed). Counter-clockwise, centred on the origin.
  * @param diameterMm - diameter of the round part
  * @param segments - points on the full circle

@@ -107,7 +107,7 @@ describe('designer configurator', () => {
       expect(await page.getByTestId('bird-fit').textContent()).toContain(`${moved.toFixed(1)} mm`);
 
       // Switching the perch on shows why guidance advises against it.
-      // source: USFWS "For the Birds" and Cornell NestWatch via trade-facts §1c — no perch on a nest box
+      // source: USFWS "For the Birds" and Cornell NestWatch — no perch on a nest box
       if (describeParameters(template).some((param) => param.key === 'perch')) {
         expect(await page.getByTestId('bird-warnings').textContent()).not.toMatch(/perch/i);
         await page.getByTestId('param-perch').locator('.n-switch').click();
@@ -203,7 +203,7 @@ describe('designer configurator', () => {
     const stlPath = `${SHOTS}/browser-${presetId}.stl`;
     await download.saveAs(stlPath);
     const browserStl = new Uint8Array(readFileSync(stlPath));
-    // Binary STL size is 84 + 50 × triangles (source: Paul Bourke, "STL format", via trade-facts §6).
+    // Binary STL size is 84 + 50 × triangles (source: Paul Bourke, "STL format", 1999).
     const triangles = new DataView(browserStl.buffer, browserStl.byteOffset).getUint32(80, true);
     expect(browserStl.length).toBe(84 + 50 * triangles);
 
@@ -292,7 +292,7 @@ describe('outdoor fitness in the editor', () => {
       await page.waitForSelector(`[data-testid="outdoor-roof"][data-verdict="${verdict}"]`, { timeout: 60_000 });
     }
 
-    // source: sol-air via trade-facts §2c, black absorptance 0.95 (§2d), PLA HDT 55 °C (§2e):
+    // source: sol-air, black absorptance 0.95 (scirp.org absorptance table), PLA HDT 55 °C (NatureWorks Ingeo 2003D):
     // 30 + 0.95·1000/17 − 3.9 ≈ 82 °C on the roof, well above 55 °C.
     await chooseColour('black', 'fail');
     expect(await page.getByTestId('outdoor-verdict').textContent()).toMatch(/fails/);
@@ -303,7 +303,7 @@ describe('outdoor fitness in the editor', () => {
     await page.getByTestId('outdoors').scrollIntoViewIfNeeded();
     await page.screenshot({ path: `${SHOTS}/outdoor-black.png` });
 
-    // source: white enamel 0.252 via trade-facts §2d: 30 + 0.25·1000/17 − 3.9 ≈ 41 °C, 14 K below 55 °C.
+    // source: white enamel 0.252: 30 + 0.25·1000/17 − 3.9 ≈ 41 °C, 14 K below 55 °C.
     await chooseColour('white', 'ok');
     expect(await page.getByTestId('outdoor-verdict').textContent()).toMatch(/passes/);
     expect(await page.getByTestId('outdoor-cautions').textContent()).not.toMatch(/above the PLA heat-deflection/);

@@ -7,7 +7,7 @@
  *
  * The workflow rules checked here (who may publish, which state allows what) are the product's own decisions
  * (PRODUCT.md roles, issue 5): no outside source. Entry holes of 28 and 32 mm are common small-cavity sizes
- * (source: RSPB via trade-facts §1b — 25 mm blue tit, 28 mm great tit, 32 mm house sparrow).
+ * (source: RSPB — 25 mm blue tit, 28 mm great tit, 32 mm house sparrow).
  */
 import { mkdirSync } from 'node:fs';
 import sharp from 'sharp';
@@ -419,7 +419,7 @@ describe('variant families: build, review, publish, catalogue', () => {
     const preset = await expectJson<{ id: string; name: string }>(
       await page.request.post('/api/presets', {
         headers: { Origin: e2e.baseUrl },
-        // source: RSPB via trade-facts §1b — 28 mm great tit
+        // source: RSPB — 28 mm great tit
         data: { templateId: 'gable-box', name: 'Great tit, 28 mm', params: { entryHoleDiameterMm: 28 } },
       }),
       201,
