@@ -1,10 +1,11 @@
-/** Boots a server: opens PGlite, migrates, seeds a new database, builds the app and listens. */
+/** Boots a server: opens the database (PGlite or PostgreSQL), migrates, seeds a new database, builds the app and listens. */
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { createApp } from './app';
 import { createContext, type AppContext, type Log } from './context';
-import { migrateDatabase, openDatabase } from './db/client';
+import { migrateDatabase, openConfiguredDatabase, withStartupLock } from './db/client';
+import { openJobQueue } from './jobs/openJobQueue';
 import { seedIfNew } from './db/seed';
 import { startFamilyServices } from './services/familyServices';
 import { loadEnv, type Env } from './env';
@@ -48,14 +49,25 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   const env = options.env ?? loadEnv();
   const stage = stopwatch(log);
 
-  const { pg, db } = await openDatabase({ dataDir: options.dataDir });
-  stage(options.dataDir ? `database opened (${options.dataDir}/pg)` : 'database opened (in memory)');
-  await migrateDatabase(db);
-  stage('migrations applied');
-  const ctx = createContext({ db, pg, env, log });
-  if (options.seed ?? true) {
-    const ran = await seedIfNew(db, env, log);
-    stage(ran.length ? `new database seeded (${ran.join(', ')})` : 'existing database kept');
+  const { pg, db, url } = await openConfiguredDatabase(env, options.dataDir, 'nestwright api');
+  stage(
+    url
+      ? `database opened (PostgreSQL at ${describeUrl(url)}, pool of ${env.DB_POOL_MAX})`
+      : options.dataDir
+        ? `database opened (${options.dataDir}/pg)`
+        : 'database opened (in memory)',
+  );
+  // Several servers may start together on one PostgreSQL: one migrates and seeds while the others wait.
+  const seeded = await withStartupLock(url, async () => {
+    await migrateDatabase(db);
+    stage('migrations applied');
+    return (options.seed ?? true) ? seedIfNew(db, env, log) : null;
+  });
+  if (seeded) stage(seeded.length ? `new database seeded (${seeded.join(', ')})` : 'existing database kept');
+  const ctx: AppContext = createContext({ db, pg, env, log, jobs: openJobQueue(env, () => ctx, 'nestwright api') });
+  if (ctx.jobs.kind === 'pg-boss') {
+    await ctx.jobs.start();
+    stage(`job queue ready (pg-boss${env.JOBS_IN_API ? '' : '; jobs run in worker processes'})`);
   }
   await ctx.lucia.deleteExpiredSessions();
 
@@ -66,6 +78,7 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   try {
     await listen(server, options.port ?? env.PORT);
   } catch (err) {
+    await ctx.jobs.stop();
     await pg.close();
     throw err;
   }
@@ -84,6 +97,7 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
           server.close(() => resolve());
           server.closeAllConnections();
         });
+        await ctx.jobs.stop();
         await pg.close();
       })();
       return closing;
@@ -109,4 +123,10 @@ function stopwatch(log: Log): (label: string) => void {
     log(`  ${label} (${Math.round(now - last)} ms)`);
     last = now;
   };
+}
+
+/** A database URL without its password, for the log. @param url - the URL */
+function describeUrl(url: string): string {
+  const parsed = new URL(url);
+  return `${parsed.hostname}:${parsed.port || 5432}${parsed.pathname}`;
 }

@@ -1,7 +1,7 @@
 /** What every router, service and command receives: the database, the environment and the session handler. */
 import type { PGlite } from '@electric-sql/pglite';
 import { createLucia, type AuthLucia } from './auth/lucia';
-import type { Db } from './db/client';
+import { pgliteClient, type Db, type SqlClient } from './db/client';
 import type { Env } from './env';
 import { InProcessJobQueue } from './jobs/InProcessJobQueue';
 import type { JobQueue } from './jobs/JobQueue';
@@ -14,7 +14,8 @@ export type Log = (line: string) => void;
 /** Shared state of one running server. */
 export interface AppContext {
   db: Db;
-  pg: PGlite;
+  /** Raw SQL on the same database (PGlite or PostgreSQL). */
+  pg: SqlClient;
   env: Env;
   lucia: AuthLucia;
   log: Log;
@@ -31,7 +32,7 @@ export interface AppContext {
  */
 export function createContext(parts: {
   db: Db;
-  pg: PGlite;
+  pg: SqlClient | PGlite;
   env: Env;
   log?: Log;
   jobs?: JobQueue;
@@ -39,6 +40,7 @@ export function createContext(parts: {
 }): AppContext {
   const ctx: AppContext = {
     ...parts,
+    pg: 'engine' in parts.pg ? parts.pg : pgliteClient(parts.pg),
     lucia: createLucia(parts.db),
     log: parts.log ?? ((line) => console.log(line)),
     jobs: parts.jobs ?? new InProcessJobQueue(() => ctx),

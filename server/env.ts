@@ -36,6 +36,13 @@ export const EnvSchema = z.object({
    * processes when `npm run worker` processes do the jobs (PostgreSQL only).
    */
   JOBS_IN_API: BooleanFlag.default(true),
+  /** How often an idle worker looks for new jobs on PostgreSQL (seconds, at least 0.5). */
+  JOB_POLL_SEC: z.coerce.number().min(0.5).max(60).default(1),
+  /**
+   * How often the queue is supervised on PostgreSQL (seconds): a job held by a worker that died is retried once its
+   * time limit has passed and supervision has run.
+   */
+  JOB_MAINTENANCE_SEC: z.coerce.number().int().min(1).max(3600).default(30),
   /** S3-compatible object storage for photos, print files and documents (all four S3_ settings needed). */
   S3_ENDPOINT: z.url({ protocol: /^https?$/ }).optional(),
   S3_BUCKET: z.string().min(3).optional(),

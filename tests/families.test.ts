@@ -339,7 +339,7 @@ describe('computing and the family gate', () => {
     expect(after.compute.state).toBe('cancelled');
     expect(after.compute.doneCount).toBeLessThan(8);
     expect(after.gate.blockers.map((b) => b.code)).toContain('not_computed');
-    expect(familyJobs(t.ctx).isActive(await currentRevisionId(t.ctx, family.id))).toBe(false);
+    expect(await familyJobs(t.ctx).isActive(await currentRevisionId(t.ctx, family.id))).toBe(false);
   });
 });
 

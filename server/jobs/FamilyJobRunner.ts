@@ -1,13 +1,15 @@
 import { EventEmitter } from 'node:events';
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { ComputeProgressEvent, ComputeState } from '../../shared/schemas/variant';
 import type { AppContext } from '../context';
-import { familyRevisions, familyVariants } from '../db/schema';
+import { familyRevisions } from '../db/schema';
 import { computeRevision } from './computeRevision';
 import { VariantWorker } from './VariantWorker';
+import type { FamilyRunner, ProgressListener } from './familyRunner';
+import { QueuedFamilyRunner } from './QueuedFamilyRunner';
+import { resetForCompute } from './resetForCompute';
 
-/** A progress listener: `done` is true on the last event of a job. */
-export type ProgressListener = (event: ComputeProgressEvent, done: boolean) => void;
+export type { ProgressListener } from './familyRunner';
 
 /** How long an idle worker thread is kept for the next job. */
 const WORKER_IDLE_MS = 60_000;
@@ -22,7 +24,7 @@ interface QueuedJob {
  * worker builds and analyses the mesh, then every variant sharing it is evaluated (fit, cost, bird fit, verdict) and
  * stored, and listeners get one progress event per variant. Cancelling stops the worker at once.
  */
-export class FamilyJobRunner {
+export class FamilyJobRunner implements FamilyRunner {
   private readonly queue: QueuedJob[] = [];
   private current: QueuedJob | undefined;
   private readonly events = new EventEmitter();
@@ -42,39 +44,7 @@ export class FamilyJobRunner {
    */
   async enqueue(revisionId: string): Promise<void> {
     await this.cancel(revisionId, false);
-    const { db } = this.ctx;
-    await db.transaction(async (tx) => {
-      await tx
-        .update(familyVariants)
-        .set({
-          status: 'pending',
-          sha256: null,
-          report: null,
-          cost: null,
-          verdict: null,
-          reasons: [],
-          birdFitWarnings: [],
-          error: null,
-        })
-        .where(eq(familyVariants.revisionId, revisionId));
-      const [{ total }] = await tx
-        .select({ total: sql<number>`count(*)::int` })
-        .from(familyVariants)
-        .where(eq(familyVariants.revisionId, revisionId));
-      await tx
-        .update(familyRevisions)
-        .set({
-          computeState: 'queued',
-          computeDone: 0,
-          computeTotal: total,
-          computeStartedAt: null,
-          computeFinishedAt: null,
-          computeError: null,
-          lock: sql`${familyRevisions.lock} + 1`,
-          updatedAt: new Date(),
-        })
-        .where(eq(familyRevisions.id, revisionId));
-    });
+    await resetForCompute(this.ctx.db, revisionId);
     this.queue.push({ revisionId, cancelled: false });
     void this.pump();
   }
@@ -121,8 +91,11 @@ export class FamilyJobRunner {
     return () => this.events.off(revisionId, handler);
   }
 
+  /** Resolves at once: progress never leaves this process. */
+  async ready(): Promise<void> {}
+
   /** Whether the revision is queued or being computed in this process. @param revisionId - the revision */
-  isActive(revisionId: string): boolean {
+  async isActive(revisionId: string): Promise<boolean> {
     return this.current?.revisionId === revisionId || this.queue.some((job) => job.revisionId === revisionId);
   }
 
@@ -209,16 +182,17 @@ export class FamilyJobRunner {
   }
 }
 
-const runners = new WeakMap<object, FamilyJobRunner>();
+const runners = new WeakMap<object, FamilyRunner>();
 
 /**
- * The job runner of an app context (created on first use).
+ * The family runner of an app context (created on first use): per-variant jobs on the shared queue when the app
+ * runs on PostgreSQL with pg-boss, else the in-process runner.
  * @param ctx - the app context
  */
-export function familyJobs(ctx: Pick<AppContext, 'db' | 'log'>): FamilyJobRunner {
+export function familyJobs(ctx: Pick<AppContext, 'db' | 'log'> & Partial<AppContext>): FamilyRunner {
   let runner = runners.get(ctx);
   if (!runner) {
-    runner = new FamilyJobRunner(ctx);
+    runner = ctx.jobs?.kind === 'pg-boss' ? new QueuedFamilyRunner(ctx as AppContext) : new FamilyJobRunner(ctx);
     runners.set(ctx, runner);
   }
   return runner;

@@ -34,6 +34,8 @@ export class InProcessJobQueue implements JobQueue {
   /** @param ctx - the app context handlers receive (read when a job runs, so it may be completed later) */
   constructor(private readonly ctx: () => AppContext) {}
 
+  async start(): Promise<void> {}
+
   async send<T>(job: JobDefinition<T>, data: T, options: SendOptions = {}): Promise<string | null> {
     const parsed = job.data.parse(data);
     if (this.stopped) return null;
@@ -112,11 +114,11 @@ export class InProcessJobQueue implements JobQueue {
       const active = [...this.running.values()].filter((r) => r.job.job.name === job.name).length;
       if (active >= (job.concurrency ?? 1)) continue;
       this.waiting.splice(i--, 1);
-      this.start(job, entry);
+      this.launch(job, entry);
     }
   }
 
-  private start(job: AnyJobDefinition, entry: WaitingJob): void {
+  private launch(job: AnyJobDefinition, entry: WaitingJob): void {
     const abort = new AbortController();
     const done = this.attempt(job, entry, abort).finally(() => {
       this.running.delete(entry.id);

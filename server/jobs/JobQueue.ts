@@ -83,6 +83,8 @@ export interface DeadLetter {
 export interface JobQueue {
   /** `in-process` (PGlite) or `pg-boss` (PostgreSQL). */
   readonly kind: 'in-process' | 'pg-boss';
+  /** Connects (pg-boss: installs or upgrades its schema); the in-process queue has nothing to do. */
+  start(): Promise<void>;
   /**
    * Queues a job. Throws when the payload does not match the job's schema.
    * @returns the job id, or null when a job with the same key is already waiting

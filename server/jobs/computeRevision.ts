@@ -6,6 +6,68 @@ import { loadMaterials, loadPrinters } from '../services/familyProduction';
 import { evaluateVariant } from './evaluateVariant';
 import type { VariantGeometry } from './variantGeometry';
 
+/** What a computed variant row is updated with. */
+export type VariantUpdate = Partial<typeof familyVariants.$inferInsert> & { verdict: VariantVerdict };
+
+/** What evaluating a variant of a revision needs besides its geometry. */
+export interface RevisionInputs {
+  revision: typeof familyRevisions.$inferSelect;
+  printer: NonNullable<ReturnType<Awaited<ReturnType<typeof loadPrinters>>['get']>>;
+  materials: Awaited<ReturnType<typeof loadMaterials>>;
+}
+
+/**
+ * Loads a revision with its printer profile and the materials list.
+ * @param db - database
+ * @param revisionId - the revision
+ * @returns null when the revision is gone
+ * @throws when the revision's printer is not in the printer profiles
+ */
+export async function loadRevisionInputs(db: Db, revisionId: string): Promise<RevisionInputs | null> {
+  const [revision] = await db.select().from(familyRevisions).where(eq(familyRevisions.id, revisionId));
+  if (!revision) return null;
+  const printer = (await loadPrinters(db)).get(revision.printerId);
+  if (!printer) throw new Error(`printer ${revision.printerId} is not in the printer profiles`);
+  return { revision, printer, materials: await loadMaterials(db) };
+}
+
+/**
+ * The stored result of a variant whose geometry was built: fit, cost, bird fit, outdoor heat and verdict.
+ * @param inputs - the revision, its printer and the materials
+ * @param variant - the variant row
+ * @param geometry - its built and analysed geometry
+ * @throws when the variant's material is not in the materials list
+ */
+export function evaluatedUpdate(
+  inputs: RevisionInputs,
+  variant: typeof familyVariants.$inferSelect,
+  geometry: VariantGeometry,
+): VariantUpdate {
+  const material = inputs.materials.get(variant.attributes.material);
+  if (!material) throw new Error(`material ${variant.attributes.material} is not in the materials list`);
+  const evaluation = evaluateVariant(geometry, {
+    printer: inputs.printer,
+    material,
+    supportBudgetMm3: inputs.revision.supportBudgetMm3,
+    region: inputs.revision.region,
+    colourId: variant.attributes.colour,
+  });
+  return { status: 'done', sha256: geometry.sha256, params: geometry.params, ...evaluation, error: null };
+}
+
+/**
+ * The stored result of a variant the template could not build.
+ * @param err - what went wrong
+ */
+export function failedUpdate(err: unknown): VariantUpdate {
+  return {
+    status: 'failed',
+    verdict: 'fail',
+    reasons: ['the template could not build it'],
+    error: err instanceof Error ? err.message : String(err),
+  };
+}
+
 /** How {@link computeRevision} builds geometry and reports progress. */
 export interface ComputeRevisionOptions {
   /** Builds and analyses one parameter set (the worker thread in the app; inline in the seed). */
@@ -26,17 +88,14 @@ export interface ComputeRevisionOptions {
  * @returns false when cancelled before the end
  */
 export async function computeRevision(db: Db, revisionId: string, options: ComputeRevisionOptions): Promise<boolean> {
-  const [revision] = await db.select().from(familyRevisions).where(eq(familyRevisions.id, revisionId));
-  if (!revision) return false;
+  const inputs = await loadRevisionInputs(db, revisionId);
+  if (!inputs) return false;
+  const { revision, printer, materials } = inputs;
   const variants = await db
     .select()
     .from(familyVariants)
     .where(and(eq(familyVariants.revisionId, revisionId), eq(familyVariants.status, 'pending')))
     .orderBy(asc(familyVariants.index));
-  const printers = await loadPrinters(db);
-  const materials = await loadMaterials(db);
-  const printer = printers.get(revision.printerId);
-  if (!printer) throw new Error(`printer ${revision.printerId} is not in the printer profiles`);
   let done = revision.computeDone;
   const total = done + variants.length;
   await db
@@ -54,27 +113,12 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
       pending.catch(() => {});
       geometries.set(paramsKey, pending);
     }
-    let update: Partial<typeof familyVariants.$inferInsert> & { verdict: VariantVerdict };
+    let update: VariantUpdate;
     try {
-      const geometry = await pending;
-      const material = materials.get(variant.attributes.material);
-      if (!material) throw new Error(`material ${variant.attributes.material} is not in the materials list`);
-      const evaluation = evaluateVariant(geometry, {
-        printer,
-        material,
-        supportBudgetMm3: revision.supportBudgetMm3,
-        region: revision.region,
-        colourId: variant.attributes.colour,
-      });
-      update = { status: 'done', sha256: geometry.sha256, params: geometry.params, ...evaluation, error: null };
+      update = evaluatedUpdate({ revision, printer, materials }, variant, await pending);
     } catch (err) {
       if (options.isCancelled()) return false;
-      update = {
-        status: 'failed',
-        verdict: 'fail',
-        reasons: ['the template could not build it'],
-        error: (err as Error).message,
-      };
+      update = failedUpdate(err);
     }
     if (options.isCancelled()) return false;
     done += 1;

@@ -3,7 +3,8 @@
  * `ctx.jobs.work()`. Add a new job here after defining it with `defineJob` (see README.md in this folder). The mail
  * job is not listed: the process that starts mail works it (`startMail`).
  */
+import { computeVariantJob } from './computeVariantJob';
 import type { AnyJobDefinition } from './JobQueue';
 
 /** The job types a worker runs. */
-export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [];
+export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob];

@@ -127,10 +127,11 @@ export function familiesRouter(ctx: AppContext): Router {
       res.end();
     };
     req.on('close', finish);
+    await jobs.ready();
     const now = await jobs.progressOf(row.revisionId);
     if (closed) return;
     send('progress', now);
-    if (!jobs.isActive(row.revisionId)) {
+    if (!(await jobs.isActive(row.revisionId))) {
       send('done', now);
       finish();
     }

@@ -3,7 +3,7 @@
  * admins whichever queue back end ran them) and rate-limit counters (sign-in throttling holds across API processes).
  * Re-exported from ../schema.ts.
  */
-import { index, integer, jsonb, pgTable, serial, text, timestamp } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 
 /** A job that failed its last attempt (dead letter). */
 export const jobDeadLetters = pgTable(
@@ -17,7 +17,10 @@ export const jobDeadLetters = pgTable(
     attempts: integer('attempts').notNull(),
     failedAt: timestamp('failed_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (table) => [index('job_dead_letters_failed_at_idx').on(table.failedAt)],
+  (table) => [
+    index('job_dead_letters_failed_at_idx').on(table.failedAt),
+    uniqueIndex('job_dead_letters_job_id_idx').on(table.jobId),
+  ],
 );
 
 /** Hits per key in the current window of a rate limiter (express-rate-limit store). */
@@ -31,6 +34,16 @@ export const rateLimitHits = pgTable(
   },
   (table) => [index('rate_limit_hits_reset_at_idx').on(table.resetAt)],
 );
+
+/**
+ * The current computation of a family revision when it runs as per-variant jobs (PostgreSQL): a variant job
+ * carries the generation it was sent for and stores nothing once a cancel or a new computation moved it on.
+ */
+export const familyComputeRuns = pgTable('family_compute_runs', {
+  revisionId: text('revision_id').primaryKey(),
+  generation: integer('generation').notNull().default(0),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+});
 
 /** A dead-letter row. */
 export type JobDeadLetterRow = typeof jobDeadLetters.$inferSelect;
