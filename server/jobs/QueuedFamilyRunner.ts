@@ -7,7 +7,7 @@
 import { EventEmitter } from 'node:events';
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import pg from 'pg';
-import type { ComputeProgressEvent } from '../../shared/schemas/family';
+import type { ComputeProgressEvent } from '../../shared/schemas/variant';
 import type { AppContext } from '../context';
 import { familyComputeRuns, familyRevisions } from '../db/schema';
 import { computeVariantJob, FAMILY_PROGRESS_CHANNEL, notifyProgress, type ProgressMessage } from './computeVariantJob';

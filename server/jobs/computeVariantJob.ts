@@ -6,7 +6,7 @@
  */
 import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
-import type { ComputeProgressEvent, VariantVerdict } from '../../shared/schemas/family';
+import type { ComputeProgressEvent, VariantVerdict } from '../../shared/schemas/variant';
 import type { AppContext } from '../context';
 import type { Db } from '../db/client';
 import { familyComputeRuns, familyRevisions, familyVariants, families } from '../db/schema';

@@ -1,5 +1,5 @@
 /** What the family routes and services need from whichever runner computes families in this app. */
-import type { ComputeProgressEvent } from '../../shared/schemas/family';
+import type { ComputeProgressEvent } from '../../shared/schemas/variant';
 
 /** A progress listener: `done` is true on the last event of a computation. */
 export type ProgressListener = (event: ComputeProgressEvent, done: boolean) => void;
