@@ -9,7 +9,8 @@ import { inject } from 'vitest';
 import type { Role } from '../../shared/schemas/auth';
 import { createApp } from '../../server/app';
 import { createContext, type AppContext } from '../../server/context';
-import { openDatabase } from '../../server/db/client';
+import { openDatabase, openPostgres, pgliteClient, type Db, type SqlClient } from '../../server/db/client';
+import { createDatabaseFrom, databaseUrl, dropDatabase, TEST_DATABASE_URL } from './postgresTestDb';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/db/seedDemo';
 import { EnvSchema, type Env } from '../../server/env';
 
@@ -52,11 +53,28 @@ export async function loadSnapshot(kind: 'seeded' | 'migrated' = 'seeded'): Prom
 }
 
 /**
+ * A private database for one test: a copy of the seeded (or only migrated) PGlite snapshot, or on PostgreSQL
+ * (TEST_DATABASE_URL) a new database copied from the template; `drop` removes it after closing.
+ * @param kind - `seeded` or `migrated`
+ */
+export async function openTestDatabase(
+  kind: 'seeded' | 'migrated' = 'seeded',
+): Promise<{ pg: SqlClient; db: Db; drop: () => Promise<void> }> {
+  if (TEST_DATABASE_URL) {
+    const name = await createDatabaseFrom(inject(kind === 'seeded' ? 'pgSeededTemplate' : 'pgMigratedTemplate'));
+    const { pg, db } = openPostgres({ url: databaseUrl(name), poolMax: 4, statementTimeoutMs: 0 });
+    return { pg, db, drop: () => dropDatabase(name) };
+  }
+  const { pg, db } = await openDatabase({ loadDataDir: await loadSnapshot(kind) });
+  return { pg: pgliteClient(pg), db, drop: async () => {} };
+}
+
+/**
  * A fresh app on its own copy of the seeded database (about a second).
  * @param envOverrides - environment settings for this app (PUBLIC_ORIGIN defaults to {@link TEST_ORIGIN})
  */
 export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<TestApp> {
-  const { pg, db } = await openDatabase({ loadDataDir: await loadSnapshot('seeded') });
+  const { pg, db, drop } = await openTestDatabase('seeded');
   const env: Env = { ...EnvSchema.parse({ NODE_ENV: 'test', PUBLIC_ORIGIN: TEST_ORIGIN }), ...envOverrides };
   const logs: string[] = [];
   const ctx = createContext({ db, pg, env, log: (line) => logs.push(line) });
@@ -92,6 +110,7 @@ export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<Test
     async close() {
       await ctx.jobs.stop();
       await pg.close();
+      await drop();
     },
   };
 }
