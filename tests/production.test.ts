@@ -159,7 +159,7 @@ describe('estimateProduction', () => {
     expect(e.filamentLengthM).toBeCloseTo(64000 / 2.405 / 1000, 1);
   });
 
-  it('computes the shell from area × wall loops × line width and skins from layers (hand-computed)', () => {
+  it('computes the shell from area × perimeters × line width and skins from layers (hand-computed)', () => {
     // hand computation of the documented model: sides 4 × 1600 mm² × 3 × 0.45 mm = 8640 mm³;
     // top and bottom 1600 mm² × 4 × 0.2 mm = 1280 mm³ each; infill (64000 − 11200) × 15 % = 7920 mm³
     const e = estimateProduction(cube40, printer, pla, SETTINGS, DEFAULT_RATES);

@@ -17,7 +17,7 @@ import { filamentLengthM } from './filament';
 import { volumetricFlowMm3s } from './volumetricFlow';
 
 const MODEL_NOTES = [
-  'Shell = side area × wall loops × line width, plus up- and down-facing area × top/bottom layers × layer height ' +
+  'Shell = side area × perimeters × line width, plus up- and down-facing area × top/bottom layers × layer height ' +
     '(the plate footprint stands in for both when the facing areas are unknown), capped at the part volume.',
   'Extruded volume = shell + infill % of the rest + support volume × support infill %.',
   'Print time = extruded volume / effective flow (target flow capped at the printer maximum, times the flow ' +

@@ -2,6 +2,7 @@ import type { Component } from 'vue';
 import type { Role } from '../../shared/schemas/auth';
 import IconCatalogue from '../components/icons/IconCatalogue.vue';
 import IconDesigns from '../components/icons/IconDesigns.vue';
+import IconCheckFile from '../components/icons/IconCheckFile.vue';
 import IconFamilies from '../components/icons/IconFamilies.vue';
 import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
@@ -38,6 +39,14 @@ export const AREAS: readonly Area[] = [
     path: '/designs',
     roles: ['designer'],
     icon: IconDesigns,
+  },
+  {
+    id: 'check-file',
+    label: 'Check a file',
+    description: 'Upload an STL or 3MF: a print-readiness report, the best build orientations in 3D, the file turned.',
+    path: '/check-file',
+    roles: ['designer'],
+    icon: IconCheckFile,
   },
   {
     id: 'families',

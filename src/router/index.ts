@@ -48,6 +48,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['designer'], title: 'Design' },
   },
   {
+    path: '/check-file',
+    name: 'check-file',
+    component: () => import('../views/MeshAnalysisView.vue'),
+    meta: { roles: ['designer'], title: 'Check a file' },
+  },
+  {
     path: '/families',
     name: 'families',
     component: () => import('../views/FamiliesView.vue'),
