@@ -3,7 +3,15 @@
  * overhang faces can be shaded. Checked on a unit cube (analytic: 12 triangles, outward normals, area 6).
  */
 import { describe, expect, it } from 'vitest';
-import { meshToBufferGeometry, OVERHANG_RGB, SURFACE_RGB } from '../src/components/viewer/meshToBufferGeometry';
+import { readFileSync } from 'node:fs';
+import { Color } from 'three';
+import {
+  meshToBufferGeometry,
+  OVERHANG_MILD_HEX,
+  OVERHANG_STEEP_HEX,
+  overhangRgb,
+  SURFACE_RGB,
+} from '../src/components/viewer/meshToBufferGeometry';
 import { fromDisplayLength, toDisplayLength } from '../src/components/editor/lengthUnits';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 
@@ -66,15 +74,41 @@ describe('meshToBufferGeometry', () => {
     geometry.dispose();
   });
 
-  it('colours the masked triangles in the warning colour and the rest in the surface colour', () => {
+  it('tints masked triangles by steepness (rust facing straight down) and the rest in the filament colour', () => {
     const mask = new Uint8Array(12);
     mask[0] = 1;
     mask[1] = 1; // the bottom face, facing straight down: an overhang if it were not on the plate
-    const geometry = meshToBufferGeometry(cube(), mask);
+    const geometry = meshToBufferGeometry(cube(), mask, { surfaceHex: '#5f6f3a' });
     const color = geometry.getAttribute('color');
-    for (let v = 0; v < 6; v++) expect(color.getX(v)).toBeCloseTo(OVERHANG_RGB[0], 6);
-    for (let v = 6; v < 36; v++) expect(color.getX(v)).toBeCloseTo(SURFACE_RGB[0], 6);
+    // three.js converts sRGB hex to linear RGB (IEC 61966-2-1 transfer function).
+    const steep = new Color(OVERHANG_STEEP_HEX);
+    const moss = new Color('#5f6f3a');
+    for (let v = 0; v < 6; v++) expect(color.getX(v)).toBeCloseTo(steep.r, 6);
+    for (let v = 6; v < 36; v++)
+      expect([color.getX(v), color.getY(v), color.getZ(v)]).toEqual([
+        expect.closeTo(moss.r, 6),
+        expect.closeTo(moss.g, 6),
+        expect.closeTo(moss.b, 6),
+      ]);
     geometry.dispose();
+  });
+
+  it('grades the overhang tint from slate at the threshold to rust at a ceiling', () => {
+    const mild = new Color(OVERHANG_MILD_HEX).toArray();
+    const steep = new Color(OVERHANG_STEEP_HEX).toArray();
+    // A face 45° from vertical (normal z = -sin 45°) is at the threshold; 67.5° is halfway.
+    expect(overhangRgb(-Math.SQRT1_2, 45, mild, steep)).toEqual(mild.map((c) => expect.closeTo(c, 9)));
+    expect(overhangRgb(-1, 45, mild, steep)).toEqual(steep.map((c) => expect.closeTo(c, 9)));
+    const half = overhangRgb(-Math.sin((67.5 * Math.PI) / 180), 45, mild, steep);
+    half.forEach((c, k) => expect(c).toBeCloseTo((mild[k] + steep[k]) / 2, 9));
+  });
+
+  it("the legend's swatch uses the same two colours as the drawing (common practice, no source)", () => {
+    const css = readFileSync(new URL('../src/styles/base.css', import.meta.url), 'utf8');
+    const overlay = readFileSync(new URL('../src/components/editor/StageOverlay.vue', import.meta.url), 'utf8');
+    expect(css).toContain(`--nw-slate: ${OVERHANG_MILD_HEX};`);
+    expect(css).toContain(`--nw-rust: ${OVERHANG_STEEP_HEX};`);
+    expect(overlay).toMatch(/\.swatch--overhang \{[^}]*linear-gradient\(90deg, var\(--nw-slate\), var\(--nw-rust\)\)/);
   });
 
   it('ignores a mask whose length does not match the triangle count', () => {

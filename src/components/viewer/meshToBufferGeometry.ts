@@ -1,18 +1,63 @@
-import { BufferAttribute, BufferGeometry } from 'three';
+import { BufferAttribute, BufferGeometry, Color } from 'three';
 import type { IndexedMesh } from '../../../shared/schemas/mesh';
+import { PALETTE } from '../../styles/palette';
 
-/** Surface colour of faces that print without support (linear RGB). */
+/** Surface colour of faces that print without support when no filament colour is given (linear RGB). */
 export const SURFACE_RGB: readonly [number, number, number] = [0.78, 0.74, 0.66];
-/** Warning colour for overhang faces that need support (linear RGB). */
-export const OVERHANG_RGB: readonly [number, number, number] = [0.93, 0.36, 0.16];
+/** Overhang just past the threshold: the palette's slate (the legend's swatch starts here). */
+export const OVERHANG_MILD_HEX = PALETTE.slate;
+/** Overhang facing straight down (a ceiling): the palette's rust (the legend's swatch ends here). */
+export const OVERHANG_STEEP_HEX = PALETTE.rust;
+
+/** Options of {@link meshToBufferGeometry}. */
+export interface MeshColourOptions {
+  /** Filament colour of the surface, sRGB `#rrggbb`; a neutral stone colour when omitted. */
+  surfaceHex?: string | null;
+  /** The overhang threshold in degrees from vertical that the mask was made with (45 by default). */
+  overhangDeg?: number;
+}
+
+/** sRGB hex → linear RGB triple (what vertex colours hold). */
+function linearRgb(hex: string): [number, number, number] {
+  const colour = new Color(hex);
+  return [colour.r, colour.g, colour.b];
+}
 
 /**
- * Builds a flat-shaded, non-indexed BufferGeometry from the neutral mesh, one colour per triangle so overhang
- * faces can be shaded in the warning colour. Flat shading keeps the facets of a printable mesh honest.
+ * The colour of an overhang face by how steeply it faces down: from slate just past the threshold to rust for a
+ * face looking straight down, so the worst faces stand out and the gradient matches the legend.
+ * @param nz - z of the face's unit normal (negative for faces looking down)
+ * @param thresholdDeg - overhang threshold from vertical
+ * @param mild - linear RGB at the threshold
+ * @param steep - linear RGB facing straight down
+ */
+export function overhangRgb(
+  nz: number,
+  thresholdDeg: number,
+  mild: readonly number[],
+  steep: readonly number[],
+): [number, number, number] {
+  const fromVerticalDeg = (Math.asin(Math.min(1, Math.max(0, -nz))) * 180) / Math.PI;
+  const t = Math.min(1, Math.max(0, (fromVerticalDeg - thresholdDeg) / Math.max(1e-6, 90 - thresholdDeg)));
+  return [0, 1, 2].map((k) => mild[k] + (steep[k] - mild[k]) * t) as [number, number, number];
+}
+
+/**
+ * Builds a flat-shaded, non-indexed BufferGeometry from the neutral mesh, one colour per triangle: the filament
+ * colour, and overhang faces tinted by steepness ({@link overhangRgb}). Flat shading keeps the facets honest.
  * @param mesh - the neutral indexed mesh in millimetres
  * @param overhangMask - optional per-triangle flag (1 = overhang beyond the self-supporting angle)
+ * @param options - surface colour and overhang threshold
  */
-export function meshToBufferGeometry(mesh: IndexedMesh, overhangMask?: Uint8Array | null): BufferGeometry {
+export function meshToBufferGeometry(
+  mesh: IndexedMesh,
+  overhangMask?: Uint8Array | null,
+  options: MeshColourOptions = {},
+): BufferGeometry {
+  const surface = options.surfaceHex ? linearRgb(options.surfaceHex) : SURFACE_RGB;
+  const mild = linearRgb(OVERHANG_MILD_HEX);
+  const steep = linearRgb(OVERHANG_STEEP_HEX);
+  const thresholdDeg = options.overhangDeg ?? 45;
   const triangleCount = mesh.indices.length / 3;
   const positions = new Float32Array(triangleCount * 9);
   const normals = new Float32Array(triangleCount * 9);
@@ -44,7 +89,7 @@ export function meshToBufferGeometry(mesh: IndexedMesh, overhangMask?: Uint8Arra
     nx /= length;
     ny /= length;
     nz /= length;
-    const rgb = useMask && overhangMask[t] ? OVERHANG_RGB : SURFACE_RGB;
+    const rgb = useMask && overhangMask[t] ? overhangRgb(nz, thresholdDeg, mild, steep) : surface;
     const o = t * 9;
     positions[o] = ax;
     positions[o + 1] = ay;
