@@ -71,7 +71,7 @@ describe('POST /api/exports', () => {
         templateId: 'gable-box',
         params: {},
         format: '3mf',
-        printerId: 'cube-256',
+        printerId: 'rowan-farm-06',
         materialId: 'pla',
         colourId: 'moss-green',
       })

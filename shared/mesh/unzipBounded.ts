@@ -36,6 +36,9 @@ export function unzipBounded(
   keep: (name: string) => boolean,
   limits: UnzipLimits = {},
 ): Record<string, Uint8Array> {
+  if (!hasEndOfCentralDirectory(bytes)) {
+    throw new MeshFormatError('truncated', 'The 3MF package has no ZIP directory at its end; the file is cut short.');
+  }
   const maxInflated = limits.maxInflatedBytes ?? MAX_INFLATED_BYTES;
   const maxRatio = limits.maxRatio ?? MAX_INFLATE_RATIO;
   const files: Record<string, Uint8Array> = {};
@@ -100,6 +103,19 @@ export function unzipBounded(
     throw new MeshFormatError('truncated', 'The 3MF package ends in the middle of a part; the file is cut short.');
   }
   return files;
+}
+
+/**
+ * Every ZIP file ends with an end-of-central-directory record (signature PK 05 06) followed by a comment of at most
+ * 65,535 bytes; a package without one was cut short. source: APPNOTE.TXT, .ZIP File Format Specification, PKWARE,
+ * 2022, section 4.3.16
+ */
+function hasEndOfCentralDirectory(bytes: Uint8Array): boolean {
+  const earliest = Math.max(0, bytes.length - 22 - 65_535);
+  for (let at = bytes.length - 22; at >= earliest; at--) {
+    if (bytes[at] === 0x50 && bytes[at + 1] === 0x4b && bytes[at + 2] === 0x05 && bytes[at + 3] === 0x06) return true;
+  }
+  return false;
 }
 
 function concat(chunks: Uint8Array[], length: number): Uint8Array {
