@@ -25,6 +25,9 @@ import { settingsRouter } from './routes/settings';
 import { productionRouter } from './routes/production';
 import { farmRouter } from './routes/farm';
 import { farmNoticesRouter } from './routes/farmNotices';
+import { shopRouter } from './routes/shop';
+import { ordersRouter } from './routes/orders';
+import { paymentWebhooksRouter } from './routes/paymentWebhooks';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -49,6 +52,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
 
   // Farm notices are checked over their raw bytes: mounted before the JSON parser (public: the signature is the check).
   app.use('/api/webhooks/farm', farmNoticesRouter(ctx));
+  // The payment provider's webhooks need the raw body and come from no browser: before the JSON parser and origin check.
+  app.use('/api/webhooks/payments', paymentWebhooksRouter(ctx));
 
   // Every /api request: JSON body (1 MB), no caching, origin check on state-changing methods, session.
   app.use(
@@ -78,6 +83,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/settings', settingsRouter(ctx));
   app.use('/api/production', productionRouter(ctx));
   app.use('/api/farm', farmRouter(ctx));
+  app.use('/api/shop', shopRouter(ctx));
+  app.use('/api/orders', ordersRouter(ctx));
 
   // Anything else under /api is a 404 in the error shape (keep this after every API router).
   app.use('/api', (req) => {

@@ -8,6 +8,7 @@ import { migrateDatabase, openConfiguredDatabase, withStartupLock } from './db/c
 import { openJobQueue } from './jobs/openJobQueue';
 import { seedIfNew } from './db/seed';
 import { startFamilyServices } from './services/familyServices';
+import { startShopServices } from './services/shopServices';
 import { loadEnv, type Env } from './env';
 import { startFulfilment } from './farm/startFulfilment';
 
@@ -86,6 +87,7 @@ export async function boot(options: BootOptions = {}): Promise<Booted> {
   stage(`listening on port ${port}`);
   await startFamilyServices(ctx, server);
   await startFulfilment(ctx, server, `http://localhost:${port}`);
+  await startShopServices(ctx, server);
 
   let closing: Promise<void> | undefined;
   return {

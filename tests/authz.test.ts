@@ -25,6 +25,20 @@ import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
 import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { box, geomToMesh, toBinaryStl } from './meshFixtures';
+import { paymentsOf } from '../server/payments/paymentRuntime';
+import { getRow } from '../server/services/orderService';
+import { checkoutBody, newShopOrder, sellableSkus, startShopTest, type ShopTest } from './shopFixtures';
+import { listShopProducts } from '../server/services/shopCatalogue';
+
+/** SKUs on sale, looked up by the path of the shop rows before their body is built. */
+let shopSkus: readonly string[] = [];
+/** A path that first looks up the SKUs on sale (other rows may have retired the seeded family). */
+function withShopSkus(path: string): (t: TestApp) => Promise<string> {
+  return async (t) => {
+    shopSkus = await sellableSkus(t);
+    return path;
+  };
+}
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -43,6 +57,8 @@ interface AuthzRow {
   consumesSession?: boolean;
   /** A public route that authenticates by signature: the status an unsigned call gets from everyone (never 401/403). */
   publicStatus?: number;
+  /** Extra request headers (a signed webhook); a function gets the test app and the body it will send. */
+  headers?: (t: TestApp, body: unknown) => Record<string, string>;
   /** A multipart file upload instead of a JSON body. */
   attach?: { field: string; filename: string; bytes: () => Promise<Buffer> };
 }
@@ -301,6 +317,82 @@ const ROUTES: AuthzRow[] = [
     allowed: ['operations', 'catalogue_manager', 'admin'],
     body: PLAN_BODY,
   },
+  // Shop: public. Orders: operations and admin.
+  { method: 'get', route: '/api/shop/products', allowed: 'public' },
+  {
+    method: 'get',
+    route: '/api/shop/products/:slug',
+    path: async (t) => `/api/shop/products/${(await listShopProducts(t.ctx)).products[0]?.slug ?? 'none'}`,
+    allowed: 'public',
+  },
+  {
+    method: 'post',
+    route: '/api/shop/quote',
+    path: withShopSkus('/api/shop/quote'),
+    allowed: 'public',
+    body: () => ({ country: 'GB', items: checkoutBody(undefined, shopSkus).items }),
+  },
+  {
+    method: 'post',
+    route: '/api/shop/checkout',
+    allowed: 'public',
+    path: withShopSkus('/api/shop/checkout'),
+    body: (role: Role | null) => checkoutBody(`authz-${role ?? 'nobody'}@example.test`, shopSkus),
+  },
+  { method: 'get', route: '/api/shop/orders/:token', path: customerOrderPath, allowed: 'public' },
+  { method: 'get', route: '/api/shop/photos/:id', path: shopPhotoPath(''), allowed: 'public' },
+  { method: 'get', route: '/api/shop/photos/:id/thumb', path: shopPhotoPath('/thumb'), allowed: 'public' },
+  {
+    method: 'get',
+    route: '/api/shop/variants/:sku/model.stl',
+    path: async (t) => `/api/shop/variants/${(await sellableSkus(t))[0]}/model.stl`,
+    allowed: 'public',
+  },
+  {
+    method: 'get',
+    route: '/api/shop/variants/:sku/spec-sheet.pdf',
+    path: async (t) => `/api/shop/variants/${(await sellableSkus(t))[0]}/spec-sheet.pdf`,
+    allowed: 'public',
+  },
+  {
+    method: 'post',
+    route: '/api/webhooks/payments',
+    allowed: 'public',
+    body: () => ({
+      id: `evt_authz_${Math.random().toString(36).slice(2)}`,
+      object: 'event',
+      type: 'payment_intent.created',
+      data: { object: {} },
+    }),
+    headers: (t, body) => ({
+      'Stripe-Signature': paymentsOf(t.ctx).client.webhooks.generateTestHeaderString({
+        payload: JSON.stringify(body),
+        secret: paymentsOf(t.ctx).webhookSecret,
+      }),
+    }),
+  },
+  { method: 'get', route: '/api/orders', allowed: ['operations', 'admin'] },
+  { method: 'get', route: '/api/orders/export.csv', allowed: ['operations', 'admin'] },
+  {
+    method: 'get',
+    route: '/api/orders/:id',
+    path: async (t) => `/api/orders/${await newShopOrder(t)}`,
+    allowed: ['operations', 'admin'],
+  },
+  {
+    method: 'post',
+    route: '/api/orders/:id/transition',
+    path: async (t) => `/api/orders/${await newShopOrder(t, true)}/transition`,
+    allowed: ['operations', 'admin'],
+    body: { to: 'in_production' },
+  },
+  {
+    method: 'post',
+    route: '/api/orders/:id/cancel',
+    path: async (t) => `/api/orders/${await newShopOrder(t)}/cancel`,
+    allowed: ['operations', 'admin'],
+    body: { reason: 'authorization probe' },
+  },
 ];
 
 /** A new preset of the demo designer (one per call, so a delete in one case does not affect the next). */
@@ -359,6 +451,19 @@ async function inReviewFamilyPath(t: TestApp): Promise<string> {
 async function approvedFamilyPath(t: TestApp): Promise<string> {
   return `/api/families/${(await approvedFamily(t)).id}/publish`;
 }
+const shopPhoto = oncePerApp(async (t) => {
+  const [onSale] = await listCatalogueVariants(t.ctx);
+  const path = `/api/families/${onSale.family.id}/photos`;
+  const res = await (await t.agent('designer')).post(path).attach('photo', await pngBytes(), 'sample.png');
+  if (res.status !== 201) throw new Error(`Could not upload a shop photo: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.photo as { id: string };
+});
+function shopPhotoPath(suffix: string): (t: TestApp) => Promise<string> {
+  return async (t) => `/api/shop/photos/${(await shopPhoto(t)).id}${suffix}`;
+}
+async function customerOrderPath(t: TestApp): Promise<string> {
+  return `/api/shop/orders/${(await getRow(t.ctx.db, await newShopOrder(t))).customerToken}`;
+}
 function photoPath(suffix: string): (t: TestApp) => Promise<string> {
   return async (t) => `/api/photos/${(await photo(t)).id}${suffix}`;
 }
@@ -374,10 +479,13 @@ function expected(row: AuthzRow, caller: Role | null): '2xx' | number {
 }
 
 let t: TestApp;
+let shop: ShopTest;
 beforeAll(async () => {
   t = await makeTestApp();
+  shop = await startShopTest(t);
 });
 afterAll(async () => {
+  await shop?.close();
   await t.close();
 });
 
@@ -395,6 +503,7 @@ describe('authorization table', () => {
     const body = typeof row.body === 'function' ? (row.body as (role: Role | null) => unknown)(caller) : row.body;
     let request = agent[row.method](path);
     if (row.attach) request = request.attach(row.attach.field, await row.attach.bytes(), row.attach.filename);
+    if (row.headers) request = request.set(row.headers(t, body));
     if (body !== undefined) request = request.send(body as object);
     const res = await request;
     const want = expected(row, caller);

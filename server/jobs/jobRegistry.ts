@@ -5,6 +5,7 @@
  */
 import { computeVariantJob } from './computeVariantJob';
 import type { AnyJobDefinition } from './JobQueue';
+import { expireCheckoutsJob } from '../payments/expireCheckoutsJob';
 
 /** The job types a worker runs. */
-export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob];
+export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob, expireCheckoutsJob];

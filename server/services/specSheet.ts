@@ -304,3 +304,22 @@ function warningTitle(code: string): string {
   const words = code.replace(/-/g, ' ');
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
+
+/**
+ * The cautions of a variant's spec sheet without building its mesh (the shop's product page shows them).
+ * @param variant - a published catalogue variant
+ */
+export function variantCautions(variant: CatalogueVariant): SpecSheetCaution[] {
+  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const colour = material?.colours.find((c) => c.id === variant.attributes.colour) ?? material?.colours[0];
+  const outdoor = colour ? outdoorOf(variant, material, colour.id) : null;
+  const fit = assessBirdFit(variant.report.facts);
+  return cautions(
+    variant,
+    variant.report.facts.hasPerch,
+    material ?? null,
+    outdoor,
+    colour?.solarAbsorptance ?? 0.5,
+    fit.suits,
+  );
+}

@@ -168,3 +168,115 @@ export const ShopQuoteSchema = z.object({
 });
 /** A priced cart (see {@link ShopQuoteSchema}). */
 export type ShopQuote = z.infer<typeof ShopQuoteSchema>;
+
+/** One value on a product's axis, as the variant picker shows it. */
+export const ShopAxisValueSchema = z.object({
+  value: z.union([z.string(), z.number(), z.boolean()]),
+  label: z.string(),
+  /** Swatch colour of a colour value. */
+  swatchHex: z.string().nullable(),
+});
+
+/** One axis of a product (colour, entry size, trim ...). */
+export const ShopAxisSchema = z.object({
+  key: z.string(),
+  label: z.string(),
+  values: z.array(ShopAxisValueSchema),
+});
+/** A product axis (see {@link ShopAxisSchema}). */
+export type ShopAxis = z.infer<typeof ShopAxisSchema>;
+
+/** A caution shown with a variant. */
+export const ShopCautionSchema = z.object({ title: z.string(), text: z.string() });
+
+/** A published variant as the shop shows it (VAT-inclusive price; figures in mm, shown in inches too). */
+export const ShopVariantSchema = z.object({
+  sku: z.string(),
+  productName: z.string(),
+  axisValues: z.record(z.string(), z.union([z.string(), z.number(), z.boolean()])),
+  colour: z.object({ id: z.string(), name: z.string(), hex: z.string() }).nullable(),
+  material: z.string(),
+  /** Price the customer pays for one unit, VAT included, minor units. */
+  priceMinor: z.number().int(),
+  entryHoleMm: z.number(),
+  /** Overall size of the product: width, depth, height. */
+  sizeMm: z.tuple([z.number(), z.number(), z.number()]),
+  massG: z.number(),
+  birds: z.array(z.string()),
+  mounting: z.string(),
+  cautions: z.array(ShopCautionSchema),
+  meshSha256: z.string(),
+});
+/** A shop variant (see {@link ShopVariantSchema}). */
+export type ShopVariant = z.infer<typeof ShopVariantSchema>;
+
+/** A sample photo as the shop serves it. */
+export const ShopPhotoSchema = z.object({
+  url: z.string(),
+  thumbUrl: z.string(),
+  caption: z.string(),
+  widthPx: z.number().int(),
+  heightPx: z.number().int(),
+});
+
+/** How prices are shown. */
+export const ShopPriceDisplaySchema = z.object({
+  currency: z.string(),
+  vatRatePct: z.number(),
+  showPricesWithVat: z.boolean(),
+});
+/** How prices are shown (see {@link ShopPriceDisplaySchema}). */
+export type ShopPriceDisplay = z.infer<typeof ShopPriceDisplaySchema>;
+
+/** A product (one published family) in the listing. */
+export const ShopProductSummarySchema = z.object({
+  slug: z.string(),
+  name: z.string(),
+  description: z.string(),
+  fromPriceMinor: z.number().int(),
+  colours: z.array(z.object({ id: z.string(), name: z.string(), hex: z.string() })),
+  birds: z.array(z.string()),
+  photo: ShopPhotoSchema.nullable(),
+  variantCount: z.number().int(),
+});
+/** A listed product (see {@link ShopProductSummarySchema}). */
+export type ShopProductSummary = z.infer<typeof ShopProductSummarySchema>;
+
+/** Answer of `GET /api/shop/products`. */
+export const ShopProductListSchema = z.object({
+  products: z.array(ShopProductSummarySchema),
+  prices: ShopPriceDisplaySchema,
+  /** Every species and colour on sale, for the filters. */
+  facets: z.object({
+    birds: z.array(z.string()),
+    colours: z.array(z.object({ id: z.string(), name: z.string(), hex: z.string() })),
+  }),
+});
+/** Answer of `GET /api/shop/products`. */
+export type ShopProductList = z.infer<typeof ShopProductListSchema>;
+
+/** Query of `GET /api/shop/products`. */
+export const ShopProductQuerySchema = z.object({
+  bird: z.string().trim().max(80).optional(),
+  colour: z.string().trim().max(40).optional(),
+});
+/** Query of `GET /api/shop/products`. */
+export type ShopProductQuery = z.infer<typeof ShopProductQuerySchema>;
+
+/** Answer of `GET /api/shop/products/:slug`. */
+export const ShopProductSchema = ShopProductSummarySchema.omit({ photo: true }).extend({
+  axes: z.array(ShopAxisSchema),
+  variants: z.array(ShopVariantSchema),
+  photos: z.array(ShopPhotoSchema),
+  prices: ShopPriceDisplaySchema,
+});
+/** Answer of `GET /api/shop/products/:slug`. */
+export type ShopProduct = z.infer<typeof ShopProductSchema>;
+
+/** Route parameter `:slug` of a product. */
+export const ShopSlugParamsSchema = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,80}$/, 'no such product') });
+
+/** Answer of `POST /api/shop/checkout`. */
+export const CheckoutResponseSchema = z.object({ orderId: z.string(), checkoutUrl: z.string() });
+/** Answer of `POST /api/shop/checkout`. */
+export type CheckoutResponse = z.infer<typeof CheckoutResponseSchema>;

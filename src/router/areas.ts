@@ -10,6 +10,7 @@ import IconReview from '../components/icons/IconReview.vue';
 import IconQuotes from '../components/sales/IconQuotes.vue';
 import IconDemand from '../components/farm/IconDemand.vue';
 import IconFarm from '../components/farm/IconFarm.vue';
+import IconOrders from '../components/orders/IconOrders.vue';
 
 /** One area of the product: a nav entry and a home-screen card. */
 export interface Area {
@@ -96,6 +97,14 @@ export const AREAS: readonly Area[] = [
     path: '/farm/exceptions',
     roles: ['operations', 'admin'],
     icon: IconFarm,
+  },
+  {
+    id: 'orders',
+    label: 'Orders',
+    description: 'Follow shop orders from payment to the door; ship, cancel and refund; export them as CSV.',
+    path: '/orders',
+    roles: ['operations', 'admin'],
+    icon: IconOrders,
   },
   {
     id: 'people',

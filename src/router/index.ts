@@ -1,6 +1,7 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
 import type { Role } from '../../shared/schemas/auth';
 import { roleGuard } from './roleGuard';
+import { shopRoutes } from './shopRoutes';
 import { useSessionStore } from '../stores/session';
 
 declare module 'vue-router' {
@@ -134,6 +135,19 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('../views/AdminMailView.vue'),
     meta: { roles: ['admin'], title: 'Captured e-mail' },
   },
+  {
+    path: '/orders',
+    name: 'orders',
+    component: () => import('../views/OrdersView.vue'),
+    meta: { roles: ['operations', 'admin'], title: 'Orders' },
+  },
+  {
+    path: '/orders/:id',
+    name: 'order',
+    component: () => import('../views/OrderDetailView.vue'),
+    meta: { roles: ['operations', 'admin'], title: 'Order' },
+  },
+  ...shopRoutes,
   {
     path: '/forbidden',
     name: 'forbidden',

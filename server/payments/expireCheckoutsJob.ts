@@ -1,0 +1,18 @@
+/** The periodic job that cancels unpaid orders whose checkout has expired (abandoned at the payment page). */
+import { z } from 'zod';
+import { defineJob } from '../jobs/JobQueue';
+import { expireAbandonedCheckouts } from '../services/checkoutService';
+
+/** Every minute: cancel each unpaid order past its expiry (its session expired at the provider first). */
+export const expireCheckoutsJob = defineJob({
+  name: 'checkout.expire',
+  data: z.object({}),
+  retry: { limit: 3, delaySec: 30, backoff: true },
+  timeLimitSec: 120,
+  concurrency: 1,
+  everySec: 60,
+  async handler(_data, { ctx }) {
+    const cancelled = await expireAbandonedCheckouts(ctx);
+    if (cancelled > 0) ctx.log(`  shop: ${cancelled} abandoned checkout(s) expired`);
+  },
+});

@@ -1,0 +1,74 @@
+/**
+ * `/api/orders` (operations and admin): list with filter, search and pages; one order with its history; move it
+ * along (in production, shipped with tracking, delivered); cancel an unpaid order or refund a paid one.
+ */
+import { Router } from 'express';
+import {
+  OrderCancelRequestSchema,
+  OrderIdParamsSchema,
+  OrderListQuerySchema,
+  OrderTransitionRequestSchema,
+  type OrderCancelRequest,
+  type OrderListQuery,
+  type OrderTransitionRequest,
+} from '../../shared/schemas/order';
+import type { AppContext } from '../context';
+import { requireRole, signedInPerson } from '../auth/requireRole';
+import { badRequest } from '../http/HttpError';
+import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
+import { cancelOrder } from '../services/checkoutService';
+import { kickMail } from '../services/mailService';
+import { get, list, listAll, transition } from '../services/orderService';
+import { ordersCsv } from '../services/ordersCsv';
+import { sendAttachment } from '../pdf/sendAttachment';
+
+/**
+ * Builds the orders router (mounted at `/api/orders`).
+ * @param ctx - the application context
+ */
+export function ordersRouter(ctx: AppContext): Router {
+  const router = Router();
+  router.use(requireRole('operations', 'admin'));
+  const idParams = validate({ params: OrderIdParamsSchema });
+
+  router.get('/', validate({ query: OrderListQuerySchema }), async (_req, res) => {
+    res.json(await list(ctx.db, parsedQuery<OrderListQuery>(res)));
+  });
+
+  router.get('/export.csv', validate({ query: OrderListQuerySchema }), async (_req, res) => {
+    const { state, q, flagged } = parsedQuery<OrderListQuery>(res);
+    const csv = ordersCsv(await listAll(ctx.db, { state, q, flagged }));
+    sendAttachment(res, csv, 'text/csv; charset=utf-8', `orders-${new Date().toISOString().slice(0, 10)}.csv`);
+  });
+
+  router.get('/:id', idParams, async (_req, res) => {
+    res.json(await get(ctx.db, parsedParams<{ id: string }>(res).id));
+  });
+
+  router.post(
+    '/:id/transition',
+    validate({ params: OrderIdParamsSchema, body: OrderTransitionRequestSchema }),
+    async (_req, res) => {
+      const body = parsedBody<OrderTransitionRequest>(res);
+      if (body.to === 'shipped' && !body.trackingUrl)
+        throw badRequest('trackingUrl: a shipped order needs the tracking link for the customer');
+      const order = await transition(ctx.db, parsedParams<{ id: string }>(res).id, body.to, signedInPerson(res), {
+        trackingUrl: body.trackingUrl,
+        note: body.note,
+      });
+      kickMail(ctx);
+      res.json(order);
+    },
+  );
+
+  router.post(
+    '/:id/cancel',
+    validate({ params: OrderIdParamsSchema, body: OrderCancelRequestSchema }),
+    async (_req, res) => {
+      const { reason } = parsedBody<OrderCancelRequest>(res);
+      res.json(await cancelOrder(ctx, parsedParams<{ id: string }>(res).id, signedInPerson(res), reason));
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,245 @@
+/**
+ * The shop's view of the catalogue: one product per published family, its published variants priced with VAT from
+ * the settings, the key figures, birds, mounting and cautions. Only variants priced in the shop currency are sold.
+ */
+import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
+import type { CatalogueVariant } from '../../shared/schemas/catalogue';
+import type { Photo } from '../../shared/schemas/photo';
+import type { SalesSettings } from '../../shared/schemas/sales';
+import type {
+  ShopAxis,
+  ShopPriceDisplay,
+  ShopProduct,
+  ShopProductList,
+  ShopProductQuery,
+  ShopProductSummary,
+  ShopVariant,
+} from '../../shared/schemas/shop';
+import type { SellableVariant } from '../../shared/shop/priceCart';
+import { shopUnitPrice } from '../../shared/shop/priceCart';
+import type { AppContext } from '../context';
+import { listCatalogueVariants } from './catalogue';
+import { getSalesSettings } from './salesSettings';
+import { backFit, productName, variantCautions } from './specSheet';
+
+/**
+ * A family's address in the shop: its name in lower case with hyphens.
+ * @param name - the family name
+ */
+export function productSlug(name: string): string {
+  return (
+    name
+      .toLowerCase()
+      .normalize('NFKD')
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 80) || 'product'
+  );
+}
+
+/** Published variants in the shop currency, grouped by product slug, with the settings. */
+async function sellable(
+  ctx: AppContext,
+): Promise<{ groups: Map<string, CatalogueVariant[]>; settings: SalesSettings }> {
+  const { settings } = await getSalesSettings(ctx.db);
+  const groups = new Map<string, CatalogueVariant[]>();
+  for (const variant of await listCatalogueVariants(ctx)) {
+    if (variant.currency !== settings.shop.currency) continue;
+    const slug = productSlug(variant.family.name);
+    groups.set(slug, [...(groups.get(slug) ?? []), variant]);
+  }
+  return { groups, settings };
+}
+
+function priceDisplay(settings: SalesSettings): ShopPriceDisplay {
+  return {
+    currency: settings.shop.currency,
+    vatRatePct: settings.shop.vatRatePct,
+    showPricesWithVat: settings.shop.showPricesWithVat,
+  };
+}
+
+function colourOf(variant: CatalogueVariant): { id: string; name: string; hex: string } | null {
+  if (!variant.attributes.colour) return null;
+  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const colour = material?.colours.find((c) => c.id === variant.attributes.colour);
+  return {
+    id: variant.attributes.colour,
+    name: colour?.name ?? variant.attributes.colour,
+    hex: colour?.hex ?? '#cccccc',
+  };
+}
+
+function birdsOf(variant: CatalogueVariant): string[] {
+  return assessBirdFit(variant.report.facts).suits.map((s) => s.commonName);
+}
+
+function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): ShopVariant {
+  const [w, d, h] = variant.report.bboxSizeMm;
+  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  return {
+    sku: variant.sku,
+    productName: productName(variant),
+    axisValues: variant.axisValues,
+    colour: colourOf(variant),
+    material: material?.name ?? variant.attributes.material,
+    priceMinor: shopUnitPrice(variant.priceCents, settings.shop.vatRatePct),
+    entryHoleMm: variant.report.facts.entryHoleDiameterMm,
+    sizeMm: [w, d, h],
+    massG: variant.report.massG,
+    birds: birdsOf(variant),
+    mounting: backFit(variant.templateId, variant.params, w),
+    cautions: variantCautions(variant).map(({ title, text }) => ({ title, text })),
+    meshSha256: variant.sha256 ?? '',
+  };
+}
+
+function shopPhoto(photo: Photo) {
+  return {
+    url: `/api/shop/photos/${photo.id}`,
+    thumbUrl: `/api/shop/photos/${photo.id}/thumb`,
+    caption: photo.caption,
+    widthPx: photo.widthPx,
+    heightPx: photo.heightPx,
+  };
+}
+
+function axisLabelOf(key: string): string {
+  if (key === 'entryHoleDiameterMm') return 'Entry hole';
+  const words = key
+    .replace(/(Mm|Deg|Pct|Style)$/, '')
+    .replace(/([A-Z])/g, ' $1')
+    .toLowerCase();
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+function valueLabel(key: string, value: unknown, colourName?: string): string {
+  if (colourName) return colourName;
+  if (typeof value === 'boolean') return value ? 'Yes' : 'No';
+  if (typeof value === 'number')
+    return key.endsWith('Mm') ? `${value} mm (${(value / 25.4).toFixed(2)} in)` : String(value);
+  const text = String(value).replace(/-/g, ' ');
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** The axes of a product from its variants' axis values (only values some published variant has). */
+function axesOf(variants: CatalogueVariant[]): ShopAxis[] {
+  const keys = [...new Set(variants.flatMap((v) => Object.keys(v.axisValues)))];
+  return keys.map((key) => {
+    const seen = new Map<string, ShopAxis['values'][number]>();
+    for (const variant of variants) {
+      const value = variant.axisValues[key];
+      if (value === undefined || seen.has(JSON.stringify(value))) continue;
+      const colour = key === 'colour' ? colourOf(variant) : null;
+      seen.set(JSON.stringify(value), {
+        value,
+        label: valueLabel(key, value, colour?.name),
+        swatchHex: colour?.hex ?? null,
+      });
+    }
+    const values = [...seen.values()].sort((a, b) =>
+      typeof a.value === 'number' && typeof b.value === 'number' ? a.value - b.value : 0,
+    );
+    return { key, label: axisLabelOf(key), values };
+  });
+}
+
+function summaryOf(slug: string, variants: CatalogueVariant[], settings: SalesSettings): ShopProductSummary {
+  const first = variants[0];
+  const colours = new Map<string, { id: string; name: string; hex: string }>();
+  for (const v of variants) {
+    const c = colourOf(v);
+    if (c) colours.set(c.id, c);
+  }
+  return {
+    slug,
+    name: first.family.name,
+    description: first.family.description,
+    fromPriceMinor: Math.min(...variants.map((v) => shopUnitPrice(v.priceCents, settings.shop.vatRatePct))),
+    colours: [...colours.values()],
+    birds: [...new Set(variants.flatMap(birdsOf))].sort(),
+    photo: first.photos[0] ? shopPhoto(first.photos[0]) : null,
+    variantCount: variants.length,
+  };
+}
+
+/**
+ * The products on sale, filtered by a bird it suits and a colour it comes in.
+ * @param ctx - app context
+ * @param query - filters
+ */
+export async function listShopProducts(ctx: AppContext, query: ShopProductQuery = {}): Promise<ShopProductList> {
+  const { groups, settings } = await sellable(ctx);
+  const all = [...groups.entries()].map(([slug, variants]) => summaryOf(slug, variants, settings));
+  const colours = new Map(all.flatMap((p) => p.colours).map((c) => [c.id, c]));
+  return {
+    products: all.filter(
+      (p) =>
+        (!query.bird || p.birds.includes(query.bird)) &&
+        (!query.colour || p.colours.some((c) => c.id === query.colour)),
+    ),
+    prices: priceDisplay(settings),
+    facets: { birds: [...new Set(all.flatMap((p) => p.birds))].sort(), colours: [...colours.values()] },
+  };
+}
+
+/**
+ * One product with its published variants, or undefined.
+ * @param ctx - app context
+ * @param slug - the product's address
+ */
+export async function getShopProduct(ctx: AppContext, slug: string): Promise<ShopProduct | undefined> {
+  const { groups, settings } = await sellable(ctx);
+  const variants = groups.get(slug);
+  if (!variants) return undefined;
+  const summary = summaryOf(slug, variants, settings);
+  return {
+    slug: summary.slug,
+    name: summary.name,
+    description: summary.description,
+    fromPriceMinor: summary.fromPriceMinor,
+    colours: summary.colours,
+    birds: summary.birds,
+    variantCount: summary.variantCount,
+    axes: axesOf(variants),
+    variants: variants.map((v) => toShopVariant(v, settings)),
+    photos: variants[0].photos.map(shopPhoto),
+    prices: priceDisplay(settings),
+  };
+}
+
+/**
+ * The sellable variants for some SKUs (published, in the shop currency), by SKU, with the settings.
+ * @param ctx - app context
+ * @param skus - the SKUs asked for
+ */
+export async function sellableVariants(
+  ctx: AppContext,
+  skus: string[],
+): Promise<{ bySku: Map<string, SellableVariant>; settings: SalesSettings }> {
+  const { settings } = await getSalesSettings(ctx.db);
+  const bySku = new Map<string, SellableVariant>();
+  for (const variant of await listCatalogueVariants(ctx, { skus })) {
+    if (variant.currency !== settings.shop.currency || !variant.sha256) continue;
+    bySku.set(variant.sku, {
+      sku: variant.sku,
+      productName: productName(variant),
+      unitNetMinor: variant.priceCents,
+      meshSha256: variant.sha256,
+      sizeMm: variant.report.bboxSizeMm,
+      massG: variant.report.massG,
+    });
+  }
+  return { bySku, settings };
+}
+
+/**
+ * True when a photo belongs to a family that is on sale (the shop serves only those).
+ * @param ctx - app context
+ * @param photoId - the photo
+ */
+export async function isShopPhoto(ctx: AppContext, photoId: string): Promise<boolean> {
+  const { groups } = await sellable(ctx);
+  return [...groups.values()].some((variants) => variants[0].photos.some((p) => p.id === photoId));
+}
