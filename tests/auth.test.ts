@@ -7,6 +7,7 @@ import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE_NAME, SESSION_LIFETIME } from '../server/auth/lucia';
+import { createApp } from '../server/app';
 import { SIGN_IN_ATTEMPTS } from '../server/auth/signInLimiter';
 import { auditEvents, people, sessions } from '../server/db/schema';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../server/db/seedDemo';
@@ -229,6 +230,25 @@ describe('rate-limited sign-in', () => {
       expect((await attempt('ada@fernhollow.test', DEMO_PASSWORD)).status).toBe(200);
     } finally {
       await limited.close();
+    }
+  });
+
+  it('holds across two API processes sharing one database', async () => {
+    const shared = await makeTestApp();
+    try {
+      // A second app on the same database stands for a second API process (its own limiter instance).
+      const second = createApp(shared.ctx);
+      const attempt = (app: typeof second, password: string) =>
+        supertest(app)
+          .post('/api/auth/sign-in')
+          .set('Origin', TEST_ORIGIN)
+          .send({ email: 'tobias@fernhollow.test', password });
+      for (let i = 0; i < SIGN_IN_ATTEMPTS; i++)
+        expect((await attempt(i % 2 === 0 ? shared.app : second, `guess-${i}`)).status).toBe(401);
+      expect((await attempt(shared.app, DEMO_PASSWORD)).status).toBe(429);
+      expect((await attempt(second, DEMO_PASSWORD)).status).toBe(429);
+    } finally {
+      await shared.close();
     }
   });
 });

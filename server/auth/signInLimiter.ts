@@ -1,7 +1,9 @@
 /** Slows password guessing: at most 10 failed sign-ins per 15 minutes for one address + e-mail. */
 import type { RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { Db } from '../db/client';
 import { HttpError } from '../http/HttpError';
+import { DbRateLimitStore } from './DbRateLimitStore';
 
 /** Failed attempts allowed per window. */
 export const SIGN_IN_ATTEMPTS = 10;
@@ -9,11 +11,14 @@ export const SIGN_IN_ATTEMPTS = 10;
 export const SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
 
 /**
- * A fresh limiter (memory store; one per app so tests do not share counts). Must run after the JSON parser.
- * Successful sign-ins do not count.
+ * The sign-in limiter of an app. Counts live in the database (`rate_limit_hits`), so the limit holds across every
+ * API process sharing it (and each test app, with its own database, has its own counts). Must run after the JSON
+ * parser. Successful sign-ins do not count.
+ * @param db - the app's database
  */
-export function signInLimiter(): RequestHandler {
+export function signInLimiter(db: Db): RequestHandler {
   return rateLimit({
+    store: new DbRateLimitStore(db, 'sign-in:'),
     windowMs: SIGN_IN_WINDOW_MS,
     limit: SIGN_IN_ATTEMPTS,
     skipSuccessfulRequests: true,

@@ -22,7 +22,7 @@ const invalidCredentials = (): HttpError =>
 export function authRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.post('/sign-in', signInLimiter(), validate({ body: SignInSchema }), async (req, res) => {
+  router.post('/sign-in', signInLimiter(ctx.db), validate({ body: SignInSchema }), async (req, res) => {
     const { email, password } = parsedBody<SignIn>(res);
     const row = await findPersonByEmail(ctx.db, email);
     const valid = await verifyPassword(row?.passwordHash ?? (await decoyPasswordHash()), password);
