@@ -199,7 +199,7 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
     await dialog.getByLabel('E-mail').fill('wren@fernhollow.test');
     await dialog.getByLabel('Initial password').fill('short');
     await dialog.getByRole('button', { name: 'Add person' }).click();
-    await dialog.getByText('password must be at least 10 characters').waitFor();
+    await dialog.getByText('The password needs at least 10 characters.').waitFor();
     await dialog.getByText('Choose at least one role.').waitFor();
     await settle(page);
     await page.screenshot({ path: `${SHOTS}/admin-add-invalid.png` });
