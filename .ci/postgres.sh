@@ -15,6 +15,8 @@ done
 if ! su postgres -c "psql -qtAc \"select 1 from pg_roles where rolname = 'nestwright'\"" | grep -q 1; then
   su postgres -c "psql -qc \"create role nestwright login password 'nestwright' createdb\"" >/dev/null
 fi
+# Test databases are dropped WITH (FORCE); that may end other roles' backends (autovacuum), which needs this role.
+su postgres -c "psql -qc 'grant pg_signal_backend to nestwright'" >/dev/null
 if ! su postgres -c "psql -qtAc \"select 1 from pg_database where datname = 'nestwright'\"" | grep -q 1; then
   su postgres -c "psql -qc 'create database nestwright owner nestwright'" >/dev/null
 fi
