@@ -3,7 +3,7 @@
  * injected faults hold, fail or lose things, and every move is sent as a signed notice. Kept in memory: the fake
  * stands in for a service with its own storage, so it outlives our server only when run as its own process.
  */
-import { randomBytes } from 'node:crypto';
+import { randomBytes, randomInt } from 'node:crypto';
 import type {
   FarmFaults,
   FarmNotice,
@@ -174,7 +174,8 @@ export class FakeFarmFloor {
         return;
       case 'packing': {
         const carrier = CARRIERS[order.id.charCodeAt(order.id.length - 1) % CARRIERS.length];
-        const trackingCode = `${carrier.prefix}${randomBytes(5).readUIntBE(0, 5).toString().padStart(12, '0')}`;
+        // Twelve digits, always: two six-digit random halves (a 40-bit number could reach thirteen).
+        const trackingCode = `${carrier.prefix}${randomInt(0, 1e6).toString().padStart(6, '0')}${randomInt(0, 1e6).toString().padStart(6, '0')}`;
         order.parcel = { carrier: carrier.name, trackingCode, trackingUrl: `${carrier.url}${trackingCode}` };
         this.move(entry, 'handed_over', `handed to ${carrier.name}, tracking ${trackingCode}`);
         entry.dueAtS = Infinity;
