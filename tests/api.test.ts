@@ -96,7 +96,7 @@ describe('bad input', () => {
     const people = await admin.get('/api/people');
     const res = await admin.patch(`/api/people/${people.body.people[0].id}`).send({ roles: ['gardener'] });
     expect(res.status).toBe(400);
-    expect(errorOf(res).message).toBe('Choose a role: Designer, Catalogue manager, Sales or Admin.');
+    expect(errorOf(res).message).toBe('Choose a role: Designer, Catalogue manager, Sales, Operations or Admin.');
     expect((errorOf(res).details as Array<{ path: string }>)[0].path).toBe('roles.0');
   });
 

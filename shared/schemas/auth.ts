@@ -4,7 +4,9 @@ import { z } from 'zod';
 export const ROLES = ['designer', 'catalogue_manager', 'sales', 'operations', 'admin'] as const;
 
 /** One role. */
-export const RoleSchema = z.enum(ROLES, { error: 'Choose a role: Designer, Catalogue manager, Sales or Admin.' });
+export const RoleSchema = z.enum(ROLES, {
+  error: 'Choose a role: Designer, Catalogue manager, Sales, Operations or Admin.',
+});
 /** One role. */
 export type Role = z.infer<typeof RoleSchema>;
 
