@@ -102,6 +102,8 @@ export default async function bench(): Promise<void> {
     printerId: 'rowan-farm-06',
     materialId: 'pla',
     region: 'europe',
+    targets: { maxUnitCostCents: null, maxPrintHours: null, maxMassG: null, minInsulation: null },
+    printRecipe: { wallLoops: null, infillPct: null },
   });
   const [revision] = await db.select().from(familyRevisions).where(eq(familyRevisions.familyId, family.id));
   const jobs = familyJobs(ctx);

@@ -80,6 +80,7 @@ export async function catalogueVariantFixture(spec: FixtureSpec): Promise<Catalo
       printTimeMin: production.printTimeMin,
       facts: result.facts,
       warnings: [],
+      targetChecks: [],
     },
     cost: {
       currency: production.currency,

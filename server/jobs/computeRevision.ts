@@ -1,9 +1,12 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { VariantVerdict } from '../../shared/schemas/variant';
+import type { CostRates, PrintSettings } from '../../shared/schemas/production';
 import type { Db } from '../db/client';
 import { familyRevisions, familyVariants, families } from '../db/schema';
 import { loadMaterials, loadPrinters } from '../services/familyProduction';
 import { evaluateVariant } from './evaluateVariant';
+import { loadPrintSettings } from './loadPrintSettings';
+import { addTargetDrivers } from './targetDrivers';
 import type { VariantGeometry } from './variantGeometry';
 
 /** What a computed variant row is updated with. */
@@ -14,10 +17,15 @@ export interface RevisionInputs {
   revision: typeof familyRevisions.$inferSelect;
   printer: NonNullable<ReturnType<Awaited<ReturnType<typeof loadPrinters>>['get']>>;
   materials: Awaited<ReturnType<typeof loadMaterials>>;
+  /** The studio's print settings with the family's perimeters and infill laid over them. */
+  settings: PrintSettings;
+  /** The studio's cost rates and finishes. */
+  rates: CostRates;
 }
 
 /**
- * Loads a revision with its printer profile and the materials list.
+ * Loads a revision with its printer profile, the materials list, and the print settings (with the family's recipe)
+ * and cost rates its variants are priced with.
  * @param db - database
  * @param revisionId - the revision
  * @returns null when the revision is gone
@@ -28,12 +36,14 @@ export async function loadRevisionInputs(db: Db, revisionId: string): Promise<Re
   if (!revision) return null;
   const printer = (await loadPrinters(db)).get(revision.printerId);
   if (!printer) throw new Error(`printer ${revision.printerId} is not in the printer profiles`);
-  return { revision, printer, materials: await loadMaterials(db) };
+  const { settings, rates } = await loadPrintSettings(db, revision.printRecipe);
+  return { revision, printer, materials: await loadMaterials(db), settings, rates };
 }
 
 /**
- * The stored result of a variant whose geometry was built: fit, cost, bird fit, outdoor heat and verdict.
- * @param inputs - the revision, its printer and the materials
+ * The stored result of a variant whose geometry was built: fit, cost, bird fit, outdoor heat, production targets
+ * and verdict.
+ * @param inputs - the revision, its printer, the materials, settings and rates
  * @param variant - the variant row
  * @param geometry - its built and analysed geometry
  * @throws when the variant's material is not in the materials list
@@ -51,6 +61,10 @@ export function evaluatedUpdate(
     supportBudgetMm3: inputs.revision.supportBudgetMm3,
     region: inputs.revision.region,
     colourId: variant.attributes.colour,
+    settings: inputs.settings,
+    rates: inputs.rates,
+    finishId: variant.attributes.finish,
+    targets: inputs.revision.targets,
   });
   return { status: 'done', sha256: geometry.sha256, params: geometry.params, ...evaluation, error: null };
 }
@@ -90,7 +104,7 @@ export interface ComputeRevisionOptions {
 export async function computeRevision(db: Db, revisionId: string, options: ComputeRevisionOptions): Promise<boolean> {
   const inputs = await loadRevisionInputs(db, revisionId);
   if (!inputs) return false;
-  const { revision, printer, materials } = inputs;
+  const { revision } = inputs;
   const variants = await db
     .select()
     .from(familyVariants)
@@ -115,7 +129,7 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
     }
     let update: VariantUpdate;
     try {
-      update = evaluatedUpdate({ revision, printer, materials }, variant, await pending);
+      update = evaluatedUpdate(inputs, variant, await pending);
     } catch (err) {
       if (options.isCancelled()) return false;
       update = failedUpdate(err);
@@ -134,6 +148,17 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
     });
     options.onVariant?.(done, total, { sku: variant.sku, verdict: update.verdict });
   }
+  if (options.isCancelled()) return false;
+  await addRevisionTargetDrivers(db, inputs, (params) => {
+    const key = JSON.stringify(params);
+    let pending = geometries.get(key);
+    if (!pending) {
+      pending = options.geometry(revision.templateId, params);
+      pending.catch(() => {});
+      geometries.set(key, pending);
+    }
+    return pending;
+  });
   const now = new Date();
   await db
     .update(familyRevisions)
@@ -141,4 +166,27 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
     .where(eq(familyRevisions.id, revisionId));
   await db.update(families).set({ updatedAt: now }).where(eq(families.id, revision.familyId));
   return true;
+}
+
+/**
+ * After the last variant: for each production target some variant misses, the parameter that moves it most on the
+ * worst variant (server/jobs/targetDrivers.ts), added to that variant's checks and reasons.
+ * @param db - database
+ * @param inputs - the revision, printer, materials, settings and rates
+ * @param geometry - builds one parameter set of the revision's template (cached by the caller)
+ */
+export async function addRevisionTargetDrivers(
+  db: Db,
+  inputs: RevisionInputs,
+  geometry: (params: Record<string, unknown>) => Promise<VariantGeometry>,
+): Promise<void> {
+  const { revision, printer, materials, settings, rates } = inputs;
+  await addTargetDrivers(db, revision.id, revision.templateId, geometry, materials, {
+    printer,
+    supportBudgetMm3: revision.supportBudgetMm3,
+    region: revision.region,
+    settings,
+    rates,
+    targets: revision.targets,
+  });
 }

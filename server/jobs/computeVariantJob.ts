@@ -2,15 +2,24 @@
  * The `family.variant` job (PostgreSQL): builds, evaluates and stores one variant of a family revision, so that N
  * worker processes share one family. Safe to run twice: the variant row is written only while it is still pending
  * and the revision's computation generation is the one the job was sent for, in one transaction that also counts
- * it, finishes the revision after its last variant, and announces the progress (NOTIFY, delivered on commit).
+ * it and announces the progress (NOTIFY, delivered on commit). After the last variant the job that stored it adds the
+ * production-target drivers (which parameter moves a missed target most) and then marks the revision done; when
+ * that job dies in between, its retry finds every variant stored and finishes the revision.
  */
 import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
-import type { ComputeProgressEvent, VariantVerdict } from '../../shared/schemas/variant';
+import type { ComputeProgressEvent } from '../../shared/schemas/variant';
 import type { AppContext } from '../context';
 import type { Db } from '../db/client';
 import { familyComputeRuns, familyRevisions, familyVariants, families } from '../db/schema';
-import { evaluatedUpdate, failedUpdate, loadRevisionInputs, type VariantUpdate } from './computeRevision';
+import {
+  addRevisionTargetDrivers,
+  evaluatedUpdate,
+  failedUpdate,
+  loadRevisionInputs,
+  type RevisionInputs,
+  type VariantUpdate,
+} from './computeRevision';
 import { defineJob } from './JobQueue';
 import type { VariantGeometry } from './variantGeometry';
 import { VariantWorker } from './VariantWorker';
@@ -95,9 +104,16 @@ export const computeVariantJob = defineJob({
           .where(eq(familyComputeRuns.revisionId, revisionId))
       )[0]?.generation === generation;
     const [variant] = await db.select().from(familyVariants).where(eq(familyVariants.id, variantId));
-    if (!variant || variant.status !== 'pending' || !(await current())) return;
+    if (!variant || !(await current())) return;
     const inputs = await loadRevisionInputs(db, revisionId);
     if (!inputs) return;
+    if (variant.status !== 'pending') {
+      // A retry after the job died between storing the last variant and finishing the revision.
+      const { revision } = inputs;
+      if (revision.computeState === 'running' && revision.computeDone >= revision.computeTotal)
+        await finishRevision(ctx, inputs, generation);
+      return;
+    }
     await db
       .update(familyRevisions)
       .set({ computeState: 'running', computeStartedAt: new Date(), updatedAt: new Date() })
@@ -112,7 +128,8 @@ export const computeVariantJob = defineJob({
       if (!isBuildFailure(err) && attempt <= computeVariantJob.retry.limit) throw err;
       update = failedUpdate(err);
     }
-    await storeVariant(db, { revisionId, variantId, generation }, update, variant.sku);
+    const last = await storeVariant(db, { revisionId, variantId, generation }, update, variant.sku);
+    if (last) await finishRevision(ctx, inputs, generation);
   },
 });
 
@@ -121,52 +138,82 @@ function isBuildFailure(err: unknown): boolean {
   return !/computation (worker )?(was )?stopped|worker stopped/.test(message);
 }
 
-/** Writes a computed variant once, counts it, finishes the revision after the last one, and announces it. */
+/**
+ * Writes a computed variant once, counts it and announces it.
+ * @returns true when it was the revision's last variant
+ */
 async function storeVariant(
   db: Db,
   job: z.infer<typeof ComputeVariantDataSchema>,
   update: VariantUpdate,
   sku: string,
-): Promise<void> {
-  await db.transaction(async (tx) => {
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
     const [run] = await tx
       .select({ generation: familyComputeRuns.generation })
       .from(familyComputeRuns)
       .where(eq(familyComputeRuns.revisionId, job.revisionId))
       .for('update');
-    if (run?.generation !== job.generation) return;
+    if (run?.generation !== job.generation) return false;
     const stored = await tx
       .update(familyVariants)
       .set({ ...update, updatedAt: new Date() })
       .where(and(eq(familyVariants.id, job.variantId), eq(familyVariants.status, 'pending')))
       .returning({ id: familyVariants.id });
-    if (stored.length === 0) return;
+    if (stored.length === 0) return false;
     const [revision] = await tx
       .update(familyRevisions)
       .set({ computeDone: sql`${familyRevisions.computeDone} + 1`, updatedAt: new Date() })
       .where(eq(familyRevisions.id, job.revisionId))
       .returning();
-    const finished = revision.computeDone >= revision.computeTotal;
-    if (finished) {
-      const now = new Date();
-      await tx
-        .update(familyRevisions)
-        .set({ computeState: 'done', computeError: null, computeFinishedAt: now, updatedAt: now })
-        .where(eq(familyRevisions.id, job.revisionId));
-      await tx.update(families).set({ updatedAt: now }).where(eq(families.id, revision.familyId));
-    }
     const base = { familyId: revision.familyId, revision: revision.number, total: revision.computeTotal };
-    const verdict = update.verdict as VariantVerdict;
     await notifyProgress(tx, {
       revisionId: job.revisionId,
-      event: { ...base, state: 'running', doneCount: revision.computeDone, variant: { sku, verdict } },
+      event: { ...base, state: 'running', doneCount: revision.computeDone, variant: { sku, verdict: update.verdict } },
       done: false,
     });
-    if (finished)
-      await notifyProgress(tx, {
-        revisionId: job.revisionId,
-        event: { ...base, state: 'done', doneCount: revision.computeDone },
-        done: true,
-      });
+    return revision.computeDone >= revision.computeTotal;
+  });
+}
+
+/**
+ * Finishes a revision whose variants are all stored: adds the production-target drivers (a failure there leaves the
+ * messages without a driver, and is logged), then marks the revision done and announces it, once and only for the
+ * generation the job was sent for.
+ */
+async function finishRevision(ctx: AppContext, inputs: RevisionInputs, generation: number): Promise<void> {
+  const { db } = ctx;
+  const revisionId = inputs.revision.id;
+  try {
+    await addRevisionTargetDrivers(db, inputs, (params) => geometryOf(ctx, inputs.revision.templateId, params));
+  } catch (err) {
+    ctx.log(`Family ${revisionId}: the target drivers could not be worked out (${(err as Error).message})`);
+  }
+  await db.transaction(async (tx) => {
+    const [run] = await tx
+      .select({ generation: familyComputeRuns.generation })
+      .from(familyComputeRuns)
+      .where(eq(familyComputeRuns.revisionId, revisionId))
+      .for('update');
+    if (run?.generation !== generation) return;
+    const now = new Date();
+    const [revision] = await tx
+      .update(familyRevisions)
+      .set({ computeState: 'done', computeError: null, computeFinishedAt: now, updatedAt: now })
+      .where(and(eq(familyRevisions.id, revisionId), eq(familyRevisions.computeState, 'running')))
+      .returning();
+    if (!revision) return;
+    await tx.update(families).set({ updatedAt: now }).where(eq(families.id, revision.familyId));
+    await notifyProgress(tx, {
+      revisionId,
+      event: {
+        familyId: revision.familyId,
+        revision: revision.number,
+        total: revision.computeTotal,
+        state: 'done',
+        doneCount: revision.computeDone,
+      },
+      done: true,
+    });
   });
 }

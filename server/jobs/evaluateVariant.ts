@@ -3,7 +3,10 @@ import { variantVerdict } from '../../shared/families/variantVerdict';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
 import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/variant';
-import type { Material, PrinterProfile } from '../../shared/schemas/production';
+import type { CostRates, Material, PrinterProfile, PrintSettings } from '../../shared/schemas/production';
+import type { ProductionTargets } from '../../shared/schemas/wallRecipe';
+import { checkTargets, describeTargetCheck } from '../../shared/economics/checkTargets';
+import { wallResistanceM2KW } from '../../shared/thermal/wallResistance';
 import type { VariantGeometry } from './variantGeometry';
 
 /** Everything stored for one computed variant. */
@@ -23,6 +26,14 @@ export interface EvaluationContext {
   region: Region | null;
   /** The variant's colour id (attributes.colour); null takes the material's first colour. */
   colourId?: string | null;
+  /** Print settings with the family's recipe applied (default: the built-in settings). */
+  settings?: PrintSettings;
+  /** Cost rates with the finishes (default: the built-in rates). */
+  rates?: CostRates;
+  /** The variant's finish (attributes.finish); null takes the first finish of the rates. */
+  finishId?: string | null;
+  /** The family's production targets; a variant over one fails. */
+  targets?: ProductionTargets;
 }
 
 /**
@@ -31,15 +42,18 @@ export interface EvaluationContext {
  * when a set fits one plate, otherwise the copies of the part that fits fewest (shared/analysis/fitParts.ts).
  * The outdoor assessment (sol-air roof and wall temperatures against the material's heat-deflection temperature)
  * is stored in the report; a surface above that temperature makes the verdict `warn` with a reason. The figures
- * come from the one design assessment (shared/assessment/assessDesign.ts).
+ * come from the one design assessment (shared/assessment/assessDesign.ts). A variant over one of the family's
+ * production targets (unit cost, print hours, mass, wall insulation) fails, with a reason saying by how much.
  * @param geometry - what the worker measured
- * @param context - printer, material, support budget and region
+ * @param context - printer, material, support budget, region, settings, rates, finish and targets
  */
 export function evaluateVariant(geometry: VariantGeometry, context: EvaluationContext): VariantEvaluation {
   const { printer, material } = context;
+  const settings = context.settings ?? DEFAULT_SETTINGS;
+  const rates = context.rates ?? DEFAULT_RATES;
   const assessment = assessDesign(
     geometry,
-    { printer, material, colourId: context.colourId, settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES },
+    { printer, material, colourId: context.colourId, settings, rates, finishId: context.finishId },
     { facts: geometry.facts, region: context.region },
   );
   const { fit, production, birdFit } = assessment;
@@ -69,11 +83,34 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     printTimeMin: production.printTimeMin,
     facts: geometry.facts,
     warnings,
+    targetChecks: [],
   };
   // The colour must be one of the material's colours; otherwise the report has no outdoor section.
   if (assessment.outdoor) report.outdoor = plainOutdoor(assessment.outdoor);
   const birdFitWarnings = birdFit?.warnings ?? [];
-  const { verdict, reasons } = variantVerdict(report, context.supportBudgetMm3, birdFitWarnings, material.name);
+  if (context.targets) {
+    // The side wall as printed with the family's perimeters and infill (the template's designed thickness).
+    const wallRM2KW = wallResistanceM2KW(
+      geometry.facts.wallThicknessMm,
+      settings.wallLoops,
+      printer.lineWidthMm,
+      settings.infillPct,
+      material.thermalConductivityWmK,
+    );
+    report.targetChecks = checkTargets(
+      {
+        unitCostCents: production.cost.totalCents,
+        printTimeMin: production.printTimeMin,
+        massG: production.massG,
+        wallRM2KW,
+      },
+      context.targets,
+    );
+  }
+  const checked = variantVerdict(report, context.supportBudgetMm3, birdFitWarnings, material.name);
+  const missed = report.targetChecks.filter((check) => !check.met);
+  const verdict: VariantVerdict = missed.length > 0 ? 'fail' : checked.verdict;
+  const reasons = [...missed.map((check) => describeTargetCheck(check, production.currency)), ...checked.reasons];
   return {
     report,
     cost: {

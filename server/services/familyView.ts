@@ -189,6 +189,8 @@ export async function familyView(db: Queryable, id: string, person: Person): Pro
     printerId: current.printerId,
     materialId: current.materialId,
     region: current.region,
+    targets: current.targets,
+    printRecipe: current.printRecipe,
     owner: actor(names, family.ownerId),
     state: current.state,
     revision: current.number,

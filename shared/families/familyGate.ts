@@ -2,6 +2,7 @@ import type { ComputeState, Variant } from '../schemas/variant';
 import type { Acknowledgement, FamilyGate, GateBlocker, GateWarning, GateWarningCode } from '../schemas/gate';
 import { exceedsHeatDeflection, OUTDOOR_HEAT_SOURCE } from './outdoorHeat';
 import { needsAcknowledgement } from './variantVerdict';
+import { targetMisses } from './targetBlockers';
 
 /** What the gate reads of a revision. */
 export interface GateInput {
@@ -10,13 +11,16 @@ export interface GateInput {
   /** The pinned template version and the version the server builds now. */
   templateVersion: number;
   currentTemplateVersion: number;
-  variants: ReadonlyArray<Pick<Variant, 'sku' | 'status' | 'report' | 'birdFitWarnings' | 'error'>>;
+  variants: ReadonlyArray<
+    Pick<Variant, 'sku' | 'status' | 'report' | 'birdFitWarnings' | 'error'> & Partial<Pick<Variant, 'cost'>>
+  >;
   acknowledgements: readonly Acknowledgement[];
 }
 
 /**
  * The family gate: a family may be submitted only when every variant is computed, closed and manifold, fits the
- * printer, stays within the support budget, and every bird-fit warning that needs it is acknowledged in writing, as
+ * printer, stays within the support budget and the family's production targets (unit cost, print hours, mass,
+ * wall insulation), and every bird-fit warning that needs it is acknowledged in writing, as
  * is the `outdoor-heat` warning of variants whose roof or wall in full sun passes the material's heat-deflection
  * temperature.
  * @param input - the revision's computation, variants and acknowledgements
@@ -69,6 +73,12 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
     `support volume is over the family budget of ${Math.round(input.supportBudgetMm3)} mm³`,
     done.filter((v) => v.report!.supportVolumeMm3 > input.supportBudgetMm3).map((v) => v.sku),
   );
+
+  // Production targets: a variant over any target blocks, and the message names the worst one and what drives it.
+  const currency = done.find((variant) => variant.cost)?.cost?.currency ?? '';
+  const targeted = done.map((variant) => ({ sku: variant.sku, targetChecks: variant.report!.targetChecks ?? [] }));
+  for (const miss of targetMisses(targeted, currency))
+    blockers.push({ code: 'over_target', message: miss.message, skus: miss.skus });
 
   const byCode = new Map<GateWarningCode, GateWarning>();
   for (const variant of done) {

@@ -14,7 +14,8 @@ export type DiffableRevision = Pick<
   | 'printerId'
   | 'materialId'
   | 'region'
-> & { number: number; templateVersion: number };
+> &
+  Partial<Pick<FamilySpec, 'targets' | 'printRecipe'>> & { number: number; templateVersion: number };
 
 const same = (a: unknown, b: unknown): boolean => JSON.stringify(a) === JSON.stringify(b);
 
@@ -39,9 +40,12 @@ export function revisionDiff(from: DiffableRevision, to: DiffableRevision): Revi
     'printerId',
     'materialId',
     'region',
+    'targets',
+    'printRecipe',
   ] as const;
   for (const field of scalar) {
-    if (!same(from[field], to[field])) fields.push({ field, from: from[field], to: to[field] });
+    if (!same(from[field] ?? null, to[field] ?? null))
+      fields.push({ field, from: from[field] ?? null, to: to[field] ?? null });
   }
   const paramKeys = [...new Set([...Object.keys(from.baseParams), ...Object.keys(to.baseParams)])].sort();
   for (const key of paramKeys) {

@@ -13,6 +13,7 @@
 import { z } from 'zod';
 import { fieldLabel } from './humanMessages';
 import { RegionSchema } from './birdfit';
+import { PrintRecipeSchema, ProductionTargetsSchema } from './wallRecipe';
 
 /** Most variants one family may have; more is refused with a message naming the count. */
 export const FAMILY_MAX_VARIANTS = 500;
@@ -147,12 +148,16 @@ export const FamilySpecSchema = z.object({
   axes: AxesSchema,
   /** Largest support volume a variant may need, mm³. */
   supportBudgetMm3: z.number().nonnegative().max(10_000_000),
-  /** Printer every variant must fit (DEFAULT_PRINTERS / printer_profiles id). */
+  /** Printer every variant must fit and is priced on (a printer_profiles id; the demo farm's 0.6 mm profile). */
   printerId: z.string().min(1).default('rowan-farm-06'),
   /** Material when there is no material axis. */
   materialId: z.string().min(1).default('pla'),
   /** Region for the bird-fit rules; both regions when null. */
   region: RegionSchema.nullable().default(null),
+  /** Unit cost, print hours, mass and wall insulation every variant must meet (unset targets are not checked). */
+  targets: ProductionTargetsSchema.prefault({}),
+  /** Perimeters and infill every variant prints with (null: the studio's print settings). */
+  printRecipe: PrintRecipeSchema.prefault({}),
 });
 /** A family's editable content (see {@link FamilySpecSchema}). */
 export type FamilySpec = z.infer<typeof FamilySpecSchema>;
@@ -178,6 +183,8 @@ export const FamilyUpdateSchema = z
     printerId: z.string().min(1),
     materialId: z.string().min(1),
     region: RegionSchema.nullable(),
+    targets: ProductionTargetsSchema,
+    printRecipe: PrintRecipeSchema,
     expectedLock: z.number().int().nonnegative(),
   })
   .partial()

@@ -60,6 +60,7 @@ export const GateBlockerCodeSchema = z.enum([
   'birdfit_unacknowledged',
   'stale_template',
   'outdoor_unacknowledged',
+  'over_target',
 ]);
 
 /** One reason the gate blocks, with the SKUs it concerns. */

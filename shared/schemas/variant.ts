@@ -10,6 +10,7 @@ import { BirdFitWarningSchema } from './birdfit';
 import { CostBreakdownSchema } from './production';
 import { NestBoxFactsSchema } from './nestbox';
 import { OutdoorAssessmentSchema } from './outdoor';
+import { TargetCheckSchema } from './wallRecipe';
 import { AxisValueSchema, FAMILY_MAX_VARIANTS, VariantAttributesSchema } from './familySpec';
 
 /** Status of a family revision's computation. */
@@ -74,6 +75,8 @@ export const VariantReportSchema = z.object({
    * heat-deflection temperature (absent on variants computed before it was added, or for an unknown colour).
    */
   outdoor: OutdoorAssessmentSchema.optional(),
+  /** The family's production targets checked against this variant (empty when the family sets none). */
+  targetChecks: z.array(TargetCheckSchema).default([]),
 });
 /** A variant's report summary (see {@link VariantReportSchema}). */
 export type VariantReport = z.infer<typeof VariantReportSchema>;

@@ -23,6 +23,17 @@ export const WallRecipeSchema = z.object({
 export type WallRecipe = z.infer<typeof WallRecipeSchema>;
 
 /**
+ * A family's own perimeters and infill for every variant; null keeps the studio's print settings. The wall-recipe
+ * optimizer writes these together with the wall thickness parameter.
+ */
+export const PrintRecipeSchema = z.object({
+  wallLoops: z.number().int().min(1, 'at least 1 perimeter').max(20, 'at most 20 perimeters').nullable().default(null),
+  infillPct: z.number().min(0, 'infill must be 0–100 %').max(100, 'infill must be 0–100 %').nullable().default(null),
+});
+/** A family's print recipe (see {@link PrintRecipeSchema}). */
+export type PrintRecipe = z.infer<typeof PrintRecipeSchema>;
+
+/**
  * How well a wall must insulate: at least as well as a pine board of a given thickness ("at least as good as 19 mm
  * pine"), or at least a conductive thermal resistance R in m²K/W. Both compare conduction only, without air films.
  */

@@ -9,6 +9,7 @@ import { FAMILY_MAX_VARIANTS, FamilyCodeSchema, type Axis, type AxisValue } from
 import type { Family } from '../../shared/schemas/family';
 import type { Region } from '../../shared/schemas/birdfit';
 import { familySpecProblems } from '../../shared/families/familySpecProblems';
+import type { PrintRecipe, ProductionTargets } from '../../shared/schemas/wallRecipe';
 import { findSkuClashes, skuFor } from '../../shared/families/sku';
 import { variantCount } from '../../shared/families/variantMatrix';
 import { loadTemplateCatalogue, type TemplateSummary } from '../api/templates';
@@ -48,6 +49,13 @@ export function useFamilyForm() {
   const printerId = ref('');
   const materialId = ref('');
   const region = ref<Region | null>(null);
+  const targets = ref<ProductionTargets>({
+    maxUnitCostCents: null,
+    maxPrintHours: null,
+    maxMassG: null,
+    minInsulation: null,
+  });
+  const printRecipe = ref<PrintRecipe>({ wallLoops: null, infillPct: null });
   /** Re-pin an existing family to the template's current version when saving. */
   const repin = ref(false);
 
@@ -168,6 +176,8 @@ export function useFamilyForm() {
         printerId.value = family.printerId;
         materialId.value = family.materialId;
         region.value = family.region;
+        targets.value = { ...family.targets };
+        printRecipe.value = { ...family.printRecipe };
       } else {
         const wanted = typeof route.query.template === 'string' ? route.query.template : catalogue[0]?.id;
         templateId.value = catalogue.find((t) => t.id === wanted)?.id ?? catalogue[0]?.id ?? null;
@@ -195,6 +205,8 @@ export function useFamilyForm() {
       printerId: printerId.value,
       materialId: materialId.value,
       region: region.value,
+      targets: targets.value,
+      printRecipe: printRecipe.value,
     };
     try {
       const saved = familyId.value
@@ -238,6 +250,8 @@ export function useFamilyForm() {
     printerId,
     materialId,
     region,
+    targets,
+    printRecipe,
     repin,
     template,
     templateOptions,

@@ -6,6 +6,8 @@
 import { computed, ref, watch, type ComputedRef, type Ref } from 'vue';
 import type { PrinterProfile } from '../../shared/schemas/production';
 import { useProductionStore } from '../stores/production';
+import { useDesignStore } from '../stores/design';
+import { FARM_PRINTER_ID } from '../../shared/production/defaults';
 import type { ProductionChoice } from '../workers/geometryProtocol';
 
 /** The id remembered in this browser under `key` when it is still in the list, else `fallback`. */
@@ -14,14 +16,15 @@ function remembered(key: string, ids: string[], fallback: string): string {
   return value && ids.includes(value) ? value : fallback;
 }
 
-/** The printer last chosen in this browser, else the one with the largest build volume. */
+/** The printer last chosen in this browser, else the farm's everyday profile, else the largest build volume. */
 function initialPrinterId(printers: PrinterProfile[]): string {
   const volume = (item: PrinterProfile) => item.buildVolumeMm.x * item.buildVolumeMm.y * item.buildVolumeMm.z;
   const largest = [...printers].sort((a, b) => volume(b) - volume(a))[0];
+  const farm = printers.find((item) => item.id === FARM_PRINTER_ID);
   return remembered(
     'nw.printerId',
     printers.map((item) => item.id),
-    largest?.id ?? '',
+    farm?.id ?? largest?.id ?? '',
   );
 }
 
@@ -44,6 +47,7 @@ export interface ProductionChoiceState {
 /** The editor's printer, material and colour, remembered in this browser. */
 export function useProductionChoice(): ProductionChoiceState {
   const production = useProductionStore();
+  const design = useDesignStore();
   const printerId = ref('');
   const materialId = ref('');
   const colourId = ref('');
@@ -85,7 +89,12 @@ export function useProductionChoice(): ProductionChoiceState {
       printer: printer.value,
       material: material.value,
       colour: colour.value,
-      settings: catalogue.settings,
+      // The design's own perimeters and infill (from the wall-recipe optimizer) over the studio's settings.
+      settings: {
+        ...catalogue.settings,
+        ...(design.printRecipe.wallLoops !== null ? { wallLoops: design.printRecipe.wallLoops } : {}),
+        ...(design.printRecipe.infillPct !== null ? { infillPct: design.printRecipe.infillPct } : {}),
+      },
       rates: catalogue.rates,
     };
   });

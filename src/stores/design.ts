@@ -1,6 +1,7 @@
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import type { Preset } from '../../shared/schemas/preset';
+import type { PrintRecipe } from '../../shared/schemas/wallRecipe';
 
 /** How lengths are shown: millimetres (kept inside) or inches (shown only at the edge of the UI). */
 export type LengthDisplay = 'mm' | 'in';
@@ -18,6 +19,8 @@ export const useDesignStore = defineStore('design', () => {
   /** The preset this design was loaded from or saved as; null for a new design. */
   const preset = ref<Preset | null>(null);
   const savedParamsJson = ref('{}');
+  /** Perimeters and infill chosen for this design (null: the studio's print settings), e.g. by the optimizer. */
+  const printRecipe = ref<PrintRecipe>({ wallLoops: null, infillPct: null });
   const lengthDisplay = ref<LengthDisplay>(
     typeof localStorage !== 'undefined' && localStorage.getItem('nw.lengthDisplay') === 'in' ? 'in' : 'mm',
   );
@@ -31,6 +34,7 @@ export const useDesignStore = defineStore('design', () => {
    */
   function startNew(id: string, defaults: DesignParams): void {
     templateId.value = id;
+    printRecipe.value = { wallLoops: null, infillPct: null };
     params.value = { ...defaults };
     preset.value = null;
     savedParamsJson.value = JSON.stringify(params.value);
@@ -43,6 +47,7 @@ export const useDesignStore = defineStore('design', () => {
    */
   function openPreset(saved: Preset, defaults: DesignParams): void {
     templateId.value = saved.templateId;
+    printRecipe.value = { wallLoops: null, infillPct: null };
     const known = Object.fromEntries(Object.entries(saved.params).filter(([key]) => key in defaults));
     params.value = { ...defaults, ...(known as DesignParams) };
     preset.value = saved;
@@ -68,6 +73,14 @@ export const useDesignStore = defineStore('design', () => {
   }
 
   /**
+   * Sets the design's perimeters and infill (null values fall back to the studio's print settings).
+   * @param recipe - perimeters and infill
+   */
+  function setPrintRecipe(recipe: PrintRecipe): void {
+    printRecipe.value = { ...recipe };
+  }
+
+  /**
    * Chooses how lengths are shown and remembers it in this browser.
    * @param display - mm or in
    */
@@ -86,6 +99,8 @@ export const useDesignStore = defineStore('design', () => {
     openPreset,
     markSaved,
     setParam,
+    printRecipe,
+    setPrintRecipe,
     setLengthDisplay,
   };
 });

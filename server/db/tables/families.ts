@@ -13,6 +13,7 @@ import {
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
 import type { Axis, AxisValue, FamilyState, VariantAttributes } from '../../../shared/schemas/familySpec';
+import type { PrintRecipe, ProductionTargets } from '../../../shared/schemas/wallRecipe';
 import type { ComputeState, VariantCost, VariantReport, VariantVerdict } from '../../../shared/schemas/variant';
 import type { ReviewComment } from '../../../shared/schemas/review';
 import type { GateWarningCode } from '../../../shared/schemas/gate';
@@ -58,6 +59,13 @@ export const familyRevisions = pgTable(
     printerId: text('printer_id').notNull(),
     materialId: text('material_id').notNull(),
     region: text('region').$type<Region>(),
+    /** Unit cost, print hours, mass and insulation targets (shared/schemas/wallRecipe.ts). */
+    targets: jsonb('targets')
+      .$type<ProductionTargets>()
+      .notNull()
+      .default({ maxUnitCostCents: null, maxPrintHours: null, maxMassG: null, minInsulation: null }),
+    /** The family's own perimeters and infill (nulls: the studio's print settings). */
+    printRecipe: jsonb('print_recipe').$type<PrintRecipe>().notNull().default({ wallLoops: null, infillPct: null }),
     computeState: text('compute_state').$type<ComputeState>().notNull().default('idle'),
     computeDone: integer('compute_done').notNull().default(0),
     computeTotal: integer('compute_total').notNull().default(0),

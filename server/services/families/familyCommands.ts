@@ -71,6 +71,8 @@ export async function createFamily(ctx: FamilyContext, person: Person, body: Fam
         printerId: spec.printerId,
         materialId: spec.materialId,
         region: spec.region,
+        targets: spec.targets,
+        printRecipe: spec.printRecipe,
         createdBy: person.id,
       })
       .returning();
@@ -124,6 +126,8 @@ export async function updateFamily(
       printerId: patch.printerId ?? current.printerId,
       materialId: patch.materialId ?? current.materialId,
       region: patch.region !== undefined ? patch.region : current.region,
+      targets: patch.targets ?? current.targets,
+      printRecipe: patch.printRecipe ?? current.printRecipe,
     };
     const checked = checkFamilySpec(spec, printers, materials);
     const templateVersion =
