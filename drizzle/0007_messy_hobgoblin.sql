@@ -1,0 +1,2 @@
+ALTER TABLE "family_revisions" ADD COLUMN "targets" jsonb DEFAULT '{"maxUnitCostCents":null,"maxPrintHours":null,"maxMassG":null,"minInsulation":null}'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "family_revisions" ADD COLUMN "print_recipe" jsonb DEFAULT '{"wallLoops":null,"infillPct":null}'::jsonb NOT NULL;
