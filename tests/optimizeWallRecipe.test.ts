@@ -109,7 +109,7 @@ describe('optimizeWallRecipe', () => {
       expect(result.best!.unitCostCents).toBe(expected.unitCostCents);
       expect(result.best!.rM2KW).toBeGreaterThanOrEqual(result.targetRM2KW);
       expect(result.reason).toBeNull();
-    });
+    }, 180_000);
   }
 
   it('finds the brute-force optimum across two printers and an R-value target', () => {
@@ -118,7 +118,7 @@ describe('optimizeWallRecipe', () => {
     const result = optimizeWallRecipe({ ...options, printers, target });
     const expected = cheapestMeeting(bruteForce(printers), 0.2);
     expect(key(result.best!)).toBe(key(expected));
-  });
+  }, 180_000);
 
   it('returns the Pareto front of the whole grid, monotone and with the optimum on it', () => {
     const printers = [farm06, fine04];
@@ -140,7 +140,7 @@ describe('optimizeWallRecipe', () => {
     for (let i = 1; i < farmOnly.length; i++) expect(farmOnly[i]!.rM2KW).toBeGreaterThan(farmOnly[i - 1]!.rM2KW);
     // no cloud point dominates a front point
     for (const c of result.cloud) for (const f of result.front) expect(dominates(c, f)).toBe(false);
-  });
+  }, 180_000);
 
   it('says why when no recipe reaches the target, and when no infill keeps the cells small', () => {
     const tooMuch = optimizeWallRecipe({ ...options, printers: [farm06], target: { kind: 'pine-board', boardMm: 60 } });
