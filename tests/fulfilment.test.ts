@@ -3,9 +3,9 @@
  * outbox and tracked to shipped; faults (farm down, lost notices, duplicate and badly signed notices, a failed
  * print, a rejected address) are handled without losing or doubling anything.
  */
+import { randomBytes } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { desc, eq } from 'drizzle-orm';
 import { auditEvents, farmDispatches, mailOutbox } from '../server/db/schema';
@@ -13,11 +13,11 @@ import { NOTICE_SIGNATURE_HEADER, NOTICE_TIMESTAMP_HEADER, signNotice } from '..
 import { FarmEnvSchema } from '../server/farm/farmEnv';
 import type { FarmRuntime } from '../server/farm/farmRuntime';
 import { startFulfilment } from '../server/farm/startFulfilment';
-import { listCatalogueVariants } from '../server/services/catalogue';
-import { createFromCheckout, get as getOrder, markPaid } from '../server/services/orderService';
+import { get as getOrder } from '../server/services/orderService';
 import type { ShipTo } from '../shared/schemas/shop';
 import type { OrderFulfilment } from '../shared/schemas/fulfilment';
 import { makeTestApp, type TestApp } from './setup/testApp';
+import { payOneUnitOrder } from './setup/paidOrder';
 
 let t: TestApp;
 let server: Server;
@@ -63,48 +63,9 @@ afterAll(async () => {
 
 /** A paid order of one unit of a published variant, through the order service (as the payment webhook does it). */
 async function paidOrder(shipTo: ShipTo = ADDRESS): Promise<string> {
-  const [variant] = await listCatalogueVariants(t.ctx, {});
-  const id = crypto.randomUUID();
-  const unit = variant.priceCents;
-  await createFromCheckout(t.ctx.db, {
-    id,
-    customerToken: randomBytes(32).toString('base64url'),
-    email: 'rosa.finch@example.test',
-    shipTo,
-    quote: {
-      currency: 'EUR',
-      lines: [
-        {
-          sku: variant.sku,
-          productName: variant.family.name,
-          quantity: 1,
-          unitPriceMinor: unit,
-          lineTotalMinor: unit,
-          meshSha256: variant.sha256!,
-          billableKg: 1,
-        },
-      ],
-      subtotalMinor: unit,
-      shippingMinor: 0,
-      vatMinor: 0,
-      vatRatePct: 0,
-      totalMinor: unit,
-      billableKg: 1,
-      shippingZone: 'domestic',
-    },
-    paymentSessionId: `cs_test_${id}`,
-    expiresAt: new Date(Date.now() + 3_600_000),
-    siteOrigin: baseUrl,
-  });
-  expect(
-    await markPaid(t.ctx.db, id, {
-      paymentIntentId: `pi_${id}`,
-      amountMinor: unit,
-      currency: 'EUR',
-      eventId: `evt_${id}`,
-    }),
-  ).toBe('paid');
-  return id;
+  const order = await payOneUnitOrder(t.ctx, { shipTo, email: 'rosa.finch@example.test', siteOrigin: baseUrl });
+  expect(order.outcome).toBe('paid');
+  return order.id;
 }
 
 async function until<T>(read: () => Promise<T | undefined | false>, what: string, limitMs = 45_000): Promise<T> {

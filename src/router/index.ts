@@ -8,8 +8,10 @@ declare module 'vue-router' {
   interface RouteMeta {
     /** Roles allowed to open the route (any one is enough); absent = any signed-in person. */
     roles?: Role[];
-    /** Open without signing in (the sign-in page). */
+    /** Open without signing in (the sign-in page, the shop). */
     public?: true;
+    /** A page of the public shop: plain Vue in its own frame, no session look-up, no Naive UI. */
+    shop?: true;
     /** Page title, shown in the browser tab as "<title> · Nestwright". */
     title?: string;
   }
