@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkTargets, describeTargetCheck, findTargetDrivers } from '../shared/economics/checkTargets';
 import { targetMisses } from '../shared/families/targetBlockers';
+import { wallInsulationFigures } from '../shared/economics/insulationTarget';
 import type { Family } from '../shared/schemas/family';
 import type { Variant } from '../shared/schemas/variant';
 import type { ProductionTargets, TargetFigures } from '../shared/schemas/wallRecipe';
@@ -47,6 +48,34 @@ describe('checkTargets (pure)', () => {
       },
     );
     expect(none).toEqual([]);
+  });
+
+  it('does not count a wall whose infill cells are large enough for air to move', () => {
+    // 10 mm wall, 2 perimeters of 0.68 mm lines, 15 % infill: cells 2 × 0.68 / 0.15 = 9.07 mm; the least infill that
+    // keeps them within 6 mm is 200 × 0.68 / 6 = 22.7 → 23 %
+    // source: Grabowska & Kasperski, Materials 13(19):4400, 2020 — closed air cells above about 6 mm let air move
+    const wall = wallInsulationFigures(10, 2, 0.68, 15, 0.13);
+    expect(wall.wallCellMm).toBeCloseTo(9.067, 3);
+    expect(wall.wallCellInfillPct).toBe(23);
+    const target = { ...TARGETS, maxUnitCostCents: null, maxPrintHours: null, maxMassG: null };
+    const [open] = checkTargets({ unitCostCents: 1, printTimeMin: 1, massG: 1, ...wall }, target);
+    // R reaches 19 mm pine by conduction (0.196 ≥ 0.1727, USDA Wood Handbook Table 4-7 k 0.11) but does not count
+    expect(open!.value).toBeGreaterThan(open!.limit);
+    expect(open!.met).toBe(false);
+    expect(describeTargetCheck(open!, 'EUR')).toBe(
+      'wall insulation R 0.196 m²K/W reaches the R 0.173 m²K/W target, but the infill leaves air cells of about ' +
+        '9.1 mm, above the 6 mm where air starts to move, so the conduction figure does not hold; at least 23 % ' +
+        'infill keeps them smaller',
+    );
+    // at 23 % the cells are 5.9 mm and the check is decided by R alone
+    const closed = wallInsulationFigures(10.5, 2, 0.68, 23, 0.13);
+    expect(closed.wallCellMm).toBeLessThanOrEqual(6);
+    expect(checkTargets({ unitCostCents: 1, printTimeMin: 1, massG: 1, ...closed }, target)[0]).toMatchObject({
+      met: true,
+      note: null,
+    });
+    // a wall of perimeters only has no cells
+    expect(wallInsulationFigures(2.72, 2, 0.68, 15, 0.13).wallCellMm).toBeNull();
   });
 
   it('finds the parameter that moves a figure most by finite differences', async () => {

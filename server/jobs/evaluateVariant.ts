@@ -6,7 +6,7 @@ import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/sc
 import type { CostRates, Material, PrinterProfile, PrintSettings } from '../../shared/schemas/production';
 import type { ProductionTargets } from '../../shared/schemas/wallRecipe';
 import { checkTargets, describeTargetCheck } from '../../shared/economics/checkTargets';
-import { wallResistanceM2KW } from '../../shared/thermal/wallResistance';
+import { wallInsulationFigures } from '../../shared/economics/insulationTarget';
 import type { VariantGeometry } from './variantGeometry';
 
 /** Everything stored for one computed variant. */
@@ -90,7 +90,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
   const birdFitWarnings = birdFit?.warnings ?? [];
   if (context.targets) {
     // The side wall as printed with the family's perimeters and infill (the template's designed thickness).
-    const wallRM2KW = wallResistanceM2KW(
+    const wall = wallInsulationFigures(
       geometry.facts.wallThicknessMm,
       settings.wallLoops,
       printer.lineWidthMm,
@@ -102,7 +102,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
         unitCostCents: production.cost.totalCents,
         printTimeMin: production.printTimeMin,
         massG: production.massG,
-        wallRM2KW,
+        ...wall,
       },
       context.targets,
     );

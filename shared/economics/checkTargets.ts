@@ -1,4 +1,5 @@
 import type { ProductionTargets, TargetCheck, TargetDriver, TargetFigures, TargetKey } from '../schemas/wallRecipe';
+import { CONVECTION_CELL_MM } from '../thermal/wallResistance';
 import { insulationTargetRM2KW } from './insulationTarget';
 
 /** Labels of the four targets, for bars and messages. */
@@ -35,6 +36,7 @@ export function checkTargets(
       overBy,
       overByPct: (overBy / limit) * 100,
       driver: drivers[key] ?? null,
+      note: null,
     });
   };
   upper('unit-cost', figures.unitCostCents, targets.maxUnitCostCents);
@@ -43,15 +45,25 @@ export function checkTargets(
   if (targets.minInsulation && figures.wallRM2KW !== null) {
     const limit = insulationTargetRM2KW(targets.minInsulation);
     const overBy = Math.max(0, limit - figures.wallRM2KW);
+    // Cells where air moves make the conduction figure optimistic, so such a wall does not meet the target.
+    const cellMm = figures.wallCellMm ?? null;
+    const convects = cellMm !== null && cellMm > CONVECTION_CELL_MM + 1e-9;
+    const cells = Number.isFinite(cellMm) ? `air cells of about ${cellMm!.toFixed(1)} mm` : 'an empty core';
+    const remedy =
+      figures.wallCellInfillPct != null ? `; at least ${figures.wallCellInfillPct} % infill keeps them smaller` : '';
     checks.push({
       key: 'insulation',
       label: TARGET_LABELS.insulation,
       value: figures.wallRM2KW,
       limit,
-      met: figures.wallRM2KW >= limit,
+      met: figures.wallRM2KW >= limit && !convects,
       overBy,
       overByPct: (overBy / limit) * 100,
       driver: drivers.insulation ?? null,
+      note: convects
+        ? `the infill leaves ${cells}, above the ${CONVECTION_CELL_MM} mm where air starts to move, so the ` +
+          `conduction figure does not hold${remedy}`
+        : null,
     });
   }
   return checks;
@@ -135,11 +147,15 @@ export function describeTargetCheck(check: TargetCheck, currency: string): strin
   const fmt = (value: number): string => formatTargetValue(check.key, value, currency);
   const head = check.met
     ? `${check.label.toLowerCase()} ${fmt(check.value)} is within the ${fmt(check.limit)} target`
-    : check.key === 'insulation'
-      ? `${check.label.toLowerCase()} R ${fmt(check.value)} is ${fmt(check.overBy)} (${Math.round(check.overByPct)} %) ` +
-        `short of the R ${fmt(check.limit)} target`
-      : `${check.label.toLowerCase()} ${fmt(check.value)} is ${fmt(check.overBy)} (${Math.round(check.overByPct)} %) ` +
-        `over the ${fmt(check.limit)} target`;
+    : check.note && check.overBy === 0
+      ? `${check.label.toLowerCase()} R ${fmt(check.value)} reaches the R ${fmt(check.limit)} target, but ${check.note}`
+      : check.key === 'insulation'
+        ? `${check.label.toLowerCase()} R ${fmt(check.value)} is ${fmt(check.overBy)} (${Math.round(check.overByPct)} %) ` +
+          `short of the R ${fmt(check.limit)} target`
+        : `${check.label.toLowerCase()} ${fmt(check.value)} is ${fmt(check.overBy)} (${Math.round(check.overByPct)} %) ` +
+          `over the ${fmt(check.limit)} target`;
+  // A convection note names its own remedy (more infill), so no driver is added to it.
+  if (check.note && !check.met) return check.overBy > 0 ? `${head}, and ${check.note}` : head;
   if (!check.driver) return head;
   const d = check.driver;
   const verb = d.effectPerStep >= 0 ? 'adds' : 'takes off';

@@ -99,6 +99,11 @@ export const TargetCheckSchema = z.object({
   overByPct: z.number().nonnegative(),
   /** The parameter that moves the figure most (absent when not worked out). */
   driver: TargetDriverSchema.nullable().default(null),
+  /**
+   * Why an insulation figure does not count although it reaches the limit: the infill's air cells are large enough
+   * for air to move, which the conduction model leaves out (null otherwise).
+   */
+  note: z.string().nullable().default(null),
 });
 /** A target check (see {@link TargetCheckSchema}). */
 export type TargetCheck = z.infer<typeof TargetCheckSchema>;
@@ -110,6 +115,13 @@ export const TargetFiguresSchema = z.object({
   massG: z.number(),
   /** Conductive R of the side wall, m²K/W (null when unknown). */
   wallRM2KW: z.number().nullable(),
+  /**
+   * Estimated air-cell size of the wall's infill core, mm (null: no core, the wall is all perimeters, or unknown;
+   * Infinity: a core with no infill, an open gap).
+   */
+  wallCellMm: z.number().nullable().optional(),
+  /** Least infill that keeps the core's air cells within the convection limit, % (null when unknown). */
+  wallCellInfillPct: z.number().nullable().optional(),
 });
 /** Target figures (see {@link TargetFiguresSchema}). */
 export type TargetFigures = z.infer<typeof TargetFiguresSchema>;

@@ -1,6 +1,5 @@
-import { analyzeGeometry } from '../../shared/analysis/analyzeGeometry';
-import { fitParts } from '../../shared/analysis/fitParts';
-import { productionInputFromGeometry } from '../../shared/production/productionInputFromGeometry';
+import { fitPartSizes } from '../../shared/analysis/fitParts';
+import { measureDesign, productionInputOf } from '../../shared/assessment/assessDesign';
 import type { WallSample } from '../../shared/schemas/wallRecipe';
 import { generate } from '../../templates/generate';
 
@@ -10,7 +9,8 @@ const SAMPLE_WALL_RAYS = 50;
 
 /**
  * The design measured at a few wall thicknesses for the wall-recipe optimizer: each thickness is generated with the
- * template and measured in build orientation (volume, areas, printed height of the tallest part, support).
+ * template and measured in build orientation by the one design measure (shared/assessment/assessDesign.ts): volume,
+ * areas, printed height of the tallest part, support.
  * @param templateId - the template
  * @param params - the design's other parameters
  * @param thicknessesMm - wall thicknesses to measure (e.g. the ends and middle of the live range)
@@ -26,13 +26,12 @@ export async function measureWallSamples(
   const samples: WallSample[] = [];
   for (const wallThicknessMm of thicknessesMm) {
     const result = await generate(templateId, { ...params, wallThicknessMm });
-    const { report } = analyzeGeometry(result.mesh, {
-      up: '+z',
-      supportMaxRays: SAMPLE_SUPPORT_RAYS,
-      wallSamples: SAMPLE_WALL_RAYS,
+    const { measure } = measureDesign(result.mesh, {
+      partTriangles: result.partTriangles,
+      geometry: { up: '+z', supportMaxRays: SAMPLE_SUPPORT_RAYS, wallSamples: SAMPLE_WALL_RAYS },
     });
-    const fit = fitParts(result.mesh, result.partTriangles, plateMm);
-    samples.push({ wallThicknessMm, input: productionInputFromGeometry(report, fit.heightMm) });
+    const { heightMm } = fitPartSizes(measure.partSizesMm, plateMm);
+    samples.push({ wallThicknessMm, input: productionInputOf(measure, heightMm) });
   }
   return samples;
 }
