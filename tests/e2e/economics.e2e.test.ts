@@ -1,7 +1,8 @@
 /**
  * Production economics in the design editor, in Chromium: a designer opens the gable box, sees the targets of the
  * published family of that template as bars (the cost bar shows the figures panel's own unit cost; the studio's
- * 15 % infill leaves air cells too large to count), runs the wall-recipe optimizer, and gets the recipe that the same
+ * 15 % infill leaves air cells too large to count), runs the wall-recipe optimizer from the family's insulation
+ * target, and gets the recipe that the same
  * search finds outside the browser on the same template. One click applies it to the design (wall thickness,
  * perimeters, infill: the insulation bar is then met), another to a draft family (its base wall thickness and print
  * recipe change). Screenshots go to /tmp/nestwright-e2e for a person to look at.
@@ -70,7 +71,8 @@ describe('production economics in the editor', () => {
     // starts to move (source: Grabowska & Kasperski, Materials 13(19):4400, 2020): the bar is not met.
     expect(await text(page, 'target-insulation')).toMatch(/air cells of about 9\.1 mm.*at least 23 % infill/);
 
-    // The optimizer, run as a designer would: default target (19 mm pine), the farm's 0.6 mm profile.
+    // The optimizer, run as a designer would: it starts from the family's insulation target (15 mm pine) on the
+    // farm's 0.6 mm profile.
     await page.getByText('Cheapest wall recipe').click();
     await page.getByTestId('wall-recipe-run').click();
     await page.getByTestId('wall-recipe-chosen').waitFor({ timeout: 180_000 });
@@ -94,7 +96,7 @@ describe('production economics in the editor', () => {
     const outside = optimizeWallRecipe({
       samples,
       wallRangeMm: range,
-      target: { kind: 'pine-board', boardMm: 19 },
+      target: { kind: 'pine-board', boardMm: 15 },
       printers: [farm],
       material: DEFAULT_MATERIALS.find((material) => material.id === 'pla')!,
       settings: DEFAULT_SETTINGS,
