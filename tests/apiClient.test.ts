@@ -105,6 +105,11 @@ describe('signInErrorMessage()', () => {
     );
   });
 
+  it('tells a deactivated person so, in the server words', () => {
+    const message = 'This account has been deactivated. Ask your studio admin if you need to sign in again.';
+    expect(signInErrorMessage(new ApiError(403, 'account_deactivated', message))).toBe(message);
+  });
+
   it('names the wait in minutes on 429, from Retry-After or from the message', () => {
     expect(signInErrorMessage(new ApiError(429, 'too_many_attempts', 'Too many', undefined, 900))).toBe(
       'Too many attempts, try again in 15 minutes.',

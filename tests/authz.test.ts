@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../shared/schemas/auth';
 import { demoPersonId } from '../server/db/seedDemo';
 import { eq } from 'drizzle-orm';
-import { families, farmDispatches, farmRuns } from '../server/db/schema';
+import { families, farmDispatches, farmRuns, people, studios } from '../server/db/schema';
 import { listCatalogueVariants } from '../server/services/catalogue';
 import { planRun } from '../shared/planning/planRun';
 import { loadProductionCatalogue } from '../server/services/productionCatalogue';
@@ -59,6 +59,8 @@ interface AuthzRow {
   publicStatus?: number;
   /** Extra request headers (a signed webhook); a function gets the test app and the body it will send. */
   headers?: (t: TestApp, body: unknown) => Record<string, string>;
+  /** The status allowed callers get when it is not 2xx (a probe refused after the role check, e.g. 400). */
+  allowedStatus?: number;
   /** A multipart file upload instead of a JSON body. */
   attach?: { field: string; filename: string; bytes: () => Promise<Buffer> };
 }
@@ -84,6 +86,15 @@ const ROUTES: AuthzRow[] = [
     consumesSession: true,
   },
   { method: 'post', route: '/api/auth/sign-out', allowed: 'public', consumesSession: true },
+  {
+    // A real change would end the demo people's other sessions (the cached agents), so the probe sends a wrong
+    // current password: only a signed-in caller gets as far as that check (the change itself: peopleAccount.test.ts).
+    method: 'post',
+    route: '/api/auth/password',
+    allowed: 'signed-in',
+    body: { currentPassword: 'not-the-demo-password', newPassword: 'a-new-long-password' },
+    allowedStatus: 400,
+  },
   { method: 'get', route: '/api/people', allowed: ['admin'] },
   {
     method: 'post',
@@ -102,6 +113,14 @@ const ROUTES: AuthzRow[] = [
     path: async (t) => `/api/people/${await demoPersonId(t.ctx.db, 'sales')}`,
     allowed: ['admin'],
     body: { name: 'Ada Quill' },
+  },
+  { method: 'post', route: '/api/people/:id/deactivate', path: probePersonPath('deactivate'), allowed: ['admin'] },
+  { method: 'post', route: '/api/people/:id/reactivate', path: probePersonPath('reactivate'), allowed: ['admin'] },
+  {
+    method: 'post',
+    route: '/api/people/:id/reset-password',
+    path: probePersonPath('reset-password'),
+    allowed: ['admin'],
   },
   { method: 'get', route: '/api/presets', allowed: ['designer'] },
   {
@@ -474,8 +493,8 @@ const CALLERS: Array<Role | null> = [...ROLES, null];
 function expected(row: AuthzRow, caller: Role | null): '2xx' | number {
   if (row.allowed === 'public') return row.publicStatus ?? '2xx';
   if (caller === null) return 401;
-  if (row.allowed === 'signed-in') return '2xx';
-  return row.allowed.includes(caller) ? '2xx' : 403;
+  if (row.allowed === 'signed-in') return row.allowedStatus ?? '2xx';
+  return row.allowed.includes(caller) ? (row.allowedStatus ?? '2xx') : 403;
 }
 
 let t: TestApp;
@@ -527,6 +546,23 @@ describe('authorization table', () => {
     expect(notMounted, 'rows in ROUTES that the app does not mount').toEqual([]);
   });
 });
+
+/** `/api/people/<id>/<action>` of a new person made for this call, so no demo person's session is touched. */
+function probePersonPath(action: string): (t: TestApp) => Promise<string> {
+  return async (t) => {
+    const [row] = await t.ctx.db
+      .insert(people)
+      .values({
+        email: `probe-${crypto.randomUUID()}@fernhollow.test`,
+        name: 'Authz Probe',
+        passwordHash: 'not-a-hash',
+        roles: ['sales'],
+        studioId: (await t.ctx.db.select({ id: studios.id }).from(studios).limit(1))[0].id,
+      })
+      .returning();
+    return `/api/people/${row.id}/${action}`;
+  };
+}
 
 /** A path that needs the published sales fixture family (tests/salesFixtures.ts) in the test database. */
 function salesPath(build: (familyId: string) => string): (t: TestApp) => Promise<string> {

@@ -31,6 +31,7 @@ export function createLucia(db: Db) {
       email: attributes.email,
       name: attributes.name,
       roles: attributes.roles,
+      deactivatedAt: attributes.deactivatedAt,
     }),
   });
 }

@@ -17,7 +17,9 @@ export function sessionMiddleware(ctx: AppContext): RequestHandler {
       return;
     }
     const { session, user } = await ctx.lucia.validateSession(sessionId);
-    if (!session) {
+    // Deactivating ends every session; this also turns away one created in the same instant.
+    if (!session || user.deactivatedAt) {
+      if (session) await ctx.lucia.invalidateSession(session.id);
       clearSessionCookie(ctx, req, res);
       next();
       return;

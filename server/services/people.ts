@@ -1,6 +1,6 @@
 /** Named queries about people: the only place that reads or writes the `people` table. */
 import { asc, eq } from 'drizzle-orm';
-import type { Person, PersonCreate, PersonUpdate, Role } from '../../shared/schemas/auth';
+import type { Person, PersonCreate, PersonUpdate, Role, StudioPerson } from '../../shared/schemas/auth';
 import { hashPassword } from '../auth/password';
 import type { Db, Queryable } from '../db/client';
 import { people, studios, type PersonRow } from '../db/schema';
@@ -12,6 +12,15 @@ export function toPerson(row: PersonRow): Person {
   return { id: row.id, email: row.email, name: row.name, roles: [...row.roles] };
 }
 
+/** A stored person as the admin's list shows them: also whether they may sign in. @param row - the stored row */
+export function toStudioPerson(row: PersonRow): StudioPerson {
+  return {
+    ...toPerson(row),
+    active: row.deactivatedAt === null,
+    deactivatedAt: row.deactivatedAt?.toISOString() ?? null,
+  };
+}
+
 /** The person with this e-mail (already normalised), or undefined. @param db - database @param email - e-mail */
 export async function findPersonByEmail(db: Db, email: string): Promise<PersonRow | undefined> {
   const [row] = await db.select().from(people).where(eq(people.email, email));
@@ -19,9 +28,9 @@ export async function findPersonByEmail(db: Db, email: string): Promise<PersonRo
 }
 
 /** Everyone, by name. @param db - database */
-export async function listPeople(db: Db): Promise<Person[]> {
+export async function listPeople(db: Db): Promise<StudioPerson[]> {
   const rows = await db.select().from(people).orderBy(asc(people.name), asc(people.email));
-  return rows.map(toPerson);
+  return rows.map(toStudioPerson);
 }
 
 /** The studio new people join: the first one, created under `defaultName` when there is none. */
@@ -44,7 +53,7 @@ export async function createPerson(
   input: PersonCreate,
   actorId: string | null,
   studioId?: string,
-): Promise<Person> {
+): Promise<StudioPerson> {
   if (await findPersonByEmail(db, input.email))
     throw conflict('email_taken', `The e-mail address ${input.email} is already in use.`);
   const passwordHash = await hashPassword(input.password);
@@ -61,7 +70,7 @@ export async function createPerson(
       subject: `person:${row.id}`,
       details: { email: row.email, roles },
     });
-    return toPerson(row);
+    return toStudioPerson(row);
   });
   return created.catch((err: unknown) => {
     // Two requests for the same e-mail can both pass the check above; the unique index decides.
@@ -85,16 +94,17 @@ function isUniqueViolation(err: unknown): boolean {
  * @param input - validated update body
  * @param actorId - who makes the change
  */
-export async function updatePerson(db: Db, id: string, input: PersonUpdate, actorId: string | null): Promise<Person> {
+export async function updatePerson(
+  db: Db,
+  id: string,
+  input: PersonUpdate,
+  actorId: string | null,
+): Promise<StudioPerson> {
   return db.transaction(async (tx) => {
-    const [before] = await tx.select().from(people).where(eq(people.id, id));
-    if (!before) throw notFound('No person with this id.');
+    const before = await personRow(tx, id);
     const roles = input.roles ? uniqueRoles(input.roles) : before.roles;
-    if (before.roles.includes('admin') && !roles.includes('admin')) {
-      const admins = await tx.select({ roles: people.roles }).from(people);
-      if (admins.filter((row) => row.roles.includes('admin')).length <= 1)
-        throw conflict('last_admin', 'The studio needs at least one admin: give the admin role to someone else first.');
-    }
+    if (before.roles.includes('admin') && !roles.includes('admin') && before.deactivatedAt === null)
+      await requireAnotherActiveAdmin(tx, id, 'give the admin role to someone else first.');
     const [after] = await tx
       .update(people)
       .set({ name: input.name ?? before.name, roles, updatedAt: new Date() })
@@ -116,7 +126,83 @@ export async function updatePerson(db: Db, id: string, input: PersonUpdate, acto
         details: { before: before.name, after: after.name },
       });
     }
-    return toPerson(after);
+    return toStudioPerson(after);
+  });
+}
+
+/** The stored person, or 404. */
+async function personRow(db: Queryable, id: string): Promise<PersonRow> {
+  const [row] = await db.select().from(people).where(eq(people.id, id));
+  if (!row) throw notFound('No person with this id.');
+  return row;
+}
+
+/** 409 `last_admin` unless someone other than `id` is an active admin. */
+async function requireAnotherActiveAdmin(db: Queryable, id: string, advice: string): Promise<void> {
+  const rows = await db
+    .select({ id: people.id, roles: people.roles, deactivatedAt: people.deactivatedAt })
+    .from(people);
+  if (!rows.some((row) => row.id !== id && row.deactivatedAt === null && row.roles.includes('admin')))
+    throw conflict('last_admin', `The studio needs at least one active admin: ${advice}`);
+}
+
+/**
+ * Switches a person off (they can no longer sign in) or on again, and logs it. Ending their sessions is the
+ * caller's part (lucia owns the sessions). 409 `own_account` for one's own account, 409 `last_admin` when it would
+ * leave no active admin.
+ * @param db - database
+ * @param id - the person
+ * @param active - false to deactivate, true to reactivate
+ * @param actorId - the admin acting
+ */
+export async function setPersonActive(db: Db, id: string, active: boolean, actorId: string): Promise<StudioPerson> {
+  if (id === actorId && !active)
+    throw conflict('own_account', 'You cannot deactivate your own account: ask another admin to do it.');
+  return db.transaction(async (tx) => {
+    const before = await personRow(tx, id);
+    if ((before.deactivatedAt === null) === active) return toStudioPerson(before);
+    if (!active && before.roles.includes('admin'))
+      await requireAnotherActiveAdmin(tx, id, 'make someone else an admin first.');
+    const [after] = await tx
+      .update(people)
+      .set({ deactivatedAt: active ? null : new Date(), updatedAt: new Date() })
+      .where(eq(people.id, id))
+      .returning();
+    await recordAudit(tx, {
+      actorId,
+      action: active ? 'person.reactivated' : 'person.deactivated',
+      subject: `person:${id}`,
+    });
+    return toStudioPerson(after);
+  });
+}
+
+/**
+ * Stores a new password for a person and logs who set it (the password itself is never logged). Ending their other
+ * sessions is the caller's part.
+ * @param db - database
+ * @param id - the person
+ * @param password - the new password, already checked
+ * @param actorId - who set it (the person themselves or an admin)
+ * @param action - `person.password_changed` (by themselves) or `person.password_reset` (by an admin)
+ */
+export async function setPassword(
+  db: Db,
+  id: string,
+  password: string,
+  actorId: string,
+  action: 'person.password_changed' | 'person.password_reset',
+): Promise<StudioPerson> {
+  const passwordHash = await hashPassword(password);
+  return db.transaction(async (tx) => {
+    await personRow(tx, id);
+    const [after] = await tx
+      .update(people)
+      .set({ passwordHash, updatedAt: new Date() })
+      .where(eq(people.id, id))
+      .returning();
+    await recordAudit(tx, { actorId, action, subject: `person:${id}` });
+    return toStudioPerson(after);
   });
 }
 

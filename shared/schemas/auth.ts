@@ -30,6 +30,12 @@ export const SignInSchema = z.object({
 /** Body of `POST /api/auth/sign-in`. */
 export type SignIn = z.infer<typeof SignInSchema>;
 
+/** A new password: at least 10 characters, never trimmed (spaces are part of a password). */
+export const NewPasswordSchema = z
+  .string()
+  .min(10, 'The password needs at least 10 characters.')
+  .max(256, 'A password can be at most 256 characters long.');
+
 /** A person as the API shows them (never the password hash). */
 export const PersonSchema = z.object({
   id: z.string(),
@@ -45,7 +51,7 @@ export type Person = z.infer<typeof PersonSchema>;
 export const PersonCreateSchema = PersonSchema.pick({ name: true, roles: true }).extend({
   email: EmailSchema,
   /** Never trimmed: spaces are part of a password. */
-  password: z.string().min(10, 'The password needs at least 10 characters.').max(256),
+  password: NewPasswordSchema,
 });
 /** Body of `POST /api/people` (admin). */
 export type PersonCreate = z.infer<typeof PersonCreateSchema>;
@@ -54,6 +60,34 @@ export type PersonCreate = z.infer<typeof PersonCreateSchema>;
 export const PersonUpdateSchema = PersonSchema.pick({ name: true, roles: true }).partial();
 /** Body of `PATCH /api/people/:id` (admin). */
 export type PersonUpdate = z.infer<typeof PersonUpdateSchema>;
+
+/** A person as the admin's people list shows them: also whether they may sign in. */
+export const StudioPersonSchema = PersonSchema.extend({
+  /** False once an admin deactivated them: they cannot sign in. */
+  active: z.boolean(),
+  /** When they were deactivated (ISO 8601), null while active. */
+  deactivatedAt: z.string().nullable(),
+});
+/** A person in the admin's people list. */
+export type StudioPerson = z.infer<typeof StudioPersonSchema>;
+
+/** Body of `POST /api/auth/password`: the signed-in person changes their own password. */
+export const PasswordChangeSchema = z
+  .object({
+    currentPassword: z.string().min(1, 'Enter your current password.').max(256),
+    newPassword: NewPasswordSchema,
+  })
+  .refine((body) => body.newPassword !== body.currentPassword, {
+    path: ['newPassword'],
+    message: 'Choose a new password that differs from the current one.',
+  });
+/** Body of `POST /api/auth/password`. */
+export type PasswordChange = z.infer<typeof PasswordChangeSchema>;
+
+/** Answer of `POST /api/people/:id/reset-password`: the generated password, shown to the admin once. */
+export const PasswordResetAnswerSchema = z.object({ person: StudioPersonSchema, password: z.string() });
+/** Answer of `POST /api/people/:id/reset-password`. */
+export type PasswordResetAnswer = z.infer<typeof PasswordResetAnswerSchema>;
 
 /** Answer of `GET /api/auth/me` and `POST /api/auth/sign-in`. */
 export const MeSchema = z.object({ person: PersonSchema });

@@ -1,4 +1,4 @@
-import { MeSchema, type Me, type SignIn } from '../../shared/schemas/auth';
+import { MeSchema, type Me, type PasswordChange, type SignIn } from '../../shared/schemas/auth';
 import { api } from './client';
 
 /**
@@ -21,4 +21,12 @@ export async function signOut(): Promise<void> {
  */
 export function fetchMe(): Promise<Me> {
   return api('/auth/me', { schema: MeSchema });
+}
+
+/**
+ * Changes the signed-in person's password; their other sessions end, this one stays.
+ * @param body - the current password and the new one
+ */
+export async function changePassword(body: PasswordChange): Promise<void> {
+  await api('/auth/password', { method: 'POST', body });
 }

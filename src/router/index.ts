@@ -33,6 +33,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['admin'], title: 'People' },
   },
   {
+    path: '/account/password',
+    name: 'account-password',
+    component: () => import('../views/ChangePasswordView.vue'),
+    meta: { title: 'Change password' },
+  },
+  {
     path: '/designs',
     name: 'designs',
     component: () => import('../views/DesignsView.vue'),

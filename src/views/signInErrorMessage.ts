@@ -8,6 +8,7 @@ import { ApiError } from '../api/client';
 export function signInErrorMessage(err: unknown): string {
   if (!(err instanceof ApiError)) return 'Something went wrong. Please try again.';
   if (err.status === 401) return 'E-mail or password is wrong.';
+  if (err.code === 'account_deactivated') return err.message;
   if (err.status === 429) {
     const minutes = retryMinutes(err);
     return minutes

@@ -30,6 +30,8 @@ export const people = pgTable(
     studioId: text('studio_id')
       .notNull()
       .references(() => studios.id),
+    /** Set when an admin switched the person off: they cannot sign in and hold no session. Null while active. */
+    deactivatedAt: timestamp('deactivated_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
