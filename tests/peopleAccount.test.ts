@@ -76,14 +76,12 @@ describe('deactivate and reactivate', () => {
   });
 
   it('the last active admin cannot be deactivated or lose the role', async () => {
-    const second = await admin
-      .post('/api/people')
-      .send({
-        email: 'second-admin@fernhollow.test',
-        name: 'Second Admin',
-        roles: ['admin'],
-        password: 'long-enough-1',
-      });
+    const second = await admin.post('/api/people').send({
+      email: 'second-admin@fernhollow.test',
+      name: 'Second Admin',
+      roles: ['admin'],
+      password: 'long-enough-1',
+    });
     const secondAgent = await t.signIn('second-admin@fernhollow.test', 'long-enough-1');
     const me = await admin.get('/api/auth/me');
     // The demo admin is deactivated by the second one: the second is now the only active admin.
