@@ -28,3 +28,6 @@ declare const crypto: {
   };
   randomUUID(): string;
 };
+
+/** High-resolution time in milliseconds (WHATWG High Resolution Time; Node has it as a global too). */
+declare const performance: { now(): number };

@@ -3,9 +3,10 @@ import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
 import { floorOpening } from './lib/floorOpening';
 import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
+import { BuildContext } from './lib/BuildContext';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline } from './lib/teardrop';
-import { toGeom3 } from './lib/toGeom3';
+import { partMesh } from './lib/partMesh';
 
 const parameters = z
   .object({
@@ -71,13 +72,37 @@ const SLOT_LENGTH_MM = 30;
 const HANGING_HOLE_MM = 5;
 const HOLE_SEGMENTS = 48;
 
+type AFrameParams = z.output<typeof parameters>;
+
+/** Parameters the frame (walls, cavity, slopes) depends on. */
+const FRAME_KEYS = ['floorWidthMm', 'floorDepthMm', 'cavityDepthMm', 'wallThicknessMm', 'roofPitchDeg'] as const;
+/** Parameters the floor opening and its plug depend on. */
+const PLUG_KEYS = [
+  'floorWidthMm',
+  'floorDepthMm',
+  'wallThicknessMm',
+  'cleaningAccess',
+  'printClearanceMm',
+  'drainageHoles',
+] as const;
+/** Parameters the shell depends on: everything but the entry and the perch. */
+const SHELL_KEYS = [
+  ...FRAME_KEYS,
+  ...PLUG_KEYS,
+  'landingDowel',
+  'landingDowelLengthMm',
+  'trimStyle',
+  'ventilationSlots',
+  'hangingHole',
+] as const;
+
 /**
  * A-frame printed floor-down: two steep sloped walls (with short upright walls under them when needed), a flat
  * landing dowel lying on the build plate, and an optional round floor plug. Entry faces −y.
  */
 export const aFrame: Template<typeof parameters> = {
   id: 'a-frame',
-  version: 2,
+  version: 3,
   name: 'A-frame',
   summary: 'Steep A-frame printed floor-down, with a landing dowel that prints with the first layers.',
   parameters,
@@ -89,140 +114,44 @@ export const aFrame: Template<typeof parameters> = {
       },
     };
   },
-  build(p) {
-    const t = p.wallThicknessMm;
-    const W = p.floorWidthMm;
-    const D = p.floorDepthMm;
-    const pitch = (p.roofPitchDeg * Math.PI) / 180;
-    const tan = Math.tan(pitch);
-    const cos = Math.cos(pitch);
-    const floorZ = t;
-    const slopeHeight = (W / 2) * tan;
-    const kneeMm = Math.max(0, p.cavityDepthMm - slopeHeight);
-    const apexZ = floorZ + kneeMm + slopeHeight;
-    const innerZ = (x: number): number => floorZ + kneeMm + (W / 2 - Math.abs(x)) * tan;
-    const outerZ = (x: number): number => innerZ(x) + t / cos;
-    const Wo = W + 2 * t;
-    const frontY = -D / 2 - t;
-    const backY = D / 2 + t;
-    const outerApexZ = outerZ(0);
+  build(p, context = new BuildContext('full')) {
+    const { t, W, D, floorZ, apexZ, Wo, frontY } = aFrameFrame(p);
 
-    const bodyOutline: Outline = [
-      [-Wo / 2, 0],
-      [Wo / 2, 0],
-      [Wo / 2, outerZ(Wo / 2)],
-      [0, outerApexZ],
-      [-Wo / 2, outerZ(Wo / 2)],
-    ];
-    const cavityOutline: Outline = [
-      [-W / 2, floorZ],
-      [W / 2, floorZ],
-      [W / 2, innerZ(W / 2)],
-      [0, apexZ],
-      [-W / 2, innerZ(W / 2)],
-    ];
-    const additions: Solid[] = [];
-    const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
-
+    // The shell (walls, crest, dowel, trim, vents, floor) does not depend on the entry or the perch.
+    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => aFrameShell(q, context));
     // Entry: keep a 3 mm rim between the hole and the sloped walls.
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against aFrameMaxHoleAboveFloorMm, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-    const holeAboveFloorMm = p.holeAboveFloorMm;
-    cuts.push(
-      Solid.prism(teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS), 'y', frontY - 1, -D / 2 + 1).translate(
-        0,
-        0,
-        holeCentreZ,
-      ),
-    );
-
-    // Ventilation slots in a row in the back gable, as many as fit below the slopes.
-    let slots = 0;
-    for (let n = p.ventilationSlots; n > 0; n--) {
-      const rowHalf = (n * (SLOT_WIDTH_MM + 8)) / 2;
-      const topZ = apexZ - (rowHalf + 4) * tan;
-      if (topZ - SLOT_LENGTH_MM >= floorZ + 20) {
-        slots = n;
-        for (let i = 0; i < n; i++) {
-          const x = -rowHalf + (i + 0.5) * (SLOT_WIDTH_MM + 8);
-          const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
-            u + x,
-            v + topZ - SLOT_LENGTH_MM / 2,
-          ]);
-          cuts.push(Solid.prism(slot, 'y', D / 2 - 1, backY + 1));
-        }
-        break;
-      }
-    }
-
-    if (p.hangingHole) {
-      // A crest along the apex carries a wire tunnel front to back.
-      const crestHalf = HANGING_HOLE_MM + 3;
-      const crest: Outline = [
-        [-crestHalf, outerApexZ - crestHalf * tan - 1],
-        [crestHalf, outerApexZ - crestHalf * tan - 1],
-        [crestHalf, outerApexZ + 2],
-        [0, outerApexZ + 2 + crestHalf * tan],
-        [-crestHalf, outerApexZ + 2],
-      ];
-      additions.push(Solid.prism(crest, 'y', frontY, backY));
-      cuts.push(
-        Solid.prism(teardropOutline(HANGING_HOLE_MM, 16), 'y', frontY - 1, backY + 1).translate(0, 0, outerApexZ + 1),
-      );
-    }
-
-    if (p.landingDowel) additions.push(landingDowel(frontY, p.landingDowelLengthMm));
-
+    const hole = Solid.prism(
+      teardropOutline(p.entryHoleDiameterMm, context.pick(HOLE_SEGMENTS, 16)),
+      'y',
+      frontY - 1,
+      -D / 2 + 1,
+    ).translate(0, 0, holeCentreZ);
+    const features: Solid[] = [];
     if (p.perch) {
-      // Tip down: the dowel's V underside prints without support.
+      // Tip down: the dowel's V underside prints without support. It ends 1 mm into the front wall.
       const perchZ = holeCentreZ - r - 18;
-      additions.push(
-        Solid.prism(teardropOutline(10, 24, false, Math.SQRT2), 'y', frontY - 30, frontY + 1).translate(0, 0, perchZ),
+      features.push(
+        Solid.prism(
+          teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
+          'y',
+          frontY - 30,
+          frontY + 1,
+        ).translate(0, 0, perchZ),
       );
     }
-
-    if (p.trimStyle === 'shingles') {
-      additions.push(
-        ...shingleRows({
-          fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
-          toXMm: Wo / 2,
-          outerZ,
-          pitchDeg: p.roofPitchDeg,
-          fromYMm: frontY,
-          toYMm: backY,
-        }),
-      );
-    }
-    if (p.trimStyle === 'boards') {
-      for (let x = -Wo / 2 + 15; x <= Wo / 2 - 15 + 1e-9; x += 15) {
-        const groove: Outline = [
-          [x - 1.2, frontY - 1],
-          [x + 1.2, frontY - 1],
-          [x, frontY + 1.2],
-        ];
-        const top = Math.min(innerZ(Math.abs(x) + 1.2), apexZ) - 1;
-        if (top > 10) cuts.push(Solid.prism(groove, 'z', 2, top));
-      }
-    }
-
+    const body = shell.add(...features).subtract(hole);
     const plugDiameterMm = Math.min(W, D) - 40;
-    const floor = floorOpening({
-      openingDiameterMm: plugDiameterMm,
-      floorThicknessMm: floorZ,
-      floorBottomZMm: 0,
-      cleaningAccess: p.cleaningAccess,
-      clearanceMm: p.printClearanceMm,
-      drainageHoles: p.drainageHoles,
-    });
-    cuts.push(...floor.cuts);
-    const plug = floor.plug?.translate(Wo / 2 + 10 + plugDiameterMm / 2 + 8, 0, 0);
-
-    const body = Solid.prism(bodyOutline, 'y', frontY, backY)
-      .add(...additions)
-      .subtract(...cuts);
-    const parts = [{ name: 'body', geometry: toGeom3(body) }];
-    if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug) });
+    const plug = p.cleaningAccess
+      ? context
+          .reuse('floor-plug', p, PLUG_KEYS, (q) => aFrameFloor(q, context).plug!)
+          .translate(Wo / 2 + 10 + plugDiameterMm / 2 + 8, 0, 0)
+      : undefined;
+    const slots = ventSlotCount(p);
+    const parts = [{ name: 'body', mesh: partMesh(body) }];
+    if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug) });
     return {
       parts,
       facts: {
@@ -230,7 +159,7 @@ export const aFrame: Template<typeof parameters> = {
         floorWidthMm: W,
         floorDepthMm: D,
         cavityDepthMm: apexZ - floorZ,
-        holeAboveFloorMm,
+        holeAboveFloorMm: p.holeAboveFloorMm,
         wallThicknessMm: t,
         hasPerch: p.perch,
         drainageHoleCount: p.drainageHoles,
@@ -273,4 +202,133 @@ function aFrameMaxHoleAboveFloorMm(p: z.output<typeof parameters>): number {
   const kneeMm = Math.max(0, p.cavityDepthMm - slopeHeight);
   const r = p.entryHoleDiameterMm / 2;
   return kneeMm + slopeHeight - (r + 3) / Math.cos(pitch) - r;
+}
+
+/** The A-frame's sizes from the parameters: floor and apex heights, inner and outer slopes, outside width. */
+function aFrameFrame(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number]>) {
+  const t = p.wallThicknessMm;
+  const W = p.floorWidthMm;
+  const D = p.floorDepthMm;
+  const pitch = (p.roofPitchDeg * Math.PI) / 180;
+  const tan = Math.tan(pitch);
+  const cos = Math.cos(pitch);
+  const floorZ = t;
+  const slopeHeight = (W / 2) * tan;
+  const kneeMm = Math.max(0, p.cavityDepthMm - slopeHeight);
+  const apexZ = floorZ + kneeMm + slopeHeight;
+  const innerZ = (x: number): number => floorZ + kneeMm + (W / 2 - Math.abs(x)) * tan;
+  const outerZ = (x: number): number => innerZ(x) + t / cos;
+  const Wo = W + 2 * t;
+  const frontY = -D / 2 - t;
+  const backY = D / 2 + t;
+  return { t, W, D, pitch, tan, floorZ, apexZ, innerZ, outerZ, Wo, frontY, backY, outerApexZ: outerZ(0) };
+}
+
+/** How many ventilation slots fit in a row in the back gable below the slopes (at most the number asked for). */
+function ventSlotCount(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number] | 'ventilationSlots'>): number {
+  const { apexZ, tan, floorZ } = aFrameFrame(p);
+  for (let n = p.ventilationSlots; n > 0; n--) {
+    const rowHalf = (n * (SLOT_WIDTH_MM + 8)) / 2;
+    if (apexZ - (rowHalf + 4) * tan - SLOT_LENGTH_MM >= floorZ + 20) return n;
+  }
+  return 0;
+}
+
+/** The floor's cleaning opening and plug, or its drainage holes. */
+function aFrameFloor(p: Pick<AFrameParams, (typeof PLUG_KEYS)[number]>, context: BuildContext) {
+  return floorOpening({
+    openingDiameterMm: Math.min(p.floorWidthMm, p.floorDepthMm) - 40,
+    floorThicknessMm: p.wallThicknessMm,
+    floorBottomZMm: 0,
+    cleaningAccess: p.cleaningAccess,
+    clearanceMm: p.printClearanceMm,
+    drainageHoles: p.drainageHoles,
+    segments: context.pick(64, 24),
+  });
+}
+
+/** The body less the entry and perch: walls, crest, landing dowel and trim, less cavity, vents and floor opening. */
+function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const { W, D, pitch, tan, floorZ, apexZ, innerZ, outerZ, Wo, frontY, backY, outerApexZ } = aFrameFrame(p);
+  const bodyOutline: Outline = [
+    [-Wo / 2, 0],
+    [Wo / 2, 0],
+    [Wo / 2, outerZ(Wo / 2)],
+    [0, outerApexZ],
+    [-Wo / 2, outerZ(Wo / 2)],
+  ];
+  const cavityOutline: Outline = [
+    [-W / 2, floorZ],
+    [W / 2, floorZ],
+    [W / 2, innerZ(W / 2)],
+    [W / 2, innerZ(W / 2)],
+    [0, apexZ],
+    [-W / 2, innerZ(W / 2)],
+  ];
+  const additions: Solid[] = [];
+  const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+
+  // Ventilation slots in a row in the back gable, as many as fit below the slopes.
+  const slots = ventSlotCount(p);
+  const rowHalf = (slots * (SLOT_WIDTH_MM + 8)) / 2;
+  const topZ = apexZ - (rowHalf + 4) * tan;
+  for (let i = 0; i < slots; i++) {
+    const x = -rowHalf + (i + 0.5) * (SLOT_WIDTH_MM + 8);
+    const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
+      u + x,
+      v + topZ - SLOT_LENGTH_MM / 2,
+    ]);
+    cuts.push(Solid.prism(slot, 'y', D / 2 - 1, backY + 1));
+  }
+
+  if (p.hangingHole) {
+    // A crest along the apex carries a wire tunnel front to back.
+    const crestHalf = HANGING_HOLE_MM + 3;
+    const crest: Outline = [
+      [-crestHalf, outerApexZ - crestHalf * tan - 1],
+      [crestHalf, outerApexZ - crestHalf * tan - 1],
+      [crestHalf, outerApexZ + 2],
+      [0, outerApexZ + 2 + crestHalf * tan],
+      [-crestHalf, outerApexZ + 2],
+    ];
+    additions.push(Solid.prism(crest, 'y', frontY, backY));
+    cuts.push(
+      Solid.prism(teardropOutline(HANGING_HOLE_MM, context.pick(16, 8)), 'y', frontY - 1, backY + 1).translate(
+        0,
+        0,
+        outerApexZ + 1,
+      ),
+    );
+  }
+
+  if (p.landingDowel) additions.push(landingDowel(frontY, p.landingDowelLengthMm));
+
+  if (p.trimStyle === 'shingles') {
+    additions.push(
+      ...shingleRows({
+        fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
+        toXMm: Wo / 2,
+        outerZ,
+        pitchDeg: p.roofPitchDeg,
+        fromYMm: frontY,
+        toYMm: backY,
+        slabs: context.draft,
+      }),
+    );
+  }
+  if (p.trimStyle === 'boards') {
+    for (let x = -Wo / 2 + 15; x <= Wo / 2 - 15 + 1e-9; x += 15) {
+      const groove: Outline = [
+        [x - 1.2, frontY - 1],
+        [x + 1.2, frontY - 1],
+        [x, frontY + 1.2],
+      ];
+      const top = Math.min(innerZ(Math.abs(x) + 1.2), apexZ) - 1;
+      if (top > 10) cuts.push(Solid.prism(groove, 'z', 2, top));
+    }
+  }
+  cuts.push(...aFrameFloor(p, context).cuts);
+  return Solid.prism(bodyOutline, 'y', frontY, backY)
+    .add(...additions)
+    .subtract(...cuts);
 }

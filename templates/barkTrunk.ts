@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import type { Template } from './types';
 import { barkTube } from './lib/barkTube';
+import { BuildContext } from './lib/BuildContext';
 import { commonParameters } from './lib/commonParameters';
 import { floorOpening } from './lib/floorOpening';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
-import { toGeom3 } from './lib/toGeom3';
+import { partMesh } from './lib/partMesh';
 
 const parameters = z
   .object({
@@ -74,13 +75,37 @@ const SLOT_WIDTH_MM = 6;
 const SLOT_LENGTH_MM = 26;
 const SEGMENTS = 96;
 
+type BarkParams = z.output<typeof parameters>;
+
+/** Parameters the chamber cavities depend on. */
+const CHAMBER_KEYS = ['cavityDiameterMm', 'cavityDepthMm', 'storeys', 'wallThicknessMm'] as const;
+/** Parameters the floor opening (and its plug) depend on. */
+const PLUG_KEYS = [
+  'cavityDiameterMm',
+  'wallThicknessMm',
+  'cleaningAccess',
+  'printClearanceMm',
+  'drainageHoles',
+] as const;
+/** Parameters the shell depends on: everything but the entries, their rims and the perch. */
+const SHELL_KEYS = [
+  ...CHAMBER_KEYS,
+  ...PLUG_KEYS,
+  'barkDepthMm',
+  'barkSeed',
+  'mountRadiusMm',
+  'flatBack',
+  'ventilationSlots',
+  'hangingHole',
+] as const;
+
 /**
  * Bark trunk printed upright: a bark-textured cylinder with one or two stacked chambers (each with a 45° pointed
  * ceiling and its own entry in a knot-like rim), a concave or flat back (+y) and an optional floor plug.
  */
 export const barkTrunk: Template<typeof parameters> = {
   id: 'bark-trunk',
-  version: 2,
+  version: 3,
   name: 'Bark trunk',
   summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
   parameters,
@@ -92,106 +117,62 @@ export const barkTrunk: Template<typeof parameters> = {
       },
     };
   },
-  build(p) {
+  build(p, context = new BuildContext('full')) {
     const t = p.wallThicknessMm;
     const Ri = p.cavityDiameterMm / 2;
     // 2 mm of solid beyond the wall, so the back cut always crosses the outside at an angle (a tangent cut leaves
     // slivers) and the furrows never thin the wall.
     const Ro = Ri + t + 2 + p.barkDepthMm;
     const storeyMm = p.cavityDepthMm + Ri + t;
-    const heightMm = t + storeyMm * p.storeys;
     const r = p.entryHoleDiameterMm / 2;
     const frontY = -Ro;
+    const holeSegments = context.pick(48, 16);
 
-    const additions: Solid[] = [];
-    const cuts: Solid[] = [];
-    const holeAboveFloorMm = p.holeAboveFloorMm;
+    // The shell (bark, chambers, vents, floor, back, hanging tab) does not depend on the entries, their rims or the
+    // perch: a slider on those reuses it.
+    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => trunkShell(q, context));
+    const chambers = context.reuse('chambers', p, CHAMBER_KEYS, (q) => chamberCavities(q, context));
+
+    const features: Solid[] = [];
+    const holes: Solid[] = [];
     for (let storey = 0; storey < p.storeys; storey++) {
       const floorZ = t + storey * storeyMm;
-      const ceilingZ = floorZ + p.cavityDepthMm;
-      const chamber: Outline = [
-        [0, floorZ],
-        [Ri, floorZ],
-        [Ri, ceilingZ],
-        [0, ceilingZ + Ri],
-      ];
-      cuts.push(Solid.revolve(chamber, SEGMENTS));
-      // Keep the hole (and its rim) under the pointed ceiling.
       // parseParams has checked the entry against barkMaxHoleAboveFloorMm, so each hole sits exactly where asked.
       const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-      cuts.push(
-        Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', frontY - 12, -Ri + 1).translate(0, 0, holeCentreZ),
+      holes.push(
+        Solid.prism(teardropOutline(p.entryHoleDiameterMm, holeSegments), 'y', frontY - 12, -Ri + 1).translate(
+          0,
+          0,
+          holeCentreZ,
+        ),
       );
       // Under 1 mm the rim would only graze the hole's own outline (zero-volume slivers), so it is left off.
       if (p.knotRimMm >= 1) {
         // Tip-down outline: the rim's underside is a 45° V, so it prints without support.
-        const rim = teardropOutline(p.entryHoleDiameterMm + 2 * p.knotRimMm, 48, false, Math.SQRT2);
-        additions.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));
+        const rim = teardropOutline(p.entryHoleDiameterMm + 2 * p.knotRimMm, holeSegments, false, Math.SQRT2);
+        features.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));
       }
       if (p.perch) {
-        additions.push(
-          Solid.prism(teardropOutline(10, 24, false, Math.SQRT2), 'y', frontY - 30, -Ri / 2).translate(
-            0,
-            0,
-            holeCentreZ - r - p.knotRimMm - 16,
-          ),
+        features.push(
+          Solid.prism(
+            teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
+            'y',
+            frontY - 30,
+            -Ri / 2,
+          ).translate(0, 0, holeCentreZ - r - p.knotRimMm - 16),
         );
       }
-      const slotZ = ceilingZ - SLOT_LENGTH_MM / 2 - 4;
-      for (let i = 0; i < p.ventilationSlots; i++) {
-        const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
-        const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
-        cuts.push(Solid.prism(slot, 'x', Ri * 0.5, Ro + 2), Solid.prism(slot, 'x', -Ro - 2, -Ri * 0.5));
-      }
-      if (storey > 0) {
-        // An upper floor drains forward through weep holes at floor level (vertical holes would open into the
-        // chamber below).
-        const weeps = Math.min(p.drainageHoles, 3);
-        for (let i = 0; i < weeps; i++) {
-          const x = (i - (weeps - 1) / 2) * 16;
-          cuts.push(Solid.prism(teardropOutline(6, 16), 'y', frontY - 12, -Ri + 2).translate(x, 0, floorZ + 3));
-        }
-      }
     }
-
-    if (p.hangingHole) {
-      const tab = Solid.box([28, 8, 26], [-14, Ri + t / 2 - 8, heightMm - 4]);
-      const eye = Solid.prism(teardropOutline(8, 24), 'y', Ri - 10, Ri + t + 4).translate(0, 0, heightMm + 9);
-      additions.push(tab.subtract(eye));
-    }
+    // Rims and perch reach into the chamber; they are trimmed by it before they join the shell.
+    const trimmed = features.length > 0 ? [Solid.union(features).subtract(chambers)] : [];
+    const body = shell.add(...trimmed).subtract(...holes);
 
     const openingMm = p.cavityDiameterMm - 30;
-    const floor = floorOpening({
-      openingDiameterMm: openingMm,
-      floorThicknessMm: t,
-      floorBottomZMm: 0,
-      cleaningAccess: p.cleaningAccess,
-      clearanceMm: p.printClearanceMm,
-      drainageHoles: p.drainageHoles,
-    });
-    cuts.push(...floor.cuts);
-    const plug = floor.plug;
-
-    // The back: a tree of the given radius touching the chamber wall's outside, or a flat cut there.
-    const backY = Ri + t;
-    cuts.push(
-      p.flatBack
-        ? Solid.box([2 * Ro + 20, Ro, heightMm + 40], [-Ro - 10, backY, -10])
-        : Solid.cylinder(heightMm + 40, p.mountRadiusMm, 180).translate(0, backY + p.mountRadiusMm, -10),
-    );
-
-    const trunk = barkTube({
-      radiusMm: Ro,
-      heightMm,
-      barkDepthMm: p.barkDepthMm,
-      seed: p.barkSeed,
-      // 160 × 4 mm rows: the furrows stay crisp at about 40 % fewer triangles than 192 × 3 mm (measured).
-      segments: 160,
-      rowMm: 4,
-    });
-    const body = trunk.add(...additions).subtract(...cuts);
-    const parts = [{ name: 'body', geometry: toGeom3(body) }];
-    if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug.translate(Ro + 10 + openingMm / 2 + 8, 0, 0)) });
+    const plug = p.cleaningAccess
+      ? context.reuse('floor-plug', p, PLUG_KEYS, (q) => bodyFloor(q, context).plug!)
+      : undefined;
+    const parts = [{ name: 'body', mesh: partMesh(body) }];
+    if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug.translate(Ro + 10 + openingMm / 2 + 8, 0, 0)) });
     return {
       parts,
       facts: {
@@ -199,7 +180,7 @@ export const barkTrunk: Template<typeof parameters> = {
         floorWidthMm: p.cavityDiameterMm,
         floorDepthMm: p.cavityDiameterMm,
         cavityDepthMm: p.cavityDepthMm,
-        holeAboveFloorMm,
+        holeAboveFloorMm: p.holeAboveFloorMm,
         wallThicknessMm: t,
         hasPerch: p.perch,
         drainageHoleCount: p.storeys > 1 ? Math.min(p.drainageHoles, 3) : p.drainageHoles,
@@ -219,4 +200,109 @@ function barkMaxHoleAboveFloorMm(p: z.output<typeof parameters>): number {
   const Ri = p.cavityDiameterMm / 2;
   const r = p.entryHoleDiameterMm / 2;
   return p.cavityDepthMm + Ri - (r + 4) - TEARDROP_TIP_RADII * r - 3 - r;
+}
+
+/** The stacked chambers, each a cylinder with a 45° pointed ceiling. */
+function chamberCavities(p: Pick<BarkParams, (typeof CHAMBER_KEYS)[number]>, context: BuildContext): Solid {
+  const t = p.wallThicknessMm;
+  const Ri = p.cavityDiameterMm / 2;
+  const storeyMm = p.cavityDepthMm + Ri + t;
+  const chambers: Solid[] = [];
+  for (let storey = 0; storey < p.storeys; storey++) {
+    const floorZ = t + storey * storeyMm;
+    const ceilingZ = floorZ + p.cavityDepthMm;
+    const chamber: Outline = [
+      [0, floorZ],
+      [Ri, floorZ],
+      [Ri, ceilingZ],
+      [0, ceilingZ + Ri],
+    ];
+    chambers.push(Solid.revolve(chamber, context.pick(SEGMENTS, 32)));
+  }
+  return Solid.union(chambers);
+}
+
+/** The lowest floor's cleaning opening and plug, or its drainage holes. */
+function bodyFloor(p: Pick<BarkParams, (typeof PLUG_KEYS)[number]>, context: BuildContext) {
+  return floorOpening({
+    openingDiameterMm: p.cavityDiameterMm - 30,
+    floorThicknessMm: p.wallThicknessMm,
+    floorBottomZMm: 0,
+    cleaningAccess: p.cleaningAccess,
+    clearanceMm: p.printClearanceMm,
+    drainageHoles: p.drainageHoles,
+    segments: context.pick(64, 24),
+  });
+}
+
+/**
+ * The bark-textured trunk with its hanging tab, less the chambers, ventilation slots, weep holes, floor opening and
+ * the back: everything of the body that does not depend on the entries.
+ */
+function trunkShell(p: Pick<BarkParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const t = p.wallThicknessMm;
+  const Ri = p.cavityDiameterMm / 2;
+  const Ro = Ri + t + 2 + p.barkDepthMm;
+  const storeyMm = p.cavityDepthMm + Ri + t;
+  const heightMm = t + storeyMm * p.storeys;
+  const frontY = -Ro;
+  const additions: Solid[] = [];
+  const cuts: Solid[] = [chamberCavities(p, context)];
+  for (let storey = 0; storey < p.storeys; storey++) {
+    const floorZ = t + storey * storeyMm;
+    const ceilingZ = floorZ + p.cavityDepthMm;
+    const slotZ = ceilingZ - SLOT_LENGTH_MM / 2 - 4;
+    for (let i = 0; i < p.ventilationSlots; i++) {
+      const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
+      const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
+      cuts.push(Solid.prism(slot, 'x', Ri * 0.5, Ro + 2), Solid.prism(slot, 'x', -Ro - 2, -Ri * 0.5));
+    }
+    if (storey > 0) {
+      // An upper floor drains forward through weep holes at floor level (vertical holes would open into the
+      // chamber below).
+      const weeps = Math.min(p.drainageHoles, 3);
+      for (let i = 0; i < weeps; i++) {
+        const x = (i - (weeps - 1) / 2) * 16;
+        cuts.push(
+          Solid.prism(teardropOutline(6, context.pick(16, 8)), 'y', frontY - 12, -Ri + 2).translate(x, 0, floorZ + 3),
+        );
+      }
+    }
+  }
+
+  if (p.hangingHole) {
+    const tab = Solid.box([28, 8, 26], [-14, Ri + t / 2 - 8, heightMm - 4]);
+    const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', Ri - 10, Ri + t + 4).translate(
+      0,
+      0,
+      heightMm + 9,
+    );
+    additions.push(tab.subtract(eye));
+  }
+
+  cuts.push(...bodyFloor(p, context).cuts);
+
+  // The back: a tree of the given radius touching the chamber wall's outside, or a flat cut there.
+  const backY = Ri + t;
+  cuts.push(
+    p.flatBack
+      ? Solid.box([2 * Ro + 20, Ro, heightMm + 40], [-Ro - 10, backY, -10])
+      : Solid.cylinder(heightMm + 40, p.mountRadiusMm, context.pick(180, 48)).translate(
+          0,
+          backY + p.mountRadiusMm,
+          -10,
+        ),
+  );
+
+  const trunk = barkTube({
+    radiusMm: Ro,
+    heightMm,
+    barkDepthMm: p.barkDepthMm,
+    seed: p.barkSeed,
+    // 160 × 4 mm rows: the furrows stay crisp at about 40 % fewer triangles than 192 × 3 mm (measured). The draft
+    // keeps the pattern's shape at a coarser grid.
+    segments: context.pick(160, 64),
+    rowMm: context.pick(4, 10),
+  });
+  return trunk.add(...additions).subtract(...cuts);
 }

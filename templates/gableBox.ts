@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
+import { BuildContext } from './lib/BuildContext';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
-import { toGeom3 } from './lib/toGeom3';
+import { partMesh } from './lib/partMesh';
 import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
 
 const parameters = z
@@ -68,6 +69,24 @@ const DRAIN_DIAMETER_MM = 6;
 const HANGING_HOLE_MM = 6;
 const HOLE_SEGMENTS = 48;
 
+type GableParams = z.output<typeof parameters>;
+
+/** Parameters the floor plug depends on. */
+const PLUG_KEYS = ['floorWidthMm', 'floorDepthMm', 'wallThicknessMm', 'printClearanceMm', 'drainageHoles'] as const;
+/** Parameters the shell depends on: everything but the entry and the perch. */
+const SHELL_KEYS = [
+  'floorWidthMm',
+  'floorDepthMm',
+  'cavityDepthMm',
+  'wallThicknessMm',
+  'roofPitchDeg',
+  'ridgeFlatMm',
+  'roofOverhangMm',
+  'trimStyle',
+  'ventilationSlots',
+  'hangingHole',
+] as const;
+
 /**
  * Gable box printed roof-down: the ridge is cut to a flat strip on the build plate, the roof pitch is at least 45°
  * so the roof needs no support, and the floor is a separate plug (cleaning access) printed beside the box.
@@ -75,7 +94,7 @@ const HOLE_SEGMENTS = 48;
  */
 export const gableBox: Template<typeof parameters> = {
   id: 'gable-box',
-  version: 2,
+  version: 3,
   name: 'Gable box',
   summary: 'Classic pitched-roof box, printed roof-down on a flat ridge strip, with a removable floor plug.',
   parameters,
@@ -88,115 +107,58 @@ export const gableBox: Template<typeof parameters> = {
       },
     };
   },
-  build(p) {
-    const { t, W, D, tan, sin, Wo, o, floorZ, eavesZ, innerRoofZ, outerRoofZ, flatZ, innerApexZ } = gableFrame(p);
+  build(p, context = new BuildContext('full')) {
+    const { t, W, D, Wo, o, floorZ } = gableFrame(p);
     const frontY = -D / 2 - t;
-
-    const wallsOutline: Outline = [
-      [-Wo / 2, 0],
-      [Wo / 2, 0],
-      [Wo / 2, innerRoofZ(Wo / 2) + 0.5],
-      [0, innerRoofZ(0) + 0.5],
-      [-Wo / 2, innerRoofZ(Wo / 2) + 0.5],
-    ];
     const eaveX = Wo / 2 + o;
-    const roofOutline: Outline = [
-      [eaveX, innerRoofZ(eaveX)],
-      [eaveX, outerRoofZ(eaveX)],
-      [p.ridgeFlatMm / 2, flatZ],
-      [-p.ridgeFlatMm / 2, flatZ],
-      [-eaveX, outerRoofZ(eaveX)],
-      [-eaveX, innerRoofZ(eaveX)],
-      [0, innerRoofZ(0)],
-    ];
-    const cavityOutline: Outline = [
-      [-W / 2, -1],
-      [W / 2, -1],
-      [W / 2, eavesZ],
-      ...apexPoints(innerApexZ, innerRoofZ, tan, W),
-      [-W / 2, eavesZ],
-    ];
 
-    const additions: Solid[] = [Solid.prism(roofOutline, 'y', frontY - o, D / 2 + t)];
-    const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
-
+    // The shell (walls, roof, trim, vents, hanging hole) does not depend on the entry or the perch.
+    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => gableShell(q, context));
+    const features: Solid[] = [];
     // Entry hole: the tip of the teardrop points down here because the box is turned over to print.
     const r = p.entryHoleDiameterMm / 2;
     const tipBelow = TEARDROP_TIP_RADII * r;
     // parseParams has checked the entry against gableFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + tipBelow;
-    const holeAboveFloorMm = p.holeAboveFloorMm;
-    cuts.push(
-      Solid.prism(teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS, false), 'y', frontY - 1, -D / 2 + 1).translate(
-        0,
-        0,
-        holeCentreZ,
-      ),
-    );
-
-    if (p.hangingHole) {
-      const z = innerApexZ - HANGING_HOLE_MM * 1.5;
-      cuts.push(
-        Solid.prism(teardropOutline(HANGING_HOLE_MM, 16, false), 'y', D / 2 - 1, D / 2 + t + 1).translate(0, 0, z),
-      );
-    }
-
+    const hole = Solid.prism(
+      teardropOutline(p.entryHoleDiameterMm, context.pick(HOLE_SEGMENTS, 16), false),
+      'y',
+      frontY - 1,
+      -D / 2 + 1,
+    ).translate(0, 0, holeCentreZ);
     if (p.perch) {
-      // Tip up when upright = V underside when printed roof-down, so the dowel needs no support.
+      // Tip up when upright = V underside when printed roof-down, so the dowel needs no support. It ends 1 mm into
+      // the front wall, well short of the cavity.
       const perchZ = holeCentreZ - tipBelow - 18;
-      additions.push(
-        Solid.prism(teardropOutline(10, 24, true, Math.SQRT2), 'y', frontY - 30, frontY + 1).translate(0, 0, perchZ),
+      features.push(
+        Solid.prism(
+          teardropOutline(10, context.pick(24, 12), true, Math.SQRT2),
+          'y',
+          frontY - 30,
+          frontY + 1,
+        ).translate(0, 0, perchZ),
       );
     }
-
-    const slotTopZ = innerRoofZ(Wo / 2) - 6;
-    for (let i = 0; i < p.ventilationSlots; i++) {
-      const y = -D / 2 + ((i + 0.5) * D) / p.ventilationSlots;
-      const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
-        u + y,
-        v + slotTopZ - SLOT_LENGTH_MM / 2,
-      ]);
-      cuts.push(Solid.prism(slot, 'x', -Wo / 2 - 1, Wo / 2 + 1));
-    }
-
-    if (p.trimStyle === 'boards') cuts.push(...boardGrooves(W, D, t, innerRoofZ));
-    if (p.trimStyle === 'shingles') {
-      const firstRowX = p.ridgeFlatMm / 2 + SHINGLE_PROUD_MM / sin + 1;
-      additions.push(
-        ...shingleRows({
-          fromXMm: firstRowX,
-          toXMm: eaveX,
-          outerZ: outerRoofZ,
-          pitchDeg: p.roofPitchDeg,
-          fromYMm: frontY - o,
-          toYMm: D / 2 + t,
-        }),
-      );
-    }
-
-    const box = Solid.prism(wallsOutline, 'y', frontY, D / 2 + t)
-      .add(...additions)
-      .subtract(...cuts)
+    const box = shell
+      .add(...features)
+      .subtract(hole)
       .rotate(0, 180, 0)
       .onPlate();
-
-    const c = p.printClearanceMm;
-    const plug = Solid.box([Wo, D + 2 * t, t], [-Wo / 2, -D / 2 - t, 0])
-      .add(Solid.box([W - 2 * c, D - 2 * c, PLUG_BOSS_MM + 0.01], [-W / 2 + c, -D / 2 + c, t - 0.01]))
-      .subtract(...drainHoles(W, D, p.drainageHoles, t + PLUG_BOSS_MM))
+    const plug = context
+      .reuse('floor-plug', p, PLUG_KEYS, (q) => gablePlug(q, context))
       .translate(eaveX + 10 + Wo / 2, 0, 0);
 
     return {
       parts: [
-        { name: 'body', geometry: toGeom3(box) },
-        { name: 'floor-plug', geometry: toGeom3(plug) },
+        { name: 'body', mesh: partMesh(box) },
+        { name: 'floor-plug', mesh: partMesh(plug) },
       ],
       facts: {
         entryHoleDiameterMm: p.entryHoleDiameterMm,
         floorWidthMm: W,
         floorDepthMm: D,
         cavityDepthMm: p.cavityDepthMm,
-        holeAboveFloorMm,
+        holeAboveFloorMm: p.holeAboveFloorMm,
         wallThicknessMm: t,
         hasPerch: p.perch,
         drainageHoleCount: p.drainageHoles,
@@ -212,7 +174,19 @@ export const gableBox: Template<typeof parameters> = {
  * The gable's inside frame from the parameters: floor and eaves heights, the roof's underside and outside, the
  * flat ridge strip, and the highest the entry's bottom edge may sit (3 mm of wall between the hole and the roof).
  */
-function gableFrame(p: z.output<typeof parameters>) {
+function gableFrame(
+  p: Pick<
+    GableParams,
+    | 'floorWidthMm'
+    | 'floorDepthMm'
+    | 'cavityDepthMm'
+    | 'wallThicknessMm'
+    | 'roofPitchDeg'
+    | 'ridgeFlatMm'
+    | 'roofOverhangMm'
+  > &
+    Partial<Pick<GableParams, 'entryHoleDiameterMm'>>,
+) {
   const t = p.wallThicknessMm;
   const W = p.floorWidthMm;
   const D = p.floorDepthMm;
@@ -230,7 +204,7 @@ function gableFrame(p: z.output<typeof parameters>) {
   const flatZ = outerRoofZ(p.ridgeFlatMm / 2);
   // Keep at least a wall's thickness of roof under the flat ridge strip.
   const innerApexZ = Math.min(innerRoofZ(0), flatZ - t);
-  const r = p.entryHoleDiameterMm / 2;
+  const r = (p.entryHoleDiameterMm ?? 0) / 2;
   const highestCentreZ = Math.min(innerRoofZ(r), innerApexZ) - 3 - r;
   const maxHoleAboveFloorMm = highestCentreZ - TEARDROP_TIP_RADII * r - floorZ;
   return { t, W, D, tan, sin, Wo, o, floorZ, eavesZ, innerRoofZ, outerRoofZ, flatZ, innerApexZ, maxHoleAboveFloorMm };
@@ -283,7 +257,7 @@ function boardGrooves(W: number, D: number, t: number, innerRoofZ: (x: number) =
 }
 
 /** Vertical drainage holes through the floor plug: corners first, then edge midpoints. */
-function drainHoles(W: number, D: number, count: number, heightMm: number): Solid[] {
+function drainHoles(W: number, D: number, count: number, heightMm: number, segments: number): Solid[] {
   const ix = W / 2 - 15;
   const iy = D / 2 - 15;
   const spots: [number, number][] = [
@@ -298,5 +272,91 @@ function drainHoles(W: number, D: number, count: number, heightMm: number): Soli
   ];
   return spots
     .slice(0, count)
-    .map(([x, y]) => Solid.cylinder(heightMm + 2, DRAIN_DIAMETER_MM / 2, 16).translate(x, y, -1));
+    .map(([x, y]) => Solid.cylinder(heightMm + 2, DRAIN_DIAMETER_MM / 2, segments).translate(x, y, -1));
+}
+
+/** The floor plug (flat plate with a boss that fits the open bottom, drainage holes), centred on the origin. */
+function gablePlug(p: Pick<GableParams, (typeof PLUG_KEYS)[number]>, context: BuildContext): Solid {
+  const t = p.wallThicknessMm;
+  const W = p.floorWidthMm;
+  const D = p.floorDepthMm;
+  const Wo = W + 2 * t;
+  const c = p.printClearanceMm;
+  return Solid.box([Wo, D + 2 * t, t], [-Wo / 2, -D / 2 - t, 0])
+    .add(Solid.box([W - 2 * c, D - 2 * c, PLUG_BOSS_MM + 0.01], [-W / 2 + c, -D / 2 + c, t - 0.01]))
+    .subtract(...drainHoles(W, D, p.drainageHoles, t + PLUG_BOSS_MM, context.pick(16, 8)));
+}
+
+/** Walls, roof and trim less the cavity, vents and hanging hole, upright (floor at z = 0, entry side −y). */
+function gableShell(p: Pick<GableParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const { t, W, D, tan, sin, Wo, o, eavesZ, innerRoofZ, outerRoofZ, flatZ, innerApexZ } = gableFrame(p);
+  const frontY = -D / 2 - t;
+  const wallsOutline: Outline = [
+    [-Wo / 2, 0],
+    [Wo / 2, 0],
+    [Wo / 2, innerRoofZ(Wo / 2) + 0.5],
+    [0, innerRoofZ(0) + 0.5],
+    [-Wo / 2, innerRoofZ(Wo / 2) + 0.5],
+  ];
+  const eaveX = Wo / 2 + o;
+  const roofOutline: Outline = [
+    [eaveX, innerRoofZ(eaveX)],
+    [eaveX, outerRoofZ(eaveX)],
+    [p.ridgeFlatMm / 2, flatZ],
+    [-p.ridgeFlatMm / 2, flatZ],
+    [-eaveX, outerRoofZ(eaveX)],
+    [-eaveX, innerRoofZ(eaveX)],
+    [0, innerRoofZ(0)],
+  ];
+  const cavityOutline: Outline = [
+    [-W / 2, -1],
+    [W / 2, -1],
+    [W / 2, eavesZ],
+    ...apexPoints(innerApexZ, innerRoofZ, tan, W),
+    [-W / 2, eavesZ],
+  ];
+
+  const additions: Solid[] = [Solid.prism(roofOutline, 'y', frontY - o, D / 2 + t)];
+  const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+
+  if (p.hangingHole) {
+    const z = innerApexZ - HANGING_HOLE_MM * 1.5;
+    cuts.push(
+      Solid.prism(
+        teardropOutline(HANGING_HOLE_MM, context.pick(16, 8), false),
+        'y',
+        D / 2 - 1,
+        D / 2 + t + 1,
+      ).translate(0, 0, z),
+    );
+  }
+
+  const slotTopZ = innerRoofZ(Wo / 2) - 6;
+  for (let i = 0; i < p.ventilationSlots; i++) {
+    const y = -D / 2 + ((i + 0.5) * D) / p.ventilationSlots;
+    const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
+      u + y,
+      v + slotTopZ - SLOT_LENGTH_MM / 2,
+    ]);
+    cuts.push(Solid.prism(slot, 'x', -Wo / 2 - 1, Wo / 2 + 1));
+  }
+
+  if (p.trimStyle === 'boards') cuts.push(...boardGrooves(W, D, t, innerRoofZ));
+  if (p.trimStyle === 'shingles') {
+    const firstRowX = p.ridgeFlatMm / 2 + SHINGLE_PROUD_MM / sin + 1;
+    additions.push(
+      ...shingleRows({
+        fromXMm: firstRowX,
+        toXMm: eaveX,
+        outerZ: outerRoofZ,
+        pitchDeg: p.roofPitchDeg,
+        fromYMm: frontY - o,
+        toYMm: D / 2 + t,
+        slabs: context.draft,
+      }),
+    );
+  }
+  return Solid.prism(wallsOutline, 'y', frontY, D / 2 + t)
+    .add(...additions)
+    .subtract(...cuts);
 }

@@ -3,9 +3,10 @@ import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
 import { eggCeilingZ, eggProfile } from './lib/eggProfile';
 import { floorOpening } from './lib/floorOpening';
+import { BuildContext } from './lib/BuildContext';
+import { partMesh } from './lib/partMesh';
 import { Solid } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
-import { toGeom3 } from './lib/toGeom3';
 
 const parameters = z
   .object({
@@ -45,6 +46,20 @@ const parameters = z
 
 const SEGMENTS = 64;
 const PROFILE_STEPS = 16;
+
+type PodParams = z.output<typeof parameters>;
+
+/** Parameters the cavity depends on. */
+const CAVITY_KEYS = ['bodyDiameterMm', 'bodyHeightMm', 'floorDiameterMm', 'wallThicknessMm'] as const;
+/** Parameters the shell (and the floor plug) depend on: everything but the entry and the perch. */
+const SHELL_KEYS = [
+  ...CAVITY_KEYS,
+  'ventilationSlots',
+  'drainageHoles',
+  'hangingHole',
+  'cleaningAccess',
+  'printClearanceMm',
+] as const;
 const SLOT_WIDTH_MM = 6;
 const SLOT_LENGTH_MM = 26;
 
@@ -54,7 +69,7 @@ const SLOT_LENGTH_MM = 26;
  */
 export const roundPod: Template<typeof parameters> = {
   id: 'round-pod',
-  version: 2,
+  version: 3,
   name: 'Round pod',
   summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
   parameters,
@@ -66,82 +81,42 @@ export const roundPod: Template<typeof parameters> = {
       },
     };
   },
-  build(p) {
-    const { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner, ceiling } = podFrame(p);
+  build(p, context = new BuildContext('full')) {
+    const { t, a, lower, floorRadius, floorZ, cutZ, upper, ceiling } = podFrame(p);
 
-    const outer = Solid.revolve(
-      eggProfile({
-        radiusMm: a,
-        upperMm: upper,
-        lowerMm: lower,
-        cutZMm: cutZ,
-        steps: PROFILE_STEPS,
-        coneTop: true,
-        coneBottom: true,
-      }),
-      SEGMENTS,
-    );
-    const cavity = Solid.revolve(
-      eggProfile({
-        radiusMm: ai,
-        upperMm: upperInner,
-        lowerMm: bli,
-        cutZMm: floorZ,
-        steps: PROFILE_STEPS,
-        coneTop: true,
-        coneBottom: false,
-      }),
-      SEGMENTS,
-    );
-    const additions: Solid[] = [];
-    const cuts: Solid[] = [cavity];
-
+    // The shell (egg, cavity, vents, floor, hanging eye) does not depend on the entry or the perch.
+    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => podShell(q, context));
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-    cuts.push(
-      Solid.prism(teardropOutline(p.entryHoleDiameterMm, 48), 'y', -a - 2, -ai * 0.3).translate(0, 0, holeCentreZ),
-    );
-
-    const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
-    for (let i = 0; i < p.ventilationSlots; i++) {
-      const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
-      const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
-      cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
-    }
-
-    if (p.hangingHole) {
-      const tab = Solid.box([28, 8, 38], [-14, -4, apexZ - 20]);
-      const eye = Solid.prism(teardropOutline(8, 24), 'y', -5, 5).translate(0, 0, apexZ + 8);
-      additions.push(tab.subtract(eye));
-    }
-
+    const { ai } = podFrame(p);
+    const hole = Solid.prism(
+      teardropOutline(p.entryHoleDiameterMm, context.pick(48, 16)),
+      'y',
+      -a - 2,
+      -ai * 0.3,
+    ).translate(0, 0, holeCentreZ);
+    let body = shell;
     if (p.perch) {
       const perchZ = holeCentreZ - r - 18;
       const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
-      additions.push(
-        Solid.prism(teardropOutline(10, 24, false, Math.SQRT2), 'y', wallY - 30, wallY + t).translate(0, 0, perchZ),
-      );
+      const perch = Solid.prism(
+        teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
+        'y',
+        wallY - 30,
+        wallY + t,
+      ).translate(0, 0, perchZ);
+      // The perch's inner end is trimmed by the cavity before it joins the shell.
+      body = body.add(perch.subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context))));
     }
+    body = body.subtract(hole).translate(0, 0, -cutZ);
 
     const openingMm = floorRadius * 2 - 30;
-    const floor = floorOpening({
-      openingDiameterMm: openingMm,
-      floorThicknessMm: t,
-      floorBottomZMm: cutZ,
-      cleaningAccess: p.cleaningAccess,
-      clearanceMm: p.printClearanceMm,
-      drainageHoles: p.drainageHoles,
-    });
-    cuts.push(...floor.cuts);
-    const plug = floor.plug;
-
-    const body = outer
-      .add(...additions)
-      .subtract(...cuts)
-      .translate(0, 0, -cutZ);
-    const parts = [{ name: 'body', geometry: toGeom3(body) }];
-    if (plug) parts.push({ name: 'floor-plug', geometry: toGeom3(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
+    const plug = p.cleaningAccess
+      ? context.reuse('floor-plug', p, SHELL_KEYS, (q) => podFloor(q, context).plug!)
+      : undefined;
+    const parts = [{ name: 'body', mesh: partMesh(body) }];
+    if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
     return {
       parts,
       facts: {
@@ -166,7 +141,7 @@ export const roundPod: Template<typeof parameters> = {
  * floor and printing-face heights, the cone apex, the egg's upper half-heights, the inside ceiling, and the highest
  * the entry's bottom edge may sit above the floor (the teardrop tip 4 mm under the ceiling).
  */
-function podFrame(p: z.output<typeof parameters>) {
+function podFrame(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]> & Partial<Pick<PodParams, 'entryHoleDiameterMm'>>) {
   const t = p.wallThicknessMm;
   const a = p.bodyDiameterMm / 2;
   const lower = a;
@@ -182,8 +157,71 @@ function podFrame(p: z.output<typeof parameters>) {
   const upper = Math.sqrt(apexZ ** 2 - a ** 2);
   const upperInner = Math.sqrt((apexZ - t * Math.SQRT2) ** 2 - ai ** 2);
   const ceiling = (x: number): number => eggCeilingZ({ radiusMm: ai, upperMm: upperInner }, x);
-  const r = p.entryHoleDiameterMm / 2;
+  const r = (p.entryHoleDiameterMm ?? 0) / 2;
   const highestCentreZ = ceiling(r + 6) - TEARDROP_TIP_RADII * r - 4;
   const maxHoleAboveFloorMm = highestCentreZ - r - floorZ;
   return { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner, ceiling, maxHoleAboveFloorMm };
+}
+
+/** The inside of the egg: an egg of the inner radii, flat on the inside floor, with a 45° pointed ceiling. */
+function podCavity(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: BuildContext): Solid {
+  const { ai, bli, floorZ, upperInner } = podFrame(p);
+  return Solid.revolve(
+    eggProfile({
+      radiusMm: ai,
+      upperMm: upperInner,
+      lowerMm: bli,
+      cutZMm: floorZ,
+      steps: context.pick(PROFILE_STEPS, 6),
+      coneTop: true,
+      coneBottom: false,
+    }),
+    context.pick(SEGMENTS, 24),
+  );
+}
+
+/** The floor's cleaning opening and plug, or its drainage holes (model coordinates, like the shell). */
+function podFloor(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: BuildContext) {
+  const { t, floorRadius, cutZ } = podFrame(p);
+  return floorOpening({
+    openingDiameterMm: floorRadius * 2 - 30,
+    floorThicknessMm: t,
+    floorBottomZMm: cutZ,
+    cleaningAccess: p.cleaningAccess,
+    clearanceMm: p.printClearanceMm,
+    drainageHoles: p.drainageHoles,
+    segments: context.pick(64, 24),
+  });
+}
+
+/** The egg with its hanging eye, less the cavity, ventilation slots and floor opening (model coordinates). */
+function podShell(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const { a, lower, ai, cutZ, apexZ, upper, upperInner, ceiling } = podFrame(p);
+  const outer = Solid.revolve(
+    eggProfile({
+      radiusMm: a,
+      upperMm: upper,
+      lowerMm: lower,
+      cutZMm: cutZ,
+      steps: context.pick(PROFILE_STEPS, 6),
+      coneTop: true,
+      coneBottom: true,
+    }),
+    context.pick(SEGMENTS, 24),
+  );
+  const additions: Solid[] = [];
+  const cuts: Solid[] = [podCavity(p, context)];
+  const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
+  for (let i = 0; i < p.ventilationSlots; i++) {
+    const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
+    const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
+    cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
+  }
+  if (p.hangingHole) {
+    const tab = Solid.box([28, 8, 38], [-14, -4, apexZ - 20]);
+    const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', -5, 5).translate(0, 0, apexZ + 8);
+    additions.push(tab.subtract(eye));
+  }
+  cuts.push(...podFloor(p, context).cuts);
+  return outer.add(...additions).subtract(...cuts);
 }

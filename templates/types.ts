@@ -1,6 +1,7 @@
 import type { z } from 'zod';
-import type Geom3 from '@jscad/modeling/src/geometries/geom3/type';
+import type { IndexedMesh } from '../shared/schemas/mesh';
 import type { NestBoxFacts } from '../shared/schemas/nestbox';
+import type { BuildContext } from './lib/BuildContext';
 
 /** Units a template parameter may carry (millimetres inside; inches only at the edge of the UI). */
 export type ParameterUnit = 'mm' | 'deg' | 'count' | '%' | '';
@@ -20,7 +21,8 @@ export interface ParameterMeta {
 export interface TemplatePart {
   /** Stable part name, e.g. `body` or `floor-plug`. */
   name: string;
-  geometry: Geom3;
+  /** The part's closed, outward-wound triangle mesh, straight from the kernel (see lib/partMesh.ts). */
+  mesh: IndexedMesh;
 }
 
 /** What `build(params)` returns: the printable parts and what the box offers a bird. */
@@ -49,7 +51,11 @@ export interface Template<S extends z.ZodObject = z.ZodObject> {
    * never has to change a value silently.
    */
   limits?(params: z.output<S>): ParameterLimits;
-  build(params: z.output<S>): TemplateOutput;
+  /**
+   * Builds the parts. `context` gives the quality (draft while a slider is held, full otherwise: the default) and
+   * the reuse of sub-solids whose parameters did not change; a reused sub-solid never changes the mesh.
+   */
+  build(params: z.output<S>, context?: BuildContext): TemplateOutput;
 }
 
 /** A range a parameter must keep given the other parameters, with the reason shown to the designer. */

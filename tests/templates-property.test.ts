@@ -1,12 +1,14 @@
 /**
  * Property test: random parameter sets inside the declared ranges always give a closed, 2-manifold mesh with the
- * expected number of bodies (manifold-3d), resting on the build plate. Runs are bounded to keep the suite fast.
+ * expected number of bodies (manifold-3d and Debian's admesh), resting on the build plate, at full quality and as the
+ * draft the editor shows while a slider is held. Runs are bounded to keep the suite fast.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { TEMPLATES, describeParameters, generate } from '../templates/index';
+import { TEMPLATES, describeParameters, generate, generateDraft } from '../templates/index';
 import type { AnyTemplate } from '../templates/types';
-import { manifoldReport } from './templates.meshCheck';
+import type { IndexedMesh } from '../shared/schemas/mesh';
+import { admeshReport, manifoldReport } from './templates.meshCheck';
 
 const RUNS_PER_TEMPLATE = 20;
 
@@ -34,6 +36,23 @@ function paramsArbitrary(template: AnyTemplate): fc.Arbitrary<Record<string, unk
   });
 }
 
+/**
+ * Checks one mesh with both outside tools: manifold-3d (status, bodies) and admesh --exact (no open edges, no facet
+ * to reverse, the same number of parts). source: manifold-3d; Debian's admesh 0.98.
+ */
+async function expectClosedManifold(mesh: IndexedMesh, bodies: number): Promise<number> {
+  const report = await manifoldReport(mesh);
+  expect(report.status).toBe('NoError');
+  expect(report.bodies).toBe(bodies);
+  const admesh = await admeshReport(mesh);
+  expect(admesh.edgesFixed).toBe(0);
+  expect(admesh.backwardsEdges).toBe(0);
+  expect(admesh.facetsReversed).toBe(0);
+  expect(admesh.parts).toBe(bodies);
+  expect(admesh.disconnectedFacets).toBe(0);
+  return report.volumeMm3;
+}
+
 describe.each(TEMPLATES.map((t) => [t.id, t] as const))('template %s over random parameters', (_id, template) => {
   it(`stays closed and manifold with the expected bodies (${RUNS_PER_TEMPLATE} runs)`, async () => {
     await fc.assert(
@@ -42,11 +61,14 @@ describe.each(TEMPLATES.map((t) => [t.id, t] as const))('template %s over random
         const result = await generate(template.id, params);
         // The entry sits where the parameter says: no silent clamping.
         expect(result.facts.holeAboveFloorMm).toBeCloseTo(params.holeAboveFloorMm as number, 6);
-        const report = await manifoldReport(result.mesh);
         const expectedBodies = template.id === 'gable-box' || result.params.cleaningAccess ? 2 : 1;
-        expect(report.status).toBe('NoError');
-        expect(report.bodies).toBe(expectedBodies);
-        expect(Math.abs(report.volumeMm3 - result.volumeMm3) / report.volumeMm3).toBeLessThan(1e-4);
+        const volumeMm3 = await expectClosedManifold(result.mesh, expectedBodies);
+        expect(Math.abs(volumeMm3 - result.volumeMm3) / volumeMm3).toBeLessThan(1e-4);
+        // The draft is a coarser mesh of the same design: closed, manifold, the same bodies, within a few % of volume.
+        const draft = await generateDraft(template.id, params);
+        const draftVolumeMm3 = await expectClosedManifold(draft.mesh, expectedBodies);
+        expect(Math.abs(draftVolumeMm3 - volumeMm3) / volumeMm3).toBeLessThan(0.05);
+        expect(draft.facts).toEqual(result.facts);
         let minZ = Infinity;
         for (let i = 2; i < result.mesh.positions.length; i += 3) minZ = Math.min(minZ, result.mesh.positions[i]);
         expect(minZ).toBeCloseTo(0, 3);

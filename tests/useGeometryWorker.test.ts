@@ -7,7 +7,12 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { effectScope } from 'vue';
 import { useGeometryWorker } from '../src/composables/useGeometryWorker';
-import type { GeometryRequest, GeometryResponse, ProductionChoice } from '../src/workers/geometryProtocol';
+import type {
+  FiguresRequest,
+  GeometryRequest,
+  GeometryResponse,
+  ProductionChoice,
+} from '../src/workers/geometryProtocol';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 
 /** A printer, material and colour as the editor sends them. */
@@ -21,7 +26,7 @@ const CHOICE: ProductionChoice = {
 
 class StandInWorker {
   static created: StandInWorker[] = [];
-  posted: GeometryRequest[] = [];
+  posted: (GeometryRequest & FiguresRequest)[] = [];
   terminated = false;
   onmessage: ((event: MessageEvent<GeometryResponse>) => void) | null = null;
   onerror: ((event: ErrorEvent) => void) | null = null;
@@ -31,7 +36,7 @@ class StandInWorker {
   ) {
     StandInWorker.created.push(this);
   }
-  postMessage(request: GeometryRequest): void {
+  postMessage(request: GeometryRequest & FiguresRequest): void {
     this.posted.push(request);
   }
   terminate(): void {
@@ -56,12 +61,13 @@ const FACTS = {
   chambers: 1,
 };
 
-function meshAnswer(requestId: number, sha256: string): GeometryResponse {
+function meshAnswer(requestId: number, sha256: string | null, quality: 'draft' | 'full' = 'full'): GeometryResponse {
   return {
     requestId,
     ok: true,
     stage: 'mesh',
     templateVersion: 1,
+    quality,
     mesh: { positions: new Float32Array(9), indices: new Uint32Array([0, 1, 2]) },
     facts: FACTS,
     sha256,
@@ -198,5 +204,48 @@ describe('useGeometryWorker', () => {
     expect(StandInWorker.created).toHaveLength(2);
     expect(StandInWorker.created[1].posted).toHaveLength(1);
     scope.stop();
+  });
+
+  it('shows a draft without figures, then sends the full mesh to the figures worker, which answers its figures', () => {
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('gable-box', {}, CHOICE);
+    const worker = StandInWorker.created[0];
+    worker.answer(meshAnswer(worker.posted[0].requestId, 'f'.repeat(64)));
+    const figuresWorker = StandInWorker.created[1];
+    expect(String(figuresWorker.url)).toContain('figures.worker');
+    expect(figuresWorker.posted).toHaveLength(1);
+    figuresWorker.answer(figuresAnswer(worker.posted[0].requestId, 100));
+    expect(geometry.result.value?.figuresCurrent).toBe(true);
+
+    // A slider is held: the draft shows with no hash, nothing goes to the figures worker, the old figures stay.
+    const draftId = geometry.request(
+      'gable-box',
+      { entryHoleDiameterMm: 33 },
+      CHOICE,
+      undefined,
+      'entryHoleDiameterMm',
+      'draft',
+    );
+    expect(worker.posted[1].quality).toBe('draft');
+    worker.answer(meshAnswer(draftId, null, 'draft'));
+    expect(geometry.result.value?.quality).toBe('draft');
+    expect(geometry.result.value?.sha256).toBeNull();
+    expect(geometry.result.value?.figures?.volumeMm3).toBe(100);
+    expect(geometry.result.value?.figuresCurrent).toBe(false);
+    expect(figuresWorker.posted).toHaveLength(1);
+    expect(geometry.busy.value).toBe(false);
+
+    // Release: the full build replaces the draft and its figures follow.
+    const fullId = geometry.request('gable-box', { entryHoleDiameterMm: 33 }, CHOICE, undefined, 'entryHoleDiameterMm');
+    worker.answer(meshAnswer(fullId, 'a'.repeat(64)));
+    expect(geometry.result.value?.quality).toBe('full');
+    expect(figuresWorker.posted).toHaveLength(2);
+    expect(figuresWorker.posted[1].requestId).toBe(fullId);
+    figuresWorker.answer(figuresAnswer(fullId, 120));
+    expect(geometry.result.value?.figures?.volumeMm3).toBe(120);
+    expect(geometry.busy.value).toBe(false);
+    scope.stop();
+    expect(figuresWorker.terminated).toBe(true);
   });
 });

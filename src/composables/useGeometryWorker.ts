@@ -3,7 +3,14 @@ import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
 import type { Region } from '../../shared/schemas/birdfit';
 import type { LiveLimits } from '../../templates/lib/liveLimits';
-import type { DesignFigures, GeometryRequest, GeometryResponse, ProductionChoice } from '../workers/geometryProtocol';
+import type { BuildQuality } from '../../templates/lib/BuildContext';
+import type {
+  DesignFigures,
+  FiguresRequest,
+  GeometryRequest,
+  GeometryResponse,
+  ProductionChoice,
+} from '../workers/geometryProtocol';
 
 /** Longest the worker may stay silent on a request before it is restarted and the design shows an error. */
 const BUILD_TIME_LIMIT_MS = 30_000;
@@ -12,10 +19,12 @@ const BUILD_TIME_LIMIT_MS = 30_000;
 export interface GeometryResult {
   requestId: number;
   templateVersion: number;
+  /** `draft` while a slider is held (coarser, no hash, figures held back); `full` otherwise. */
+  quality: BuildQuality;
   mesh: IndexedMesh;
   facts: NestBoxFacts;
-  /** sha256 of the mesh content, hex. */
-  sha256: string;
+  /** sha256 of the mesh content, hex; null for a draft (a hash is only ever of the full mesh). */
+  sha256: string | null;
   /** Part names in mesh order ("body", "floor-plug"). */
   partNames: string[];
   /** Triangles of each part: the mesh holds the parts one after another. */
@@ -31,8 +40,9 @@ export interface GeometryResult {
 
 /**
  * Runs template builds in a Web Worker so the page never freezes. At most one request waits for its mesh at a time;
- * newer requests replace queued ones (latest request wins) and answers to older requests are dropped. The mesh
- * arrives first and the figures follow, so the preview updates before the analysis is done.
+ * newer requests replace queued ones (latest request wins) and answers to older requests are dropped. A full mesh
+ * shows at once and goes on to a second worker for its figures, so an analysis never delays the next build; a draft
+ * (slider held) gets no figures: the previous figures stay, marked as not current, until the full build.
  * @returns the latest result, busy flag, error text and field, and `request(templateId, params, production, region)`
  */
 export function useGeometryWorker() {
@@ -46,6 +56,9 @@ export function useGeometryWorker() {
   const limits = shallowRef<LiveLimits | null>(null);
 
   let worker: Worker | null = null;
+  let figuresWorker: Worker | null = null;
+  /** What each request was for, kept until its figures are asked for (full builds only). */
+  const pending = new Map<number, { production: ProductionChoice; region?: Region }>();
   let nextId = 1;
   let latestId = 0;
   /** The request sent whose mesh has not arrived yet. */
@@ -70,11 +83,35 @@ export function useGeometryWorker() {
     timer = null;
   }
 
+  function startFigures(): Worker {
+    const created = new Worker(new URL('../workers/figures.worker.ts', import.meta.url), { type: 'module' });
+    created.onmessage = (event: MessageEvent<GeometryResponse>) => settle(event.data);
+    created.onerror = (event) => {
+      event.preventDefault();
+      figuresWorker?.terminate();
+      figuresWorker = null;
+      fail(`The figures worker stopped: ${event.message || 'unknown error'}`);
+    };
+    return created;
+  }
+
   function restart(): void {
     worker?.terminate();
     worker = null;
+    figuresWorker?.terminate();
+    figuresWorker = null;
     awaitingMesh = null;
     stopTimer();
+  }
+
+  /** Sends a full mesh to the figures worker (a copy: the page keeps its own for the viewer and the exports). */
+  function askFigures(requestId: number, mesh: IndexedMesh, facts: NestBoxFacts, partTriangles: number[]): void {
+    const context = pending.get(requestId);
+    if (!context) return;
+    const copy = { positions: mesh.positions.slice(), indices: mesh.indices.slice() };
+    const message: FiguresRequest = { requestId, mesh: copy, facts, partTriangles, ...context };
+    figuresWorker ??= startFigures();
+    figuresWorker.postMessage(message, [copy.positions.buffer, copy.indices.buffer]);
   }
 
   function fail(message: string, field: string | null = null): void {
@@ -119,6 +156,7 @@ export function useGeometryWorker() {
       result.value = {
         requestId: response.requestId,
         templateVersion: response.templateVersion,
+        quality: response.quality,
         mesh: response.mesh,
         facts: response.facts,
         sha256: response.sha256,
@@ -131,6 +169,10 @@ export function useGeometryWorker() {
       };
       error.value = null;
       errorField.value = null;
+      if (response.quality === 'full')
+        askFigures(response.requestId, response.mesh, response.facts, response.partTriangles);
+      // A draft gets no figures: nothing more is owed for it.
+      else busy.value = queued !== null;
     } else if (response.stage === 'figures' && latest && result.value?.requestId === response.requestId) {
       result.value = {
         ...result.value,
@@ -141,6 +183,8 @@ export function useGeometryWorker() {
       };
       busy.value = queued !== null;
     }
+    if (response.ok && (response.stage === 'figures' || response.stage === 'skipped'))
+      pending.delete(response.requestId);
     armTimer();
     pump();
   }
@@ -152,6 +196,8 @@ export function useGeometryWorker() {
    * @param production - printer, material, colour, settings and rates the figures are for
    * @param region - bird-fit region, both when omitted
    * @param moved - the parameter the person just changed, so a refusal it causes names it
+   * @param quality - `draft` while a slider is held, `full` otherwise
+   * @returns the request's id (the page matches its timing marks to it)
    */
   function request(
     templateId: string,
@@ -159,8 +205,10 @@ export function useGeometryWorker() {
     production: ProductionChoice,
     region?: Region,
     moved?: string,
-  ): void {
+    quality: BuildQuality = 'full',
+  ): number {
     latestId = nextId++;
+    for (const id of pending.keys()) if (id < latestId - 8) pending.delete(id);
     // Plain copies: reactive proxies cannot be cloned into the worker.
     queued = {
       requestId: latestId,
@@ -169,14 +217,18 @@ export function useGeometryWorker() {
       production: JSON.parse(JSON.stringify(production)) as ProductionChoice,
       region,
       moved,
+      quality,
     };
+    if (quality === 'full') pending.set(latestId, { production: queued.production, region });
     busy.value = true;
     pump();
+    return latestId;
   }
 
   onScopeDispose(() => {
     restart();
     queued = null;
+    pending.clear();
   });
 
   return { result, busy, error, errorField, limits, request };

@@ -36,6 +36,10 @@ export function useMeshExport() {
     presetName: string | null,
     production: ProductionChoice,
   ): void {
+    // Exports are always of the full-quality mesh; a draft (slider held) is only a preview.
+    if (result.quality !== 'full' || !result.sha256)
+      throw new Error('the model on screen is a draft preview; release the slider for the full-quality model.');
+    const sha256 = result.sha256;
     const bytes =
       format === 'stl'
         ? writeStl(result.mesh)
@@ -44,7 +48,7 @@ export function useMeshExport() {
             plateChoice(production),
           );
     const blob = new Blob([bytes as Uint8Array<ArrayBuffer>], { type: MIME[format] });
-    downloadBlob(blob, exportFileName(templateId, presetName, result.sha256, format));
+    downloadBlob(blob, exportFileName(templateId, presetName, sha256, format));
   }
 
   /**

@@ -15,12 +15,12 @@ const PREVIEW_WALL_SAMPLES = 1_500;
  * per-triangle overhang mask for the viewer, from the one design assessment (shared/assessment/assessDesign.ts).
  * The mesh is already in build orientation (+z up); engines that are not available are listed in `unavailable`
  * rather than faked.
- * @param result - the generated design (mesh in build orientation, facts)
+ * @param result - the generated design (full-quality mesh in build orientation, its parts' triangles, facts)
  * @param choice - printer, material, colour, print settings and cost rates
  * @param region - bird-fit region, both when omitted
  */
 export function computeDesignFigures(
-  result: GenerateResult,
+  result: Pick<GenerateResult, 'mesh' | 'partTriangles' | 'facts'>,
   choice: ProductionChoice,
   region?: Region,
 ): { figures: DesignFigures; overhangMask: Uint8Array | null } {

@@ -11,6 +11,7 @@ import type {
 } from '../../shared/schemas/production';
 import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { LiveLimits } from '../../templates/lib/liveLimits';
+import type { BuildQuality } from '../../templates/lib/BuildContext';
 
 /** What the design is to be made with: the chosen printer, material and colour, and the settings and rates. */
 export interface ProductionChoice {
@@ -35,6 +36,21 @@ export interface GeometryRequest {
   region?: Region;
   /** The parameter the person just changed: a refusal it causes names it (see parseParams). */
   moved?: string;
+  /** `draft` while a slider is held (coarser, no hash, no figures); `full` (the default) otherwise. */
+  quality?: BuildQuality;
+}
+
+/**
+ * A request to the figures worker: analyse one full-quality mesh. It only ever analyses the newest request it has
+ * (older ones are answered `skipped`), and it runs beside the geometry worker, so it never delays the next build.
+ */
+export interface FiguresRequest {
+  requestId: number;
+  mesh: IndexedMesh;
+  facts: NestBoxFacts;
+  partTriangles: number[];
+  production: ProductionChoice;
+  region?: Region;
 }
 
 /** The key figures beside the model; a figure is null when its engine is not available. */
@@ -61,9 +77,9 @@ export interface DesignFigures {
 }
 
 /**
- * The worker answers each request in two steps so the preview appears before the figures are computed:
- * `mesh` (built, hashed) then `figures` (analysis), or `skipped` when a newer request arrived before the analysis
- * began, or an error (`ok: false`) at either step.
+ * The geometry worker answers each request with `limits` and then `mesh` (built, hashed when full) or an error; the
+ * figures worker answers a full mesh with `figures` (analysis), or `skipped` when a newer mesh arrived before the
+ * analysis began, or an error (`ok: false`).
  */
 export type GeometryResponse =
   | {
@@ -71,10 +87,12 @@ export type GeometryResponse =
       ok: true;
       stage: 'mesh';
       templateVersion: number;
+      /** `draft` while a slider is held: no hash, no figures; the full build replaces it on release. */
+      quality: BuildQuality;
       mesh: IndexedMesh;
       facts: NestBoxFacts;
-      /** sha256 of the exported mesh content, hex. */
-      sha256: string;
+      /** sha256 of the exported mesh content, hex; null for a draft (a hash is only ever of the full mesh). */
+      sha256: string | null;
       /** Part names in mesh order ("body", "floor-plug"). */
       partNames: string[];
       /** Triangles of each part: the mesh holds the parts one after another. */

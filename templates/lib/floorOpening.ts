@@ -15,6 +15,8 @@ export interface FloorOpeningOptions {
   clearanceMm: number;
   /** Vertical 6 mm drainage holes on a ring (in the plug, or in the floor when there is no plug). */
   drainageHoles: number;
+  /** Segments round the opening and the plug (64 unless a draft asks for fewer). */
+  segments?: number;
 }
 
 /** The cuts a floor needs and the plug that fills its opening, if any. */
@@ -32,14 +34,16 @@ export interface FloorOpening {
  */
 export function floorOpening(options: FloorOpeningOptions): FloorOpening {
   const { openingDiameterMm, floorThicknessMm, floorBottomZMm, drainageHoles } = options;
+  const segments = options.segments ?? 64;
   if (options.cleaningAccess) {
     return {
-      cuts: [Solid.cylinder(floorThicknessMm + 2, openingDiameterMm / 2, 64).translate(0, 0, floorBottomZMm - 1)],
+      cuts: [Solid.cylinder(floorThicknessMm + 2, openingDiameterMm / 2, segments).translate(0, 0, floorBottomZMm - 1)],
       plug: floorPlug({
         openingDiameterMm,
         seatThicknessMm: floorThicknessMm,
         clearanceMm: options.clearanceMm,
         drainageHoles,
+        segments,
       }),
     };
   }

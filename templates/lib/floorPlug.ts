@@ -10,6 +10,8 @@ export interface FloorPlugOptions {
   clearanceMm: number;
   /** Vertical 6 mm drainage holes on a ring. */
   drainageHoles: number;
+  /** Segments round the flange and the boss (64 unless a draft asks for fewer). */
+  segments?: number;
 }
 
 /** Flange width beyond the opening, per side, and its thickness. */
@@ -22,11 +24,12 @@ const FLANGE_THICKNESS_MM = 3;
  * @param options - opening, seat and clearance sizes
  */
 export function floorPlug(options: FloorPlugOptions): Solid {
-  const flange = Solid.cylinder(FLANGE_THICKNESS_MM, options.openingDiameterMm / 2 + FLANGE_MM, 64);
+  const segments = options.segments ?? 64;
+  const flange = Solid.cylinder(FLANGE_THICKNESS_MM, options.openingDiameterMm / 2 + FLANGE_MM, segments);
   const boss = Solid.cylinder(
     options.seatThicknessMm + 0.01,
     options.openingDiameterMm / 2 - options.clearanceMm,
-    64,
+    segments,
   ).translate(0, 0, FLANGE_THICKNESS_MM - 0.01);
   const height = FLANGE_THICKNESS_MM + options.seatThicknessMm;
   const ring = options.openingDiameterMm / 2 - 12;

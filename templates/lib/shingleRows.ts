@@ -16,6 +16,8 @@ export interface ShingleRowsOptions {
   pitchDeg: number;
   fromYMm: number;
   toYMm: number;
+  /** Draft: one plain slab per roof plane instead of separate rows (same outside, far fewer faces). */
+  slabs?: boolean;
 }
 
 /**
@@ -29,7 +31,7 @@ export function shingleRows(options: ShingleRowsOptions): Solid[] {
   const rows: Solid[] = [];
   let x0 = options.fromXMm;
   while (x0 + 4 < options.toXMm) {
-    const x1 = Math.min(x0 + ROW_MM, options.toXMm);
+    const x1 = options.slabs ? options.toXMm : Math.min(x0 + ROW_MM, options.toXMm);
     const plate: Outline = [
       [x0, options.outerZ(x0) - 0.3],
       [x1, options.outerZ(x1) - 0.3],

@@ -42,6 +42,13 @@ export function overhangRgb(
   return [0, 1, 2].map((k) => mild[k] + (steep[k] - mild[k]) * t) as [number, number, number];
 }
 
+/** Per-vertex arrays of a flat-shaded, non-indexed geometry (nine floats per triangle each). */
+interface FlatArrays {
+  positions: Float32Array;
+  normals: Float32Array;
+  colors: Float32Array;
+}
+
 /**
  * Builds a flat-shaded, non-indexed BufferGeometry from the neutral mesh, one colour per triangle: the filament
  * colour, and overhang faces tinted by steepness ({@link overhangRgb}). Flat shading keeps the facets honest.
@@ -54,14 +61,61 @@ export function meshToBufferGeometry(
   overhangMask?: Uint8Array | null,
   options: MeshColourOptions = {},
 ): BufferGeometry {
+  const size = mesh.indices.length * 3;
+  const arrays = { positions: new Float32Array(size), normals: new Float32Array(size), colors: new Float32Array(size) };
+  writeFlatShaded(mesh, overhangMask, options, arrays);
+  const geometry = new BufferGeometry();
+  geometry.setAttribute('position', new BufferAttribute(arrays.positions, 3));
+  geometry.setAttribute('normal', new BufferAttribute(arrays.normals, 3));
+  geometry.setAttribute('color', new BufferAttribute(arrays.colors, 3));
+  geometry.computeBoundingBox();
+  geometry.computeBoundingSphere();
+  return geometry;
+}
+
+/**
+ * Rewrites a geometry made by {@link meshToBufferGeometry} for a new mesh with the same number of triangles, in
+ * place (the GPU buffers are updated, not reallocated), as while a slider moves a hole.
+ * @param geometry - the geometry on screen
+ * @param mesh - the new mesh
+ * @param overhangMask - as for {@link meshToBufferGeometry}
+ * @param options - as for {@link meshToBufferGeometry}
+ * @returns false (and nothing changed) when the triangle counts differ: build a new geometry then
+ */
+export function updateBufferGeometry(
+  geometry: BufferGeometry,
+  mesh: IndexedMesh,
+  overhangMask?: Uint8Array | null,
+  options: MeshColourOptions = {},
+): boolean {
+  const position = geometry.getAttribute('position');
+  const normal = geometry.getAttribute('normal');
+  const color = geometry.getAttribute('color');
+  if (!position || !normal || !color || position.array.length !== mesh.indices.length * 3) return false;
+  writeFlatShaded(mesh, overhangMask, options, {
+    positions: position.array as Float32Array,
+    normals: normal.array as Float32Array,
+    colors: color.array as Float32Array,
+  });
+  position.needsUpdate = true;
+  normal.needsUpdate = true;
+  color.needsUpdate = true;
+  geometry.computeBoundingBox();
+  geometry.computeBoundingSphere();
+  return true;
+}
+
+function writeFlatShaded(
+  mesh: IndexedMesh,
+  overhangMask: Uint8Array | null | undefined,
+  options: MeshColourOptions,
+  { positions, normals, colors }: FlatArrays,
+): void {
   const surface = options.surfaceHex ? linearRgb(options.surfaceHex) : SURFACE_RGB;
   const mild = linearRgb(OVERHANG_MILD_HEX);
   const steep = linearRgb(OVERHANG_STEEP_HEX);
   const thresholdDeg = options.overhangDeg ?? 45;
   const triangleCount = mesh.indices.length / 3;
-  const positions = new Float32Array(triangleCount * 9);
-  const normals = new Float32Array(triangleCount * 9);
-  const colors = new Float32Array(triangleCount * 9);
   const useMask = overhangMask != null && overhangMask.length === triangleCount;
   for (let t = 0; t < triangleCount; t++) {
     const ia = mesh.indices[t * 3] * 3;
@@ -109,11 +163,4 @@ export function meshToBufferGeometry(
       colors[o + k * 3 + 2] = rgb[2];
     }
   }
-  const geometry = new BufferGeometry();
-  geometry.setAttribute('position', new BufferAttribute(positions, 3));
-  geometry.setAttribute('normal', new BufferAttribute(normals, 3));
-  geometry.setAttribute('color', new BufferAttribute(colors, 3));
-  geometry.computeBoundingBox();
-  geometry.computeBoundingSphere();
-  return geometry;
 }
