@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 /**
  * The geometry worker: builds a template (the same generate() the server export uses, or generateDraft() while a
- * slider is held) and posts the mesh. Requests are handled one at a time in arrival order. Sub-solids whose
+ * slider is held) and posts the mesh, then (full builds only) each parameter's live range. Requests are handled one at a time in arrival order. Sub-solids whose
  * parameters did not change are reused from a small cache (a reused sub-solid gives the same mesh bytes). The
  * figures are computed by the figures worker, so an analysis never delays the next build. Meshes travel as
  * transferable typed arrays (moved, not copied).
@@ -37,8 +37,6 @@ function fail(requestId: number, err: unknown): void {
 async function handle(request: GeometryRequest): Promise<void> {
   const { requestId } = request;
   const started = performance.now();
-  const template = findTemplate(request.templateId);
-  if (template) post({ requestId, ok: true, stage: 'limits', limits: liveLimits(template, request.params) });
   const options = { moved: request.moved, cache };
   try {
     const result =
@@ -64,6 +62,12 @@ async function handle(request: GeometryRequest): Promise<void> {
     );
   } catch (err) {
     fail(requestId, err);
+  }
+  // Live ranges after the mesh, and only for full builds: while a slider is held its own range does not change
+  // (it depends on the other values), and the others' follow on release.
+  const template = findTemplate(request.templateId);
+  if (template && request.quality !== 'draft') {
+    post({ requestId, ok: true, stage: 'limits', limits: liveLimits(template, request.params) });
   }
 }
 

@@ -210,7 +210,9 @@ export async function ensureClientBuilt(): Promise<string> {
       rmSync(staging, { recursive: true, force: true });
       throw err;
     } finally {
-      process.env.NODE_ENV = nodeEnv;
+      // Assigning undefined would store the string "undefined" (and the server refuses to start with it).
+      if (nodeEnv === undefined) delete process.env.NODE_ENV;
+      else process.env.NODE_ENV = nodeEnv;
     }
     renameSync(staging, dir); // appears whole or not at all
     pruneOldBuilds(dir);
