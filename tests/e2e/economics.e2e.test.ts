@@ -106,6 +106,11 @@ describe('production economics in the editor', () => {
       maxCellMm: CONVECTION_CELL_MM,
     });
     expect(chosen).toEqual(outside.best!.recipe);
+    // The chosen recipe is also held against the family's own cost, time and mass targets (34 EUR, 10 h, 850 g).
+    const best = outside.best!;
+    const over = [best.unitCostCents > 3400, best.printTimeMin > 600, best.massG > 850];
+    const misses = over.some(Boolean) ? await text(page, 'wall-recipe-misses') : '';
+    expect([/unit cost/.test(misses), /print time/.test(misses), /mass/.test(misses)]).toEqual(over);
 
     // One click: the design takes the wall thickness, perimeters and infill; the insulation bar is met.
     await page.getByTestId('wall-recipe-apply').click();
