@@ -1,4 +1,5 @@
 /** Builds the Express app (no listening): the API under /api and, when built, the client with an SPA fallback. */
+import compression from 'compression';
 import express, { type Express, type RequestHandler } from 'express';
 import { sessionMiddleware } from './auth/sessionMiddleware';
 import type { AppContext } from './context';
@@ -47,6 +48,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   const app = express();
   app.disable('x-powered-by');
   if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
+  // gzip/brotli for JSON, pages and scripts over 1 KB; event streams stay unbuffered; cached answers come pre-encoded.
+  app.use(compression({ filter: compressible }));
   // Security headers (CSP, nosniff, no framing, referrer policy) on every answer: pages, files and API.
   app.use(securityHeaders({ publicOrigin: ctx.env.PUBLIC_ORIGIN }));
 
@@ -106,6 +109,10 @@ const noStore: RequestHandler = (_req, res, next) => {
   res.set('Cache-Control', 'no-store');
   next();
 };
+
+/** Compression's own test, except for server-sent events (compressing would hold events back in the buffer). */
+const compressible: compression.CompressionFilter = (req, res) =>
+  !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') && compression.filter(req, res);
 
 /** TRUST_PROXY as Express wants it: a hop count, true/false, or an address list. */
 function parseTrustProxy(value: string): boolean | number | string {

@@ -2,6 +2,7 @@
 import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
 import { Lucia, TimeSpan } from 'lucia';
 import type { Db } from '../db/client';
+import { forgetSessions } from './sessionCache';
 import { people, sessions, type PersonRow } from '../db/schema';
 
 /**
@@ -19,7 +20,7 @@ export const SESSION_COOKIE_NAME = 'nestwright_session';
  */
 export function createLucia(db: Db) {
   const adapter = new DrizzlePostgreSQLAdapter(db, sessions, people);
-  return new Lucia(adapter, {
+  const lucia = new Lucia(adapter, {
     sessionExpiresIn: SESSION_LIFETIME,
     sessionCookie: {
       name: SESSION_COOKIE_NAME,
@@ -34,6 +35,21 @@ export function createLucia(db: Db) {
       deactivatedAt: attributes.deactivatedAt,
     }),
   });
+  // Every way a session ends (sign-out, deactivation, a new password) also empties the in-process memory of valid
+  // sessions (./sessionCache), before and after the database, so that a request in between cannot keep it alive.
+  const invalidateSession = lucia.invalidateSession.bind(lucia);
+  const invalidateUserSessions = lucia.invalidateUserSessions.bind(lucia);
+  lucia.invalidateSession = async (sessionId) => {
+    forgetSessions(db, sessionId);
+    await invalidateSession(sessionId);
+    forgetSessions(db, sessionId);
+  };
+  lucia.invalidateUserSessions = async (userId) => {
+    forgetSessions(db);
+    await invalidateUserSessions(userId);
+    forgetSessions(db);
+  };
+  return lucia;
 }
 
 /** The lucia instance type. */

@@ -2,10 +2,11 @@
 import type { RequestHandler } from 'express';
 import type { Person } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
+import { rememberSession, rememberedSession } from './sessionCache';
 import { clearSessionCookie, setSessionCookie } from './sessionCookie';
 
 /**
- * Validates the session cookie: sets `res.locals.person` and `res.locals.sessionId` when valid, renews the cookie
+ * Validates the session cookie (a session validated in the last few seconds is taken from ./sessionCache): sets `res.locals.person` and `res.locals.sessionId` when valid, renews the cookie
  * when lucia extended the session, clears it when the session is unknown or expired.
  * @param ctx - app context
  */
@@ -13,6 +14,13 @@ export function sessionMiddleware(ctx: AppContext): RequestHandler {
   return async (req, res, next) => {
     const sessionId = ctx.lucia.readSessionCookie(req.headers.cookie ?? '');
     if (!sessionId) {
+      next();
+      return;
+    }
+    const remembered = rememberedSession(ctx.db, sessionId);
+    if (remembered) {
+      res.locals.person = remembered;
+      res.locals.sessionId = sessionId;
       next();
       return;
     }
@@ -26,6 +34,7 @@ export function sessionMiddleware(ctx: AppContext): RequestHandler {
     }
     if (session.fresh) setSessionCookie(ctx, req, res, session.id);
     const person: Person = { id: user.id, email: user.email, name: user.name, roles: user.roles };
+    rememberSession(ctx.db, session.id, person, session.expiresAt);
     res.locals.person = person;
     res.locals.sessionId = session.id;
     next();

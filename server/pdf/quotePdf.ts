@@ -1,5 +1,4 @@
 /** The wholesale quote as a one-page A4 PDF for the customer (prices and delivery; no costs or margins). */
-import PDFDocument from 'pdfkit';
 import type { Quote } from '../../shared/schemas/quote';
 import { money } from './formatMeasure';
 import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectionHeading } from './pdfPageFrame';
@@ -13,6 +12,8 @@ import { pdfToBuffer } from './pdfToBuffer';
  * @param studioName - the studio issuing it
  */
 export async function renderQuotePdf(quote: Quote, studioName: string): Promise<Buffer> {
+  // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
+  const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
     size: 'A4',
     margin: PAGE.margin,

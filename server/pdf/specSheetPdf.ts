@@ -1,5 +1,4 @@
 /** The spec sheet: a two-page A4 document per variant that a buyer can check a nest box against. */
-import PDFDocument from 'pdfkit';
 import type { OrthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import type { DimWeight, ShippingBox } from '../../shared/schemas/shipping';
 import { drawOrthographicViews } from './drawOrthographicViews';
@@ -78,6 +77,8 @@ export interface SpecSheetInput {
  */
 export async function renderSpecSheetsPdf(sheets: SpecSheetInput[]): Promise<Buffer> {
   const first = sheets[0];
+  // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
+  const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
     size: 'A4',
     margin: PAGE.margin,

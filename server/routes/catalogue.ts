@@ -1,10 +1,14 @@
-/** `/api/catalogue`: published variants for sales, catalogue managers and designers. */
+/**
+ * `/api/catalogue`: published variants for sales, catalogue managers and designers. Answers are cached until the
+ * catalogue changes, with an ETag (If-None-Match gets 304) and gzip.
+ */
 import { Router } from 'express';
 import { CatalogueQuerySchema, type CatalogueQuery } from '../../shared/schemas/catalogue';
 import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { parsedQuery, validate } from '../http/validate';
 import { listCatalogueVariants } from '../services/catalogue';
+import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
 
 /**
  * Builds the catalogue router (mounted at `/api/catalogue`).
@@ -16,8 +20,12 @@ export function catalogueRouter(ctx: AppContext): Router {
     '/',
     requireRole('sales', 'catalogue_manager', 'designer'),
     validate({ query: CatalogueQuerySchema }),
-    async (_req, res) => {
-      res.json({ variants: await listCatalogueVariants(ctx, parsedQuery<CatalogueQuery>(res)) });
+    async (req, res) => {
+      const query = parsedQuery<CatalogueQuery>(res);
+      const answer = await cachedCatalogueAnswer(ctx, answerKey('catalogue', query), async () => ({
+        variants: await listCatalogueVariants(ctx, query),
+      }));
+      sendCachedAnswer(req, res, answer, 'private');
     },
   );
   return router;

@@ -26,6 +26,7 @@ import { getVariantBySku } from '../services/catalogue';
 import { quoteCart, startCheckout } from '../services/checkoutService';
 import { getForCustomer } from '../services/orderService';
 import { readPhoto } from '../services/photoService';
+import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
 import { getSalesSettings } from '../services/salesSettings';
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';
 import { renderSpecSheets } from '../services/specSheet';
@@ -64,14 +65,23 @@ export function shopRouter(ctx: AppContext): Router {
     },
   });
 
-  router.get('/products', validate({ query: ShopProductQuerySchema }), async (_req, res) => {
-    res.json(await listShopProducts(ctx, parsedQuery<ShopProductQuery>(res)));
+  // Product answers are cached until the catalogue or the shop settings change, with an ETag and gzip.
+  router.get('/products', validate({ query: ShopProductQuerySchema }), async (req, res) => {
+    const query = parsedQuery<ShopProductQuery>(res);
+    const answer = await cachedCatalogueAnswer(ctx, answerKey('shop-products', query), () =>
+      listShopProducts(ctx, query),
+    );
+    sendCachedAnswer(req, res, answer, 'public');
   });
 
-  router.get('/products/:slug', validate({ params: ShopSlugParamsSchema }), async (_req, res) => {
-    const product = await getShopProduct(ctx, parsedParams<{ slug: string }>(res).slug);
-    if (!product) throw notFound('No such product in the shop.');
-    res.json(product);
+  router.get('/products/:slug', validate({ params: ShopSlugParamsSchema }), async (req, res) => {
+    const { slug } = parsedParams<{ slug: string }>(res);
+    const answer = await cachedCatalogueAnswer(ctx, answerKey('shop-product', { slug }), async () => {
+      const product = await getShopProduct(ctx, slug);
+      if (!product) throw notFound('No such product in the shop.');
+      return product;
+    });
+    sendCachedAnswer(req, res, answer, 'public');
   });
 
   router.post('/quote', validate({ body: ShopQuoteRequestSchema }), async (_req, res) => {

@@ -2,6 +2,7 @@
 import { asc, eq } from 'drizzle-orm';
 import type { Person, PersonCreate, PersonUpdate, Role, StudioPerson } from '../../shared/schemas/auth';
 import { hashPassword } from '../auth/password';
+import { forgetSessions } from '../auth/sessionCache';
 import type { Db, Queryable } from '../db/client';
 import { people, studios, type PersonRow } from '../db/schema';
 import { conflict, notFound } from '../http/HttpError';
@@ -100,7 +101,7 @@ export async function updatePerson(
   input: PersonUpdate,
   actorId: string | null,
 ): Promise<StudioPerson> {
-  return db.transaction(async (tx) => {
+  const person = await db.transaction(async (tx) => {
     const before = await personRow(tx, id);
     const roles = input.roles ? uniqueRoles(input.roles) : before.roles;
     if (before.roles.includes('admin') && !roles.includes('admin') && before.deactivatedAt === null)
@@ -128,6 +129,9 @@ export async function updatePerson(
     }
     return toStudioPerson(after);
   });
+  // Signed-in requests take the person's roles and name from the session memory: forget it.
+  forgetSessions(db);
+  return person;
 }
 
 /** The stored person, or 404. */

@@ -1,7 +1,7 @@
 /** Photos of printed samples: checked by content, normalised and thumbnailed with sharp, kept in the file store. */
 import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
-import sharp, { type OutputInfo } from 'sharp';
+import type { OutputInfo } from 'sharp';
 import { PHOTO_NORMAL_PX, PHOTO_THUMB_PX, type Photo } from '../../shared/schemas/photo';
 import type { Person } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
@@ -9,6 +9,7 @@ import { familyPhotos, families } from '../db/schema';
 import { fileKey, readAll, type StoredFile } from '../storage/FileStore';
 import { badRequest, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
+import { catalogueChanged } from './catalogueCache';
 import { familySubject } from './families/loadFamily';
 import { toPhoto } from './familyView';
 
@@ -57,6 +58,8 @@ export async function addPhoto(
     ]);
   let normal: { data: Buffer; info: OutputInfo };
   let thumb: Buffer;
+  // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
+  const { default: sharp } = await import('sharp');
   try {
     const image = sharp(file, { limitInputPixels: MAX_INPUT_PIXELS }).rotate();
     normal = await image
@@ -101,6 +104,7 @@ export async function addPhoto(
       });
       return inserted;
     });
+    catalogueChanged(ctx.db);
     return toPhoto(row, { id: person.id, name: person.name });
   } catch (err) {
     await ctx.files.remove(fileKey('photos', fileName));

@@ -1,5 +1,4 @@
 /** The price list of published variants, as rows, as CSV (RFC 4180) and as an .xlsx workbook. */
-import ExcelJS from 'exceljs';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { PriceListRow } from '../../shared/schemas/sales';
@@ -78,6 +77,8 @@ export function priceListCsv(rows: PriceListRow[]): string {
  * @param issuedOn - date shown in the sheet's title row
  */
 export async function priceListXlsx(rows: PriceListRow[], issuedOn = new Date()): Promise<Buffer> {
+  // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
+  const { default: ExcelJS } = await import('exceljs');
   const workbook = new ExcelJS.Workbook();
   workbook.creator = STUDIO_NAME;
   workbook.created = issuedOn;

@@ -2,6 +2,7 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { salesSettings } from '../db/schema';
+import { catalogueChanged } from './catalogueCache';
 import { SalesSettingsSchema, type SalesSettings } from '../../shared/schemas/sales';
 import { DEFAULT_SHOP_SETTINGS } from '../../shared/shop/defaultShopSettings';
 
@@ -86,5 +87,7 @@ export async function saveSalesSettings(
     .values({ id: ROW_ID, data: settings, updatedById: personId, updatedAt: now })
     .onConflictDoUpdate({ target: salesSettings.id, set: { data: settings, updatedById: personId, updatedAt: now } })
     .returning();
+  // Prices with VAT, the shop currency and shipping show in the shop's cached answers.
+  catalogueChanged(db);
   return { settings: row.data, updatedAt: row.updatedAt.toISOString() };
 }

@@ -20,6 +20,7 @@ import type { SellableVariant } from '../../shared/shop/priceCart';
 import { shopUnitPrice } from '../../shared/shop/priceCart';
 import type { AppContext } from '../context';
 import { listCatalogueVariants } from './catalogue';
+import { cachedCatalogueValue } from './catalogueCache';
 import { getSalesSettings } from './salesSettings';
 import { backFit, productName, variantCautions } from './specSheet';
 
@@ -38,8 +39,15 @@ export function productSlug(name: string): string {
   );
 }
 
-/** Published variants in the shop currency, grouped by product slug, with the settings. */
-async function sellable(
+/**
+ * Published variants in the shop currency, grouped by product slug, with the settings; kept until the catalogue or
+ * the settings change (read-only).
+ */
+function sellable(ctx: AppContext): Promise<{ groups: Map<string, CatalogueVariant[]>; settings: SalesSettings }> {
+  return cachedCatalogueValue(ctx, 'shop-sellable', () => loadSellable(ctx));
+}
+
+async function loadSellable(
   ctx: AppContext,
 ): Promise<{ groups: Map<string, CatalogueVariant[]>; settings: SalesSettings }> {
   const { settings } = await getSalesSettings(ctx.db);

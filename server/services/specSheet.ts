@@ -1,5 +1,4 @@
 /** Gathers what a spec sheet shows for a published variant and renders it. */
-import sharp from 'sharp';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
 import { SPECIES } from '../../shared/birdfit/species';
 import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
@@ -46,6 +45,8 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
     material?.colours[0] ?? { id: 'natural', name: 'Natural', hex: '#e8e2d0', solarAbsorptance: 0.35 };
   const outdoor = outdoorOf(variant, material, colour.id);
 
+  // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
+  const { default: sharp } = await import('sharp');
   const picture = options.photo
     ? {
         png: await sharp(options.photo).rotate().resize(800, 800, { fit: 'inside' }).png().toBuffer(),

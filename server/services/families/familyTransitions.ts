@@ -10,6 +10,7 @@ import { familyRevisions, families, people } from '../../db/schema';
 import { HttpError } from '../../http/HttpError';
 import { queueMail } from '../../mail/queueMail';
 import { recordAudit } from '../audit';
+import { catalogueChanged } from '../catalogueCache';
 import { gateOf } from '../familyView';
 import { kickMail } from '../mailService';
 import { familySubject, invalidState, loadFamily, stateChanged, viewFamily, type FamilyContext } from './loadFamily';
@@ -155,6 +156,8 @@ export async function transitionFamily(
       });
     }
   });
+  // A publish or a retire changes the catalogue and the shop; any step changes what the family shows.
+  catalogueChanged(ctx.db);
   kickMail(ctx);
   return viewFamily(ctx, id, person);
 }
