@@ -407,6 +407,13 @@ const ROUTES: AuthzRow[] = [
   },
   {
     method: 'post',
+    route: '/api/orders/:id/clear-flag',
+    path: async (t) => `/api/orders/${await newShopOrder(t, 'short')}/clear-flag`,
+    allowed: ['operations', 'admin'],
+    body: { note: 'authorization probe' },
+  },
+  {
+    method: 'post',
     route: '/api/orders/:id/cancel',
     path: async (t) => `/api/orders/${await newShopOrder(t)}/cancel`,
     allowed: ['operations', 'admin'],

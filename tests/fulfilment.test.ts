@@ -18,6 +18,9 @@ import type { ShipTo } from '../shared/schemas/shop';
 import type { OrderFulfilment } from '../shared/schemas/fulfilment';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { payOneUnitOrder } from './setup/paidOrder';
+import { listCatalogueVariants } from '../server/services/catalogue';
+import { loadProductionCatalogue } from '../server/services/productionCatalogue';
+import type { SalesSettings } from '../shared/schemas/sales';
 
 let t: TestApp;
 let server: Server;
@@ -242,5 +245,30 @@ describe('notice endpoint', () => {
     });
     expect(stale.status).toBe(400);
     expect((await post(body, { [NOTICE_TIMESTAMP_HEADER]: String(now) })).status).toBe(400);
+  });
+});
+
+describe('planned runs', () => {
+  it('delivers a run to the workshop address saved in the sales settings', async () => {
+    const admin = await t.agent('admin');
+    const { settings } = (await admin.get('/api/settings/sales')).body as { settings: SalesSettings };
+    const workshop = { ...settings.workshopAddress, line1: '4 Kiln Lane', postalCode: 'LM9 1KL' };
+    expect((await admin.put('/api/settings/sales').send({ ...settings, workshopAddress: workshop })).status).toBe(200);
+    const [variant] = await listCatalogueVariants(t.ctx, {});
+    const printers = (await loadProductionCatalogue(t.ctx.db)).printers;
+    const sent = await (await t.agent('operations')).post('/api/farm/runs').send({
+      items: [{ sku: variant.sku, quantity: 3 }],
+      printerId: printers[0].id,
+      startDate: '2099-03-02',
+      finishBy: '2099-03-20',
+    });
+    expect(sent.status).toBe(201);
+    const workOrderId = await until(async () => {
+      const [row] = await t.ctx.db.select().from(farmDispatches).where(eq(farmDispatches.runId, sent.body.id));
+      // Wait until the farm has handed it over, so no notice of it arrives during a later test.
+      return row?.status === 'done' ? row.farmWorkOrderId! : undefined;
+    }, 'the run handed over by the farm');
+    const workOrder = await farm.client.getWorkOrder(workOrderId);
+    expect(workOrder.shipTo).toMatchObject({ line1: '4 Kiln Lane', postalCode: 'LM9 1KL', city: workshop.city });
   });
 });

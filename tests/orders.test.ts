@@ -10,7 +10,15 @@ import type { ShopQuote } from '../shared/schemas/shop';
 import { mailOutbox } from '../server/db/schema';
 import { HttpError } from '../server/http/HttpError';
 import { onOrderTransition } from '../server/services/orderHooks';
-import { createFromCheckout, get, getForCustomer, list, markPaid, transition } from '../server/services/orderService';
+import {
+  clearPaymentFlag,
+  createFromCheckout,
+  get,
+  getForCustomer,
+  list,
+  markPaid,
+  transition,
+} from '../server/services/orderService';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
 const QUOTE: ShopQuote = {
@@ -123,6 +131,46 @@ describe('order service', () => {
     expect((await list(t.ctx.db, { flagged: 'true', page: 1, pageSize: 50 })).orders.map((o) => o.id)).toContain(
       order.id,
     );
+  });
+
+  it('clears a checked payment flag through the API: paid, audited with the note, confirmation queued', async () => {
+    const order = await newOrder('flagged@example.test');
+    expect(
+      await markPaid(t.ctx.db, order.id, {
+        paymentIntentId: 'pi_f',
+        amountMinor: 7000,
+        currency: 'EUR',
+        eventId: 'evt_f',
+      }),
+    ).toBe('flagged');
+    const ops = await t.agent('operations');
+    const noNote = await ops.post(`/api/orders/${order.id}/clear-flag`).send({ note: ' ' });
+    expect(noNote.status).toBe(400);
+    expect(noNote.body.error.message).toMatch(/what you checked/);
+    const res = await ops
+      .post(`/api/orders/${order.id}/clear-flag`)
+      .send({ note: 'The customer paid the 5.55 difference by bank transfer.' });
+    expect(res.status).toBe(200);
+    expect(res.body.state).toBe('paid');
+    const detail = await get(t.ctx.db, order.id);
+    expect(detail.payment.flag).toBeNull();
+    expect(detail.history.map((h) => h.action).slice(-2)).toEqual(['order.flag_cleared', 'order.paid']);
+    expect(detail.history.at(-2)?.details).toMatchObject({
+      flag: 'amount_mismatch',
+      paidMinor: 7000,
+      expectedMinor: 7555,
+    });
+    const mail = await t.ctx.db
+      .select()
+      .from(mailOutbox)
+      .where(eq(mailOutbox.subject, `Order ${order.number} confirmed: thank you`));
+    expect(mail).toHaveLength(1);
+    // Once cleared there is nothing left to clear.
+    await expect(clearPaymentFlag(t.ctx.db, order.id, null, 'again')).rejects.toMatchObject({ status: 409 });
+    const unflagged = await newOrder();
+    await expect(clearPaymentFlag(t.ctx.db, unflagged.id, null, 'nothing to clear')).rejects.toMatchObject({
+      status: 409,
+    });
   });
 
   it('refuses transitions the state does not allow with 409 and audits the allowed ones', async () => {

@@ -12,6 +12,9 @@ import { fakeClient, setPaymentRuntime, startPayments } from '../server/payments
 import { PaymentEnvSchema } from '../server/payments/paymentEnv';
 import { expireAbandonedCheckouts } from '../server/services/checkoutService';
 import { getRow } from '../server/services/orderService';
+import { productMesh } from '../server/services/specSheetMesh';
+import type { CatalogueVariant } from '../shared/schemas/catalogue';
+import type { ShopProduct, ShopProductList } from '../shared/schemas/shop';
 import { grossFromNet } from '../shared/shop/vat';
 import {
   checkoutBody,
@@ -71,6 +74,44 @@ describe('shop catalogue', () => {
     expect((await anon.get('/api/shop/products/copse-a-frame')).status).toBe(404);
     const filtered = await anon.get('/api/shop/products?colour=white');
     expect(filtered.body.products).toEqual([]);
+  });
+});
+
+describe('shop product figures', () => {
+  it('gives the size of the assembled box (its body, as the spec sheet draws it), not the print layout', async () => {
+    const product = (await (await t.agent(null)).get('/api/shop/products/hedgerow-gable')).body as ShopProduct;
+    const variant = product.variants.find((v) => v.sku === SHOP_SKU)!;
+    const catalogue = await (await t.agent('sales')).get('/api/catalogue');
+    const sold = (catalogue.body.variants as CatalogueVariant[]).find((v) => v.sku === SHOP_SKU)!;
+    expect(variant.sizeKind).toBe('assembled');
+    expect(variant.partCount).toBe(sold.report.partCount);
+    // The body standing upright, measured from its own vertices (the spec sheet's drawing is checked against
+    // admesh's bounding box in its own test).
+    const body = await productMesh(sold.templateId, sold.params);
+    const min = [Infinity, Infinity, Infinity];
+    const max = [-Infinity, -Infinity, -Infinity];
+    body.mesh.positions.forEach((value, i) => {
+      min[i % 3] = Math.min(min[i % 3], value);
+      max[i % 3] = Math.max(max[i % 3], value);
+    });
+    variant.sizeMm.forEach((mm, axis) => expect(mm).toBeCloseTo(max[axis] - min[axis], 1));
+    if (sold.report.partCount > 1) expect(variant.sizeMm).not.toEqual(sold.report.bboxSizeMm);
+  });
+
+  it('shows house sparrows as a European species and cautions North American buyers of a 32 mm entry', async () => {
+    // source: Passer domesticus, "House Sparrow" species account, Cornell Lab of Ornithology All About Birds (native
+    // to Eurasia, introduced to North America in 1851); hole sizes: RSPB nest box guidance (32 mm for house sparrows)
+    const product = (await (await t.agent(null)).get('/api/shop/products/hedgerow-gable')).body as ShopProduct;
+    const wide = product.variants.find((v) => v.sku === SHOP_SKU_2)!;
+    expect(wide.suits).toContainEqual({ name: 'House sparrow', region: 'europe' });
+    expect(wide.suits.filter((b) => b.name === 'House sparrow').map((b) => b.region)).toEqual(['europe']);
+    const caution = wide.regionCautions.find((c) => c.region === 'north-america');
+    expect(caution?.text).toMatch(/house sparrows, introduced in North America/);
+    expect(caution?.text).toMatch(/local rules/);
+    const narrow = product.variants.find((v) => v.sku === SHOP_SKU)!;
+    expect(narrow.regionCautions).toEqual([]);
+    const list = (await (await t.agent(null)).get('/api/shop/products')).body as ShopProductList;
+    expect(list.products[0].cautionRegions).toEqual(['north-america']);
   });
 });
 

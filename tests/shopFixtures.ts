@@ -90,7 +90,7 @@ export async function startShopTest(t: TestApp): Promise<ShopTest> {
  * @param t - the test app
  * @param paid - mark it paid with the exact total
  */
-export async function newShopOrder(t: TestApp, paid = false): Promise<string> {
+export async function newShopOrder(t: TestApp, paid: boolean | 'short' = false): Promise<string> {
   const { orderId } = await startCheckout(
     t.ctx,
     checkoutBody(undefined, await sellableSkus(t)),
@@ -100,7 +100,8 @@ export async function newShopOrder(t: TestApp, paid = false): Promise<string> {
     const row = await getRow(t.ctx.db, orderId);
     await markPaid(t.ctx.db, orderId, {
       paymentIntentId: null,
-      amountMinor: row.totalMinor,
+      // 'short': one cent less than the total, so the payment is flagged.
+      amountMinor: paid === 'short' ? row.totalMinor - 1 : row.totalMinor,
       currency: row.currency,
       eventId: `evt_test_${orderId}`,
     });

@@ -5,7 +5,7 @@
  * tried again with growing delays while the order shows "waiting for the farm" and the last error.
  */
 import { and, asc, eq, inArray, lte } from 'drizzle-orm';
-import type { FarmAddress, WorkOrderInput, WorkOrderLineInput } from '../../shared/schemas/farm';
+import type { WorkOrderInput, WorkOrderLineInput } from '../../shared/schemas/farm';
 import { formatOrderNumber } from '../../shared/schemas/order';
 import type { AppContext } from '../context';
 import type { Queryable } from '../db/client';
@@ -13,21 +13,11 @@ import { familyVariants, farmDispatches, farmRuns, orderLines, orders, type Farm
 import { recordAudit } from '../services/audit';
 import { onOrderTransition } from '../services/orderHooks';
 import { subjectOf } from '../services/orderService';
+import { getSalesSettings } from '../services/salesSettings';
 import { applyWorkOrder } from './applyWorkOrder';
 import { FarmError } from './FarmClient';
 import type { FarmRuntime } from './farmRuntime';
 import { ensurePrintFile, PinnedMeshError } from './printFiles';
-
-/** Where planned runs are delivered: the demo studio's workshop (an invented address). */
-export const STUDIO_WORKSHOP: FarmAddress = {
-  name: 'Fernhollow Studio workshop',
-  line1: '12 Mill Yard',
-  line2: '',
-  city: 'Lowmoor',
-  region: '',
-  postalCode: 'LM3 4QR',
-  country: 'GB',
-};
 
 /** Rows sent per round. */
 const BATCH = 20;
@@ -243,7 +233,8 @@ async function workOrderInput(ctx: AppContext, row: FarmDispatchRow): Promise<Wo
         quantity: item.quantity,
       };
     }),
-    shipTo: STUDIO_WORKSHOP,
+    // Runs go to the studio's own workshop, as the sales settings give it.
+    shipTo: (await getSalesSettings(ctx.db)).settings.workshopAddress,
   };
 }
 

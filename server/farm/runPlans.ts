@@ -31,7 +31,7 @@ const JOB_SETUP_MIN = 10;
  * @param quantity - units wanted
  */
 export async function planItemOf(ctx: AppContext, variant: CatalogueVariant, quantity: number): Promise<PlanItem> {
-  const stored = (variant.report as { partSizesMm?: Array<[number, number, number]> }).partSizesMm;
+  const stored = variant.report.partSizesMm;
   const partSizesMm = stored?.length
     ? stored
     : variant.sha256

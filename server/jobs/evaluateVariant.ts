@@ -71,6 +71,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     components: geometry.components,
     partCount: geometry.partCount,
     bboxSizeMm: geometry.bboxSizeMm,
+    partSizesMm: geometry.partSizesMm,
     overhangAreaMm2: geometry.overhangAreaMm2,
     supportVolumeMm3: geometry.supportVolumeMm3,
     maxBridgeSpanMm: geometry.maxBridgeSpanMm,

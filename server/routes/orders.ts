@@ -1,14 +1,17 @@
 /**
  * `/api/orders` (operations and admin): list with filter, search and pages; one order with its history; move it
- * along (in production, shipped with tracking, delivered); cancel an unpaid order or refund a paid one.
+ * along (in production, shipped with tracking, delivered); clear a payment flag once checked; cancel an unpaid order
+ * or refund a paid one.
  */
 import { Router } from 'express';
 import {
   OrderCancelRequestSchema,
+  OrderClearFlagRequestSchema,
   OrderIdParamsSchema,
   OrderListQuerySchema,
   OrderTransitionRequestSchema,
   type OrderCancelRequest,
+  type OrderClearFlagRequest,
   type OrderListQuery,
   type OrderTransitionRequest,
 } from '../../shared/schemas/order';
@@ -18,7 +21,7 @@ import { badRequest } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { cancelOrder } from '../services/checkoutService';
 import { kickMail } from '../services/mailService';
-import { get, list, listAll, transition } from '../services/orderService';
+import { clearPaymentFlag, get, list, listAll, transition } from '../services/orderService';
 import { ordersCsv } from '../services/ordersCsv';
 import { sendAttachment } from '../pdf/sendAttachment';
 
@@ -67,6 +70,17 @@ export function ordersRouter(ctx: AppContext): Router {
     async (_req, res) => {
       const { reason } = parsedBody<OrderCancelRequest>(res);
       res.json(await cancelOrder(ctx, parsedParams<{ id: string }>(res).id, signedInPerson(res), reason));
+    },
+  );
+
+  router.post(
+    '/:id/clear-flag',
+    validate({ params: OrderIdParamsSchema, body: OrderClearFlagRequestSchema }),
+    async (_req, res) => {
+      const { note } = parsedBody<OrderClearFlagRequest>(res);
+      const order = await clearPaymentFlag(ctx.db, parsedParams<{ id: string }>(res).id, signedInPerson(res), note);
+      kickMail(ctx);
+      res.json(order);
     },
   );
 

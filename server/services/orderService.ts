@@ -146,6 +146,32 @@ export async function markPaid(db: Db, orderId: string, report: PaymentReport): 
   });
 }
 
+/**
+ * Clears the payment flag of an order once a person has checked the payment with the provider and accepts it: the
+ * order becomes `paid` (hooks run, so it goes to the farm; the confirmation mail is queued) and both steps are
+ * audited with the person's note. 409 when the order carries no flag or is no longer waiting for its payment.
+ * @param db - database
+ * @param orderId - the order
+ * @param actor - who accepts the payment
+ * @param note - what they checked (kept in the history)
+ */
+export async function clearPaymentFlag(db: Db, orderId: string, actor: OrderActor, note: string): Promise<Order> {
+  return db.transaction(async (tx) => {
+    const row = await lockOrder(tx, orderId);
+    if (row.paymentFlag === null)
+      throw conflict('not_flagged', `Order ${formatOrderNumber(row.number)} has no payment flag to clear.`);
+    assertTransition(row, 'paid');
+    await recordAudit(tx, {
+      actorId: actor?.id ?? null,
+      action: 'order.flag_cleared',
+      subject: subjectOf(orderId),
+      details: { flag: row.paymentFlag, paidMinor: row.paidMinor, expectedMinor: row.totalMinor, note },
+    });
+    const updated = await moveState(tx, row, 'paid', actor, { note }, { paymentFlag: null });
+    return toOrder(updated, await linesOf(tx, [orderId]));
+  });
+}
+
 /** Extra fields some transitions set. */
 export interface TransitionExtras {
   trackingUrl?: string;

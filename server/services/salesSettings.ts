@@ -5,6 +5,7 @@ import { salesSettings } from '../db/schema';
 import { catalogueChanged } from './catalogueCache';
 import { SalesSettingsSchema, type SalesSettings } from '../../shared/schemas/sales';
 import { DEFAULT_SHOP_SETTINGS } from '../../shared/shop/defaultShopSettings';
+import { DEFAULT_WORKSHOP_ADDRESS } from '../../shared/planning/defaultWorkshopAddress';
 
 const ROW_ID = 'studio';
 
@@ -52,6 +53,7 @@ export const DEFAULT_SALES_SETTINGS: SalesSettings = {
     { minQuantity: 500, discountPct: 15 },
   ],
   shop: DEFAULT_SHOP_SETTINGS,
+  workshopAddress: DEFAULT_WORKSHOP_ADDRESS,
 };
 
 /** Sales settings with who changed them last and when. */

@@ -7,13 +7,16 @@ import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { Photo } from '../../shared/schemas/photo';
 import type { SalesSettings } from '../../shared/schemas/sales';
+import type { Region } from '../../shared/schemas/birdfit';
 import type {
   ShopAxis,
+  ShopBird,
   ShopPriceDisplay,
   ShopProduct,
   ShopProductList,
   ShopProductQuery,
   ShopProductSummary,
+  ShopRegionCaution,
   ShopVariant,
 } from '../../shared/schemas/shop';
 import type { SellableVariant } from '../../shared/shop/priceCart';
@@ -80,11 +83,46 @@ function colourOf(variant: CatalogueVariant): { id: string; name: string; hex: s
 }
 
 function birdsOf(variant: CatalogueVariant): string[] {
-  return assessBirdFit(variant.report.facts).suits.map((s) => s.commonName);
+  return suitsOf(variant).map((s) => s.name);
+}
+
+function suitsOf(variant: CatalogueVariant): ShopBird[] {
+  return assessBirdFit(variant.report.facts).suits.map((s) => ({ name: s.commonName, region: s.region }));
+}
+
+/** Words for the regions of the species tables. */
+const REGION_NAMES: Record<Region, string> = { 'north-america': 'North America', europe: 'Europe' };
+
+/**
+ * Cautions for species the entry admits that are introduced in a region (house sparrows and starlings in North
+ * America): the bird-fit warnings of that kind, each ending with the deferral to local rules and experts.
+ */
+function regionCautionsOf(variant: CatalogueVariant): ShopRegionCaution[] {
+  const unwanted = new Set(['admits-house-sparrows', 'admits-starlings']);
+  return assessBirdFit(variant.report.facts)
+    .warnings.filter((w) => w.region && w.severity !== 'info' && unwanted.has(w.code))
+    .map((w) => ({
+      region: w.region!,
+      text:
+        `In ${REGION_NAMES[w.region!]}: ${w.message} ` +
+        'Where a species is introduced, follow local rules and the advice of local bird groups before putting the box up.',
+    }));
+}
+
+/**
+ * The outside size of the assembled product: its body (the largest printed part; templates build it first), or
+ * the laid-out print when the variant was computed before part sizes were kept.
+ */
+function sizeOf(variant: CatalogueVariant): Pick<ShopVariant, 'sizeMm' | 'sizeKind' | 'partCount'> {
+  const parts = variant.report.partSizesMm;
+  const partCount = Math.max(1, parts?.length ?? variant.report.partCount);
+  if (!parts?.length) return { sizeMm: variant.report.bboxSizeMm, sizeKind: 'as_printed', partCount };
+  const body = parts.reduce((a, b) => (b[0] * b[1] * b[2] > a[0] * a[1] * a[2] ? b : a));
+  return { sizeMm: body, sizeKind: 'assembled', partCount };
 }
 
 function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): ShopVariant {
-  const [w, d, h] = variant.report.bboxSizeMm;
+  const size = sizeOf(variant);
   const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
   return {
     sku: variant.sku,
@@ -94,10 +132,12 @@ function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): Shop
     material: material?.name ?? variant.attributes.material,
     priceMinor: shopUnitPrice(variant.priceCents, settings.shop.vatRatePct),
     entryHoleMm: variant.report.facts.entryHoleDiameterMm,
-    sizeMm: [w, d, h],
+    ...size,
     massG: variant.report.massG,
     birds: birdsOf(variant),
-    mounting: backFit(variant.templateId, variant.params, w),
+    suits: suitsOf(variant),
+    regionCautions: regionCautionsOf(variant),
+    mounting: backFit(variant.templateId, variant.params, size.sizeMm[0]),
     cautions: variantCautions(variant).map(({ title, text }) => ({ title, text })),
     meshSha256: variant.sha256 ?? '',
   };
@@ -153,6 +193,11 @@ function axesOf(variants: CatalogueVariant[]): ShopAxis[] {
   });
 }
 
+function uniqueBirds(birds: ShopBird[]): ShopBird[] {
+  const seen = new Map(birds.map((b) => [`${b.region}:${b.name}`, b]));
+  return [...seen.values()].sort((a, b) => a.region.localeCompare(b.region) || a.name.localeCompare(b.name));
+}
+
 function summaryOf(slug: string, variants: CatalogueVariant[], settings: SalesSettings): ShopProductSummary {
   const first = variants[0];
   const colours = new Map<string, { id: string; name: string; hex: string }>();
@@ -167,6 +212,8 @@ function summaryOf(slug: string, variants: CatalogueVariant[], settings: SalesSe
     fromPriceMinor: Math.min(...variants.map((v) => shopUnitPrice(v.priceCents, settings.shop.vatRatePct))),
     colours: [...colours.values()],
     birds: [...new Set(variants.flatMap(birdsOf))].sort(),
+    suits: uniqueBirds(variants.flatMap(suitsOf)),
+    cautionRegions: [...new Set(variants.flatMap(regionCautionsOf).map((c) => c.region))].sort(),
     photo: first.photos[0] ? shopPhoto(first.photos[0]) : null,
     variantCount: variants.length,
   };
@@ -209,6 +256,8 @@ export async function getShopProduct(ctx: AppContext, slug: string): Promise<Sho
     fromPriceMinor: summary.fromPriceMinor,
     colours: summary.colours,
     birds: summary.birds,
+    suits: summary.suits,
+    cautionRegions: summary.cautionRegions,
     variantCount: summary.variantCount,
     axes: axesOf(variants),
     variants: variants.map((v) => toShopVariant(v, settings)),

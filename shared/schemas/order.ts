@@ -192,6 +192,13 @@ export const OrderCancelRequestSchema = z.object({
 /** Body of `POST /api/orders/:id/cancel`. */
 export type OrderCancelRequest = z.infer<typeof OrderCancelRequestSchema>;
 
+/** Body of `POST /api/orders/:id/clear-flag`: what the person checked with the payment service. */
+export const OrderClearFlagRequestSchema = z.object({
+  note: z.string().trim().min(3, 'say what you checked with the payment service').max(500),
+});
+/** Body of `POST /api/orders/:id/clear-flag`. */
+export type OrderClearFlagRequest = z.infer<typeof OrderClearFlagRequestSchema>;
+
 /** Route parameter `:id` of an order. */
 export const OrderIdParamsSchema = z.object({ id: z.uuid('no such order') });
 /** Route parameter `:token` of the customer's order page. */

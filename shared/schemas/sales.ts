@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { DEFAULT_SHOP_SETTINGS } from '../shop/defaultShopSettings';
 import { DimDivisorSchema, PackagingRulesSchema } from './shipping';
+import { DEFAULT_WORKSHOP_ADDRESS } from '../planning/defaultWorkshopAddress';
+import { FarmAddressSchema } from './farm';
 import { ShopSettingsSchema } from './shop';
 
 /** The print farm as quotes see it: how many machines, for how long a day, and how often a plate fails. */
@@ -28,8 +30,9 @@ export const QuantityBreakSchema = z.object({
 export type QuantityBreak = z.infer<typeof QuantityBreakSchema>;
 
 /**
- * Settings of the sales area: shipping divisors with their dates, packaging, farm, quantity breaks and the shop
- * (currency, VAT, shipping zones × weight bands; defaults for settings saved before the shop existed).
+ * Settings of the sales area: shipping divisors with their dates, packaging, farm, quantity breaks, the shop
+ * (currency, VAT, shipping zones × weight bands; defaults for settings saved before the shop existed) and the
+ * workshop address planned runs are delivered to.
  */
 export const SalesSettingsSchema = z.object({
   dimDivisors: z.array(DimDivisorSchema).min(1).max(20),
@@ -43,6 +46,8 @@ export const SalesSettingsSchema = z.object({
       message: 'List the quantity breaks from the smallest quantity to the largest.',
     }),
   shop: ShopSettingsSchema.default(DEFAULT_SHOP_SETTINGS),
+  /** Where the farm delivers planned runs (the studio's workshop); a default for settings saved before it existed. */
+  workshopAddress: FarmAddressSchema.default(DEFAULT_WORKSHOP_ADDRESS),
 });
 /** Sales settings (see {@link SalesSettingsSchema}). */
 export type SalesSettings = z.infer<typeof SalesSettingsSchema>;

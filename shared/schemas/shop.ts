@@ -1,6 +1,7 @@
 /** Shapes of the public shop: its settings (currency, VAT, shipping table), the ship-to address and checkout. */
 import { z } from 'zod';
 import { isValidCountryCode } from '../shop/countryCodes';
+import { RegionSchema } from './birdfit';
 
 /** A currency as ISO 4217 letters, e.g. `EUR`. */
 export const CurrencySchema = z.string().regex(/^[A-Z]{3}$/, 'The currency must be three capital letters such as EUR.');
@@ -190,6 +191,16 @@ export type ShopAxis = z.infer<typeof ShopAxisSchema>;
 export const ShopCautionSchema = z.object({ title: z.string(), text: z.string() });
 
 /** A published variant as the shop shows it (VAT-inclusive price; figures in mm, shown in inches too). */
+/** A species a variant suits, with the region whose table it comes from. */
+export const ShopBirdSchema = z.object({ name: z.string(), region: RegionSchema });
+/** A suited species (see {@link ShopBirdSchema}). */
+export type ShopBird = z.infer<typeof ShopBirdSchema>;
+
+/** A caution that applies in one region only (an introduced species the entry admits there). */
+export const ShopRegionCautionSchema = z.object({ region: RegionSchema, text: z.string() });
+/** A regional caution (see {@link ShopRegionCautionSchema}). */
+export type ShopRegionCaution = z.infer<typeof ShopRegionCautionSchema>;
+
 export const ShopVariantSchema = z.object({
   sku: z.string(),
   productName: z.string(),
@@ -199,10 +210,21 @@ export const ShopVariantSchema = z.object({
   /** Price the customer pays for one unit, VAT included, minor units. */
   priceMinor: z.number().int(),
   entryHoleMm: z.number(),
-  /** Overall size of the product: width, depth, height. */
+  /**
+   * Outside size, width × depth × height: of the assembled box when `sizeKind` is `assembled` (its body, the largest
+   * part), else of the parts laid out for printing (variants computed before part sizes were kept).
+   */
   sizeMm: z.tuple([z.number(), z.number(), z.number()]),
+  sizeKind: z.enum(['assembled', 'as_printed']),
+  /** Parts printed and put together by the customer (1: printed in one piece). */
+  partCount: z.number().int().positive(),
   massG: z.number(),
+  /** Names of the wanted species it suits (either region), for the filter. */
   birds: z.array(z.string()),
+  /** The same species with the region whose table they come from. */
+  suits: z.array(ShopBirdSchema),
+  /** Regional cautions: species the entry admits that are introduced (unwanted) in a region. */
+  regionCautions: z.array(ShopRegionCautionSchema),
   mounting: z.string(),
   cautions: z.array(ShopCautionSchema),
   meshSha256: z.string(),
@@ -236,6 +258,10 @@ export const ShopProductSummarySchema = z.object({
   fromPriceMinor: z.number().int(),
   colours: z.array(z.object({ id: z.string(), name: z.string(), hex: z.string() })),
   birds: z.array(z.string()),
+  /** The species with their regions (for the card). */
+  suits: z.array(ShopBirdSchema),
+  /** Regions where some version admits an introduced species (the card points to the product page's caution). */
+  cautionRegions: z.array(RegionSchema),
   photo: ShopPhotoSchema.nullable(),
   variantCount: z.number().int(),
 });

@@ -56,6 +56,11 @@ export const VariantReportSchema = z.object({
   components: z.number().int(),
   partCount: z.number().int(),
   bboxSizeMm: z.tuple([z.number(), z.number(), z.number()]),
+  /**
+   * Size of each printable part in build orientation, in the order the template builds them (the body first). Kept
+   * so that the run planner and the shop need not rebuild the mesh; absent on variants computed before it was kept.
+   */
+  partSizesMm: z.array(z.tuple([z.number(), z.number(), z.number()])).optional(),
   overhangAreaMm2: z.number(),
   supportVolumeMm3: z.number(),
   maxBridgeSpanMm: z.number(),

@@ -2,6 +2,7 @@ import {
   OrderDetailSchema,
   OrderListResponseSchema,
   type OrderCancelRequest,
+  type OrderClearFlagRequest,
   type OrderDetail,
   type OrderListResponse,
   type OrderTransitionRequest,
@@ -46,4 +47,13 @@ export function moveOrder(id: string, body: OrderTransitionRequest): Promise<unk
 /** Cancels an unpaid order or refunds a paid one. @param id - the order @param body - the reason */
 export function cancelOrder(id: string, body: OrderCancelRequest): Promise<unknown> {
   return api(`/orders/${encodeURIComponent(id)}/cancel`, { method: 'POST', body });
+}
+
+/**
+ * Accepts a flagged payment after checking it with the payment service: the order becomes paid.
+ * @param id - the order
+ * @param body - what was checked
+ */
+export function clearOrderFlag(id: string, body: OrderClearFlagRequest): Promise<unknown> {
+  return api(`/orders/${encodeURIComponent(id)}/clear-flag`, { method: 'POST', body });
 }
