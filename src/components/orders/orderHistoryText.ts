@@ -50,3 +50,17 @@ export function orderHistoryDetail(details: Record<string, unknown>, money: (min
   if (typeof details.attempt === 'number' && details.attempt > 1) parts.push(`attempt ${details.attempt}`);
   return parts.join(' · ');
 }
+
+/**
+ * Who did a history entry, for people: the signed-in person's name, or for entries without one the party that
+ * acts on its own (the customer placing it, the payment service, the print farm, or the app itself).
+ * @param entry - the history entry
+ */
+export function orderHistoryActor(entry: { action: string; actor: string | null }): string {
+  if (entry.actor) return entry.actor;
+  if (entry.action === 'order.placed') return 'customer';
+  if (entry.action === 'order.paid' || entry.action === 'order.payment_flagged') return 'payment service';
+  if (entry.action.startsWith('farm.') || entry.action === 'order.in_production' || entry.action === 'order.shipped')
+    return 'print farm';
+  return 'automatic';
+}
