@@ -93,12 +93,17 @@ async function screensOf(page: Page, role: Role): Promise<string[]> {
       const first = quotes.quotes[0]?.id;
       return ['/', '/catalogue', '/quotes', ...(first ? [`/quotes/${first}`] : [])];
     }
+    case 'operations': {
+      const orders = (await json('/api/orders')) as { orders: Array<{ id: string }> };
+      const first = orders.orders[0]?.id;
+      return ['/', '/orders', ...(first ? [`/orders/${first}`] : []), '/demand', '/runs/plan', '/farm/exceptions'];
+    }
     default:
       return ['/', '/admin/people', '/admin/mail'];
   }
 }
 
-const ROLES: Role[] = ['designer', 'catalogue_manager', 'sales', 'admin'];
+const ROLES: Role[] = ['designer', 'catalogue_manager', 'sales', 'operations', 'admin'];
 const WIDTHS = [1440, 1024, 390];
 
 describe('every screen', () => {
@@ -129,6 +134,36 @@ describe('every screen', () => {
     },
     600_000,
   );
+});
+
+describe('the shop, signed out', () => {
+  it('has no serious or critical accessibility violation and no CSP violation, at 1440, 1024 and 390 px', async () => {
+    const page = await e2e.newPage();
+    await watchCsp(page);
+    const products = (await (await page.request.get('/api/shop/products')).json()) as {
+      products: Array<{ slug: string }>;
+    };
+    const first = products.products[0]?.slug;
+    expect(first).toBeTruthy();
+    const problems: string[] = [];
+    for (const path of ['/shop', `/shop/p/${first}`, '/shop/cart']) {
+      for (const width of WIDTHS) {
+        await page.setViewportSize({ width, height: width < 600 ? 844 : 900 });
+        await page.goto(path);
+        await settle(page);
+        await page.screenshot({
+          path: join(SHOTS, `customer${path.replace(/[/:]+/g, '_')}-${width}.png`),
+          fullPage: true,
+        });
+        if (width === 1440 || width === 390) {
+          for (const line of await axeProblems(page)) problems.push(`${path} @${width}: ${line}`);
+        }
+      }
+    }
+    for (const line of await cspViolations(page)) problems.push(`CSP: ${line}`);
+    expect(problems).toEqual([]);
+    await page.context().close();
+  }, 300_000);
 });
 
 describe('check a file', () => {
