@@ -9,6 +9,8 @@ export default defineConfig({
   server: { port: 5173 },
   test: {
     include: ['tests/**/*.test.ts'],
+    // The every-screen check (every role, every screen, three widths) runs with `npm run test:screens`.
+    exclude: process.env.NW_SCREENS ? ['**/node_modules/**'] : ['**/node_modules/**', 'tests/e2e/screens.e2e.test.ts'],
     environment: 'node',
     pool: 'forks',
     testTimeout: 30_000,
