@@ -16,6 +16,7 @@ import { familiesRouter } from './routes/families';
 import { catalogueRouter } from './routes/catalogue';
 import { photosRouter } from './routes/photos';
 import { mailRouter } from './routes/mail';
+import { jobsRouter } from './routes/jobs';
 import { analysesRouter } from './routes/analyses';
 import { exportsRouter } from './routes/exports';
 import { templatesRouter } from './routes/templates';
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/catalogue', catalogueRouter(ctx));
   app.use('/api/photos', photosRouter(ctx));
   app.use('/api/mail', mailRouter(ctx));
+  app.use('/api/jobs', jobsRouter(ctx));
   app.use('/api/analyses', analysesRouter(ctx));
   app.use('/api/templates', templatesRouter());
   app.use('/api/exports', exportsRouter(ctx));

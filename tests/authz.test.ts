@@ -251,6 +251,7 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/photos/:id', path: photoPath(''), allowed: 'signed-in' },
   { method: 'get', route: '/api/photos/:id/thumb', path: photoPath('/thumb'), allowed: 'signed-in' },
   { method: 'get', route: '/api/mail/messages', allowed: ['admin'] },
+  { method: 'get', route: '/api/jobs/dead-letters', allowed: ['admin'] },
   // Print-readiness analysis of an uploaded mesh: designers.
   {
     method: 'post',

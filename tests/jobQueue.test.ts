@@ -74,6 +74,15 @@ describe('in-process job queue', () => {
     expect(attempts[2].atMs - attempts[1].atMs).toBeGreaterThanOrEqual(200);
     const [row] = await dead();
     expect(row).toMatchObject({ jobName: 'test.failing', data: { n: 7 }, error: 'refused on attempt 3', attempts: 3 });
+    // Admins see it; nobody else does.
+    const listed = await (await t.agent('admin')).get('/api/jobs/dead-letters');
+    expect(listed.status).toBe(200);
+    expect(listed.body.deadLetters.find((d: { jobId: string }) => d.jobId === id)).toMatchObject({
+      jobName: 'test.failing',
+      error: 'refused on attempt 3',
+      attempts: 3,
+    });
+    expect((await (await t.agent('designer')).get('/api/jobs/dead-letters')).status).toBe(403);
   });
 
   it('aborts an attempt at its time limit and counts it as failed', async () => {
