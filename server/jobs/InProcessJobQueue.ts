@@ -30,6 +30,7 @@ export class InProcessJobQueue implements JobQueue {
   private readonly working = new Map<string, AnyJobDefinition>();
   private readonly timers = new Set<NodeJS.Timeout>();
   private stopped = false;
+  private wake: { timer: NodeJS.Timeout; atMs: number } | undefined;
 
   /** @param ctx - the app context handlers receive (read when a job runs, so it may be completed later) */
   constructor(private readonly ctx: () => AppContext) {}
@@ -86,6 +87,7 @@ export class InProcessJobQueue implements JobQueue {
       clearInterval(timer);
     }
     this.timers.clear();
+    this.wake = undefined;
     this.waiting.length = 0;
     for (const run of this.running.values()) run.abort.abort(new Error('the job queue stopped'));
     await Promise.all([...this.running.values()].map((r) => r.done));
@@ -93,15 +95,7 @@ export class InProcessJobQueue implements JobQueue {
 
   private enqueue(entry: WaitingJob): void {
     this.waiting.push(entry);
-    const delayMs = entry.runAtMs - Date.now();
-    if (delayMs > 0) {
-      const timer = setTimeout(() => {
-        this.timers.delete(timer);
-        this.pump();
-      }, delayMs);
-      timer.unref();
-      this.timers.add(timer);
-    } else queueMicrotask(() => this.pump());
+    queueMicrotask(() => this.pump());
   }
 
   private pump(): void {
@@ -116,6 +110,35 @@ export class InProcessJobQueue implements JobQueue {
       this.waiting.splice(i--, 1);
       this.launch(job, entry);
     }
+    this.armWake();
+  }
+
+  /**
+   * Keeps one timer for the earliest waiting job that is not due yet. `pump` checks due-ness with `Date.now()`,
+   * while timers run on the event loop's own millisecond clock and may fire up to a millisecond before that:
+   * a job found not due must get a new timer, or it would wait until something else wakes the queue.
+   */
+  private armWake(): void {
+    const now = Date.now();
+    let nextMs = Infinity;
+    for (const entry of this.waiting)
+      if (entry.runAtMs > now && this.working.has(entry.job.name)) nextMs = Math.min(nextMs, entry.runAtMs);
+    if (nextMs === Infinity || (this.wake && this.wake.atMs <= nextMs)) return;
+    if (this.wake) {
+      clearTimeout(this.wake.timer);
+      this.timers.delete(this.wake.timer);
+    }
+    const timer = setTimeout(
+      () => {
+        this.timers.delete(timer);
+        this.wake = undefined;
+        this.pump();
+      },
+      nextMs - now + 1,
+    );
+    timer.unref();
+    this.timers.add(timer);
+    this.wake = { timer, atMs: nextMs };
   }
 
   private launch(job: AnyJobDefinition, entry: WaitingJob): void {
