@@ -70,7 +70,7 @@ export class PgBossJobQueue implements JobQueue {
   start(): Promise<void> {
     this.starting ??= (async () => {
       await this.boss.start();
-      await this.boss.createQueue(DEAD_LETTER_QUEUE, { name: DEAD_LETTER_QUEUE, policy: 'standard', retryLimit: 5 });
+      await this.createQueueOnce(DEAD_LETTER_QUEUE, { name: DEAD_LETTER_QUEUE, policy: 'standard', retryLimit: 5 });
     })();
     return this.starting;
   }
@@ -144,13 +144,23 @@ export class PgBossJobQueue implements JobQueue {
       };
       ready = (async () => {
         await this.start();
-        await this.boss.createQueue(job.name, settings);
-        await this.boss.updateQueue(job.name, settings);
+        await this.createQueueOnce(job.name, settings);
+        await retryOnDeadlock(() => this.boss.updateQueue(job.name, settings));
       })();
       ready.catch(() => this.queues.delete(job.name));
       this.queues.set(job.name, ready);
     }
     return ready;
+  }
+
+  /**
+   * Creates a queue unless it exists. Creating one attaches a partition to pg-boss's job table; processes that
+   * start together and create different queues at once can deadlock in PostgreSQL, so the loser tries again.
+   */
+  private async createQueueOnce(name: string, settings: PgBoss.Queue): Promise<void> {
+    await retryOnDeadlock(async () => {
+      if (!(await this.boss.getQueue(name))) await this.boss.createQueue(name, settings);
+    });
   }
 
   /** One attempt of a job, aborted at its time limit (pg-boss also fails it then, and retries it). */
@@ -204,5 +214,20 @@ export class PgBossJobQueue implements JobQueue {
         }
       },
     );
+  }
+}
+
+/** PostgreSQL's error code for a transaction chosen as a deadlock victim. */
+const DEADLOCK_DETECTED = '40P01';
+
+/** Runs `work` again (after a short random pause) when PostgreSQL ends it as a deadlock victim; at most 8 tries. */
+async function retryOnDeadlock<R>(work: () => Promise<R>): Promise<R> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await work();
+    } catch (err) {
+      if ((err as { code?: string }).code !== DEADLOCK_DETECTED || attempt >= 8) throw err;
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200 * attempt));
+    }
   }
 }
