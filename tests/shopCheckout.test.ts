@@ -2,11 +2,13 @@
  * Shop API with the local payment fake: prices come from the server (tampering ignored), bad input names the
  * field, webhooks are verified with the SDK (bad signature 400, replay applied once, amount mismatch flagged),
  * a provider that is down gives 503 with nothing written, cancel refunds through the SDK, abandoned checkouts
- * expire, the customer's page opens only with its token. Expected amounts are our own arithmetic from the settings.
+ * expire, the customer's page opens only with its token, and the checkout limit holds across processes. Expected amounts are our own arithmetic from the settings.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { count, eq } from 'drizzle-orm';
 import { parse } from 'csv-parse/sync';
+import supertest from 'supertest';
+import { createApp } from '../server/app';
 import { auditEvents, mailOutbox, orders, paymentEvents } from '../server/db/schema';
 import { fakeClient, setPaymentRuntime, startPayments } from '../server/payments/paymentRuntime';
 import { PaymentEnvSchema } from '../server/payments/paymentEnv';
@@ -25,7 +27,7 @@ import {
   startShopTest,
   type ShopTest,
 } from './shopFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
 
 let t: TestApp;
 let shop: ShopTest;
@@ -357,5 +359,30 @@ describe('payments at start-up', () => {
     const runtime = await startPayments(other, { env: PaymentEnvSchema.parse({}) });
     expect(runtime.fake).not.toBeNull();
     await runtime.fake!.close();
+  });
+});
+
+describe('checkout rate limit', () => {
+  it('holds across two API processes sharing one database', async () => {
+    const before = process.env.CHECKOUT_RATE_LIMIT;
+    process.env.CHECKOUT_RATE_LIMIT = '3';
+    const limited = await makeTestApp();
+    try {
+      // A second app on the same database stands for a second API process (its own limiter instance).
+      const second = createApp(limited.ctx);
+      const attempt = (app: typeof second) =>
+        supertest(app).post('/api/shop/checkout').set('Origin', TEST_ORIGIN).send({ email: 'not an address' });
+      // Every checkout request counts, even one refused for its content (common practice, no source).
+      for (const app of [limited.app, second, limited.app]) expect((await attempt(app)).status).toBe(400);
+      for (const app of [second, limited.app]) {
+        const blocked = await attempt(app);
+        expect(blocked.status).toBe(429);
+        expect(blocked.body.error.code).toBe('too_many_checkouts');
+      }
+    } finally {
+      if (before === undefined) delete process.env.CHECKOUT_RATE_LIMIT;
+      else process.env.CHECKOUT_RATE_LIMIT = before;
+      await limited.close();
+    }
   });
 });

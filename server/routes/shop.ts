@@ -1,6 +1,6 @@
 /**
  * `/api/shop`: the public shop. Products and variants on sale, a quote of the cart, checkout (rate-limited per
- * client), the customer's private order page by token, sample photos, the 3D model and the spec sheet of a variant.
+ * client, counted in the database across processes), the customer's private order page by token, sample photos, the 3D model and the spec sheet of a variant.
  */
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
@@ -21,6 +21,7 @@ import type { AppContext } from '../context';
 import { HttpError, notFound } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { sendAttachment } from '../pdf/sendAttachment';
+import { DbRateLimitStore } from '../auth/DbRateLimitStore';
 import { loadPaymentEnv } from '../payments/paymentEnv';
 import { getVariantBySku } from '../services/catalogue';
 import { quoteCart, startCheckout } from '../services/checkoutService';
@@ -48,7 +49,9 @@ function siteOrigin(ctx: AppContext, req: Request): string {
  */
 export function shopRouter(ctx: AppContext): Router {
   const router = Router();
+  // Counted in the database (`rate_limit_hits`), so the limit holds across every API process.
   const checkoutLimiter = rateLimit({
+    store: new DbRateLimitStore(ctx.db, 'checkout:'),
     windowMs: CHECKOUT_WINDOW_MS,
     limit: loadPaymentEnv().CHECKOUT_RATE_LIMIT,
     standardHeaders: 'draft-8',
