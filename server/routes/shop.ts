@@ -1,6 +1,7 @@
 /**
  * `/api/shop`: the public shop. Products and variants on sale, a quote of the cart, checkout (rate-limited per
- * client, counted in the database across processes), the customer's private order page by token, sample photos, the 3D model and the spec sheet of a variant.
+ * client, counted in the database across processes), the customer's private order page by token, sample photos,
+ * the 3D model and the spec sheet of a variant.
  */
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
