@@ -3,11 +3,12 @@
  * nobody; allowed roles must get 2xx, other roles 403, nobody 401 (2xx for public routes).
  * Add one row for each route you add. Access rules are our own product decision (PRODUCT.md roles): no outside source.
  */
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../shared/schemas/auth';
 import { demoPersonId } from '../server/db/seedDemo';
 import { eq } from 'drizzle-orm';
-import { families, farmDispatches, farmRuns, people, studios } from '../server/db/schema';
+import { families, farmDispatches, farmRuns, jobDeadLetters, people, studios } from '../server/db/schema';
 import { listCatalogueVariants } from '../server/services/catalogue';
 import { planRun } from '../shared/planning/planRun';
 import { loadProductionCatalogue } from '../server/services/productionCatalogue';
@@ -252,6 +253,18 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/photos/:id/thumb', path: photoPath('/thumb'), allowed: 'signed-in' },
   { method: 'get', route: '/api/mail/messages', allowed: ['admin'] },
   { method: 'get', route: '/api/jobs/dead-letters', allowed: ['admin'] },
+  {
+    method: 'post',
+    route: '/api/jobs/dead-letters/:id/retry',
+    path: async (t) => `/api/jobs/dead-letters/${await newDeadLetter(t)}/retry`,
+    allowed: ['admin'],
+  },
+  {
+    method: 'post',
+    route: '/api/jobs/dead-letters/:id/discard',
+    path: async (t) => `/api/jobs/dead-letters/${await newDeadLetter(t)}/discard`,
+    allowed: ['admin'],
+  },
   // Print-readiness analysis of an uploaded mesh: designers.
   {
     method: 'post',
@@ -421,6 +434,15 @@ const ROUTES: AuthzRow[] = [
     body: { reason: 'authorization probe' },
   },
 ];
+
+/** A new dead letter of a job type this version has (one per call, so a retry in one case does not affect the next). */
+async function newDeadLetter(t: TestApp): Promise<number> {
+  const [row] = await t.ctx.db
+    .insert(jobDeadLetters)
+    .values({ jobName: 'checkout.expire', jobId: randomUUID(), data: {}, error: 'authorization probe', attempts: 4 })
+    .returning({ id: jobDeadLetters.id });
+  return row.id;
+}
 
 /** A new preset of the demo designer (one per call, so a delete in one case does not affect the next). */
 async function designerPresetPath(t: TestApp): Promise<string> {

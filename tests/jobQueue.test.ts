@@ -1,11 +1,12 @@
 /**
  * The job-queue interface on its in-process back end: idempotency keys, retries with exponential backoff, the time
- * limit, the dead-letter list and periodic jobs. Backoff doubling is common practice, no source.
+ * limit, the dead-letter list (retried or discarded by an admin) and periodic jobs. Backoff doubling is common
+ * practice, no source.
  */
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
-import { jobDeadLetters } from '../server/db/schema';
+import { auditEvents, jobDeadLetters } from '../server/db/schema';
 import { defineJob } from '../server/jobs/JobQueue';
 import { retryDelaySec } from '../server/jobs/jobTiming';
 import { makeTestApp, type TestApp } from './setup/testApp';
@@ -81,6 +82,66 @@ describe('in-process job queue', () => {
       attempts: 3,
     });
     expect((await (await t.agent('designer')).get('/api/jobs/dead-letters')).status).toBe(403);
+  });
+
+  it('lets an admin send a failed job again or discard it, once', async () => {
+    const admin = await t.agent('admin');
+    const insert = async (jobName: string, data: unknown) =>
+      (
+        await t.ctx.db
+          .insert(jobDeadLetters)
+          .values({ jobName, jobId: crypto.randomUUID(), data, error: 'the farm did not answer', attempts: 3 })
+          .returning()
+      )[0];
+    const known = await insert('checkout.expire', {});
+    const gone = await insert('test.no-longer-here', { n: 1 });
+    const waiting = await admin.get('/api/jobs/dead-letters');
+    expect(waiting.status).toBe(200);
+    expect(waiting.body.deadLetters.find((d: { id: number }) => d.id === known.id)).toMatchObject({
+      title: 'Closing abandoned checkouts',
+      error: 'the farm did not answer',
+      attempts: 3,
+      resolution: null,
+      retryable: true,
+    });
+    expect(waiting.body.waitingCount).toBeGreaterThanOrEqual(2);
+
+    const send = vi.spyOn(t.ctx.jobs, 'send');
+    try {
+      const retried = await admin.post(`/api/jobs/dead-letters/${known.id}/retry`);
+      expect(retried.status).toBe(200);
+      expect(retried.body).toMatchObject({ resolution: 'retried', resolvedByName: 'Joss Whitby' });
+      expect(send).toHaveBeenCalledTimes(1);
+      expect(send.mock.calls[0][0].name).toBe('checkout.expire');
+      expect(send.mock.calls[0][1]).toEqual({});
+      expect(send.mock.calls[0][2]).toEqual({ key: `retry:${known.id}` });
+      const again = await admin.post(`/api/jobs/dead-letters/${known.id}/retry`);
+      expect(again.status).toBe(409);
+      expect(again.body.error.message).toBe('This failed job was already sent again.');
+      expect(send).toHaveBeenCalledTimes(1);
+    } finally {
+      send.mockRestore();
+    }
+
+    const unknown = await admin.post(`/api/jobs/dead-letters/${gone.id}/retry`);
+    expect(unknown.status).toBe(409);
+    expect(unknown.body.error.code).toBe('unknown_job');
+    const discarded = await admin.post(`/api/jobs/dead-letters/${gone.id}/discard`);
+    expect(discarded.status).toBe(200);
+    expect(discarded.body.resolution).toBe('discarded');
+    expect((await admin.post(`/api/jobs/dead-letters/${gone.id}/discard`)).status).toBe(409);
+    expect((await admin.post('/api/jobs/dead-letters/999999/discard')).status).toBe(404);
+    expect((await admin.post('/api/jobs/dead-letters/abc/discard')).status).toBe(400);
+
+    const ids = (body: { deadLetters: Array<{ id: number }> }) => body.deadLetters.map((d) => d.id);
+    expect(ids((await admin.get('/api/jobs/dead-letters')).body)).not.toContain(known.id);
+    const handled = await admin.get('/api/jobs/dead-letters?show=handled');
+    expect(ids(handled.body)).toEqual(expect.arrayContaining([known.id, gone.id]));
+    const audit = await t.ctx.db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.subject, `dead-letter:${known.id}`));
+    expect(audit.map((event) => event.action)).toEqual(['job.retried']);
   });
 
   // Timers run on the event loop's millisecond clock and may fire a little before `Date.now()` reaches the job's

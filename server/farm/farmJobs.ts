@@ -33,6 +33,7 @@ export const FARM_ROUND_KEY = 'farm-round';
 /** `farm.round`: dispatch and reconcile in the process that runs the farm. */
 export const farmRoundJob = defineJob({
   name: 'farm.round',
+  title: 'Sending paid orders to the print farm and checking on them',
   data: z.object({}),
   retry: { limit: 2, delaySec: 5, backoff: true },
   timeLimitSec: 600,

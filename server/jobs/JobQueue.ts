@@ -31,6 +31,8 @@ export interface JobRun {
 export interface JobDefinition<T = unknown> {
   /** Queue name, dotted lower case (`mail.deliver`, `family.variant`). */
   name: string;
+  /** What the job does, in a few words for admins (the dead-letter list), e.g. `Sending e-mail`. */
+  title?: string;
   /** The payload's shape; checked when sending and again when running. */
   data: z.ZodType<T>;
   /** Retries after a failure or a time-out; when the last one fails the job goes to the dead-letter list. */

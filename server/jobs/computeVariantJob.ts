@@ -89,6 +89,7 @@ export async function notifyProgress(db: Pick<Db, 'execute'>, message: ProgressM
 /** Builds, evaluates and stores one variant; see the file comment. */
 export const computeVariantJob = defineJob({
   name: 'family.variant',
+  title: 'Computing one variant of a family',
   data: ComputeVariantDataSchema,
   retry: { limit: 3, delaySec: 2, backoff: true },
   timeLimitSec: VARIANT_TIME_LIMIT_SEC,

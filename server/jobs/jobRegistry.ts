@@ -6,6 +6,19 @@
 import { computeVariantJob } from './computeVariantJob';
 import type { AnyJobDefinition } from './JobQueue';
 import { expireCheckoutsJob } from '../payments/expireCheckoutsJob';
+import { deliverMailJob } from '../mail/deliverMailJob';
+import { farmRoundJob } from '../farm/farmJobs';
 
 /** The job types a worker runs. */
 export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob, expireCheckoutsJob];
+
+/** Every job type of this version, including those started with their service (mail, farm). */
+export const ALL_JOBS: readonly AnyJobDefinition[] = [...BACKGROUND_JOBS, deliverMailJob, farmRoundJob];
+
+/**
+ * The job type with this queue name, if this version has it (a dead letter may name one that is gone).
+ * @param name - e.g. `mail.deliver`
+ */
+export function jobNamed(name: string): AnyJobDefinition | undefined {
+  return ALL_JOBS.find((job) => job.name === name);
+}

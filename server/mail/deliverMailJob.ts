@@ -14,6 +14,7 @@ const DELIVER_LATER_KEY = 'later';
  */
 export const deliverMailJob = defineJob({
   name: 'mail.deliver',
+  title: 'Sending e-mail from the outbox',
   data: z.object({}),
   retry: { limit: 3, delaySec: 5, backoff: true },
   timeLimitSec: 120,

@@ -6,6 +6,7 @@ import { expireAbandonedCheckouts } from '../services/checkoutService';
 /** Every minute: cancel each unpaid order past its expiry (its session expired at the provider first). */
 export const expireCheckoutsJob = defineJob({
   name: 'checkout.expire',
+  title: 'Closing abandoned checkouts',
   data: z.object({}),
   retry: { limit: 3, delaySec: 30, backoff: true },
   timeLimitSec: 120,

@@ -1,10 +1,13 @@
-/** `/api/jobs`: background jobs that failed their last attempt (admin only), whichever queue back end ran them. */
-import { desc } from 'drizzle-orm';
+/**
+ * `/api/jobs` (admin only): background jobs that failed their last attempt, whichever queue back end ran them;
+ * send one again or discard it.
+ */
 import { Router } from 'express';
-import type { DeadLettersResponse } from '../../shared/schemas/jobs';
-import { requireRole } from '../auth/requireRole';
+import { DeadLetterParamsSchema, DeadLettersQuerySchema, type DeadLettersQuery } from '../../shared/schemas/jobs';
+import { requireRole, signedInPerson } from '../auth/requireRole';
 import type { AppContext } from '../context';
-import { jobDeadLetters } from '../db/schema';
+import { parsedParams, parsedQuery, validate } from '../http/validate';
+import { discardDeadLetter, listDeadLetters, retryDeadLetter } from '../services/deadLetterService';
 
 /**
  * Builds the jobs router (mounted at `/api/jobs`).
@@ -12,12 +15,19 @@ import { jobDeadLetters } from '../db/schema';
  */
 export function jobsRouter(ctx: AppContext): Router {
   const router = Router();
-  router.get('/dead-letters', requireRole('admin'), async (_req, res) => {
-    const rows = await ctx.db.select().from(jobDeadLetters).orderBy(desc(jobDeadLetters.id)).limit(200);
-    const body: DeadLettersResponse = {
-      deadLetters: rows.map((row) => ({ ...row, failedAt: row.failedAt.toISOString() })),
-    };
-    res.json(body);
+  router.use(requireRole('admin'));
+  const idParams = validate({ params: DeadLetterParamsSchema });
+
+  router.get('/dead-letters', validate({ query: DeadLettersQuerySchema }), async (_req, res) => {
+    res.json(await listDeadLetters(ctx, parsedQuery<DeadLettersQuery>(res)));
+  });
+
+  router.post('/dead-letters/:id/retry', idParams, async (_req, res) => {
+    res.json(await retryDeadLetter(ctx, parsedParams<{ id: number }>(res).id, signedInPerson(res).id));
+  });
+
+  router.post('/dead-letters/:id/discard', idParams, async (_req, res) => {
+    res.json(await discardDeadLetter(ctx, parsedParams<{ id: number }>(res).id, signedInPerson(res).id));
   });
   return router;
 }

@@ -4,6 +4,7 @@ import IconCatalogue from '../components/icons/IconCatalogue.vue';
 import IconDesigns from '../components/icons/IconDesigns.vue';
 import IconCheckFile from '../components/icons/IconCheckFile.vue';
 import IconFamilies from '../components/icons/IconFamilies.vue';
+import IconJobs from '../components/icons/IconJobs.vue';
 import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
 import IconReview from '../components/icons/IconReview.vue';
@@ -121,6 +122,14 @@ export const AREAS: readonly Area[] = [
     path: '/admin/mail',
     roles: ['admin'],
     icon: IconMail,
+  },
+  {
+    id: 'jobs',
+    label: 'Failed jobs',
+    description: 'Background work that failed every attempt: why, how often, when; run it again or discard it.',
+    path: '/admin/jobs',
+    roles: ['admin'],
+    icon: IconJobs,
   },
 ];
 

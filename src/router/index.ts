@@ -138,6 +138,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['operations', 'admin'], title: 'Farm exceptions' },
   },
   {
+    path: '/admin/jobs',
+    name: 'admin-jobs',
+    component: () => import('../views/AdminJobsView.vue'),
+    meta: { roles: ['admin'], title: 'Failed jobs' },
+  },
+  {
     path: '/admin/mail',
     name: 'admin-mail',
     component: () => import('../views/AdminMailView.vue'),
