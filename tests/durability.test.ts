@@ -47,7 +47,7 @@ function startServer(env: Record<string, string>): Promise<{ child: ChildProcess
   children.add(child);
   let output = '';
   return new Promise((done, fail) => {
-    const timer = setTimeout(() => fail(new Error(`the server did not start:\n${output}`)), 180_000);
+    const timer = setTimeout(() => fail(new Error(`the server did not start:\n${output}`)), 600_000);
     child.stdout!.on('data', (chunk: Buffer) => {
       output += chunk.toString();
       const ready = /Nestwright is ready at (\S+)/.exec(output);
