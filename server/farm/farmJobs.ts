@@ -1,13 +1,15 @@
 /**
  * The farm's background work on the job queue: one `farm.round` job sends due dispatch rows and, now and then,
  * reconciles quiet work orders. The outbox rows in the database are the state; the job only runs the work, so a
- * job lost in a restart costs nothing (the next round finds the rows). A process without a farm (no runtime) skips.
+ * job lost in a restart costs nothing (the next round finds the rows). A worker process reaches the farm from the
+ * settings or the fake an API process advertised (`farmForJob`); with no farm known yet, a single process skips and
+ * a worker fails the attempt (retried, then shown to admins as a failed job).
  */
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { defineJob } from '../jobs/JobQueue';
 import { dispatchDue } from './dispatchOrders';
-import { farmRuntime, type FarmRuntime } from './farmRuntime';
+import { farmForJob, type FarmRuntime } from './farmRuntime';
 import { reconcileFarm } from './reconcileFarm';
 
 const lastReconcile = new WeakMap<object, number>();
@@ -30,7 +32,7 @@ export async function farmRound(ctx: AppContext, runtime: FarmRuntime): Promise<
 /** Idempotency key of the round: while one waits, asking for another queues nothing. */
 export const FARM_ROUND_KEY = 'farm-round';
 
-/** `farm.round`: dispatch and reconcile in the process that runs the farm. */
+/** `farm.round`: dispatch and reconcile, in whichever process runs jobs (an API process or a worker). */
 export const farmRoundJob = defineJob({
   name: 'farm.round',
   title: 'Sending paid orders to the print farm and checking on them',
@@ -40,7 +42,11 @@ export const farmRoundJob = defineJob({
   concurrency: 1,
   everySec: 30,
   async handler(_data, { ctx }) {
-    const runtime = farmRuntime(ctx);
+    const runtime = await farmForJob(ctx);
     if (runtime) await farmRound(ctx, runtime);
+    else if (ctx.jobs.kind !== 'in-process')
+      throw new Error(
+        'no print farm is known yet: set FARM_API_URL, or start an API process (it starts the fake farm)',
+      );
   },
 });

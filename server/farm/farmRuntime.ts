@@ -7,6 +7,7 @@ import type { AppContext } from '../context';
 import { FakeFarm } from './FakeFarm';
 import { FarmClient } from './FarmClient';
 import { loadFarmEnv, type FarmEnv } from './farmEnv';
+import { advertiseEndpoint, findEndpoint } from '../services/serviceEndpoints';
 
 /** The farm parts running for one app context. */
 export interface FarmRuntime {
@@ -57,6 +58,8 @@ export async function startFarm(ctx: AppContext, options: StartFarmOptions): Pro
       noticeUrl: `${options.serverUrl}/api/webhooks/farm`,
     });
     baseUrl = await fake.listen(env.FARM_FAKE_PORT);
+    // Worker processes on this machine send to this fake too (see farmForJob).
+    await advertiseEndpoint(ctx.db, 'farm-fake', baseUrl);
   }
   const client = new FarmClient({ baseUrl, apiKey: env.FARM_API_KEY });
 
@@ -100,6 +103,30 @@ export async function startFarm(ctx: AppContext, options: StartFarmOptions): Pro
   runtimes.set(ctx, runtime);
   ctx.log(`  farm: ${fake ? `fake farm on ${baseUrl} at ${env.FARM_FAKE_SPEED}× speed` : `sending to ${baseUrl}`}`);
   return runtime;
+}
+
+/**
+ * The farm a job should use in this process: the one this process started, or else (a worker) a client of the farm
+ * in the settings (FARM_API_URL) or of the fake farm an API process on this machine advertised. Undefined when no
+ * farm is known yet. A worker's runtime has no timer and no fake; `nudge` does nothing (the API process that
+ * receives payments asks for rounds).
+ * @param ctx - the app context
+ */
+export async function farmForJob(ctx: AppContext): Promise<FarmRuntime | undefined> {
+  const own = runtimes.get(ctx);
+  if (own) return own;
+  const env = loadFarmEnv();
+  // Looked up every time: an API process that restarts starts its fake on a new port.
+  const baseUrl = env.FARM_API_URL ?? (await findEndpoint(ctx.db, 'farm-fake'));
+  if (!baseUrl) return undefined;
+  return {
+    client: new FarmClient({ baseUrl, apiKey: env.FARM_API_KEY }),
+    fake: null,
+    noticeSecret: env.FARM_NOTICE_SECRET ?? '',
+    env,
+    nudge: () => {},
+    stop: async () => {},
+  };
 }
 
 /** Stops the farm of an app. @param ctx - the app context */

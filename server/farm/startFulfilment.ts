@@ -30,7 +30,8 @@ export async function startFulfilment(
       await c.jobs.send(farmRoundJob, {}, { key: FARM_ROUND_KEY });
     },
   });
-  await ctx.jobs.work([farmRoundJob]);
+  // With JOBS_IN_API=false on PostgreSQL the workers run the rounds (they are in BACKGROUND_JOBS).
+  if (ctx.jobs.kind === 'in-process' || ctx.env.JOBS_IN_API) await ctx.jobs.work([farmRoundJob]);
   installDispatchHook();
   const unhook = wakeOnPayment(runtime);
   runtime.nudge(); // rows queued before a restart go out now

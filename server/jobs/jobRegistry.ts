@@ -9,11 +9,11 @@ import { expireCheckoutsJob } from '../payments/expireCheckoutsJob';
 import { deliverMailJob } from '../mail/deliverMailJob';
 import { farmRoundJob } from '../farm/farmJobs';
 
-/** The job types a worker runs. */
-export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob, expireCheckoutsJob];
+/** The job types a worker runs (and an API process that runs jobs). */
+export const BACKGROUND_JOBS: readonly AnyJobDefinition[] = [computeVariantJob, expireCheckoutsJob, farmRoundJob];
 
-/** Every job type of this version, including those started with their service (mail, farm). */
-export const ALL_JOBS: readonly AnyJobDefinition[] = [...BACKGROUND_JOBS, deliverMailJob, farmRoundJob];
+/** Every job type of this version, including mail, which the process that starts mail works. */
+export const ALL_JOBS: readonly AnyJobDefinition[] = [...BACKGROUND_JOBS, deliverMailJob];
 
 /**
  * The job type with this queue name, if this version has it (a dead letter may name one that is gone).

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { defineJob } from '../jobs/JobQueue';
 import { expireAbandonedCheckouts } from '../services/checkoutService';
+import { ensurePaymentsForJob } from './paymentsForJob';
 
 /** Every minute: cancel each unpaid order past its expiry (its session expired at the provider first). */
 export const expireCheckoutsJob = defineJob({
@@ -13,6 +14,11 @@ export const expireCheckoutsJob = defineJob({
   concurrency: 1,
   everySec: 60,
   async handler(_data, { ctx }) {
+    // A worker reaches the provider (or the fake an API process advertised); nothing known yet: the next run.
+    if (!(await ensurePaymentsForJob(ctx))) {
+      if (ctx.jobs.kind === 'in-process') return;
+      throw new Error('no payment service is known yet: set PAYMENT_SECRET_KEY, or start an API process');
+    }
     const cancelled = await expireAbandonedCheckouts(ctx);
     if (cancelled > 0) ctx.log(`  shop: ${cancelled} abandoned checkout(s) expired`);
   },

@@ -81,6 +81,11 @@ export function setPaymentRuntime(ctx: object, runtime: PaymentRuntime): void {
   runtimes.set(ctx, runtime);
 }
 
+/** Whether an app has payments running (started or set). @param ctx - the app context */
+export function hasPayments(ctx: object): boolean {
+  return runtimes.has(ctx);
+}
+
 /** Stops the fake of an app, if any. @param ctx - the app context */
 export async function stopPayments(ctx: object): Promise<void> {
   const runtime = runtimes.get(ctx);

@@ -1,8 +1,12 @@
-/** Starts and stops what the shop runs beside the HTTP server: payments (the provider's SDK, or its local fake). */
+/**
+ * Starts and stops what the shop runs beside the HTTP server: payments (the provider's SDK, or its local fake, whose
+ * address is advertised so that worker processes on this machine can reach it).
+ */
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { AppContext } from '../context';
 import { startPayments, stopPayments, type StartPaymentsOptions } from '../payments/paymentRuntime';
+import { advertiseEndpoint } from './serviceEndpoints';
 
 /**
  * Starts payments for a listening server: with no payment key the local fake starts and delivers its events to
@@ -22,6 +26,7 @@ export async function startShopServices(
     log: ctx.log,
     ...options,
   });
+  if (payments.fake) await advertiseEndpoint(ctx.db, 'payments-fake', `http://127.0.0.1:${payments.fake.port}`);
   ctx.log(
     payments.fake
       ? `  payments: local payment fake on port ${payments.fake.port} (no PAYMENT_SECRET_KEY set)`
