@@ -11,6 +11,7 @@ import { serveClient } from './http/serveClient';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
+import { homeRouter } from './routes/home';
 import { presetsRouter } from './routes/presets';
 import { familiesRouter } from './routes/families';
 import { catalogueRouter } from './routes/catalogue';
@@ -72,6 +73,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   app.use('/api/health', healthRouter());
   app.use('/api/auth', authRouter(ctx));
   app.use('/api/people', peopleRouter(ctx));
+  app.use('/api/home', homeRouter(ctx));
   app.use('/api/presets', presetsRouter(ctx));
   app.use('/api/families', familiesRouter(ctx));
   app.use('/api/catalogue', catalogueRouter(ctx));

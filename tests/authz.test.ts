@@ -123,6 +123,7 @@ const ROUTES: AuthzRow[] = [
     path: probePersonPath('reset-password'),
     allowed: ['admin'],
   },
+  { method: 'get', route: '/api/home/todo', allowed: 'signed-in' },
   { method: 'get', route: '/api/presets', allowed: ['designer'] },
   {
     method: 'post',

@@ -51,7 +51,8 @@ async function freePort(): Promise<number> {
   return port;
 }
 
-describe('workflow e-mail through the fake SMTP server', () => {
+// A family computed and two mail round trips on a shared machine: two minutes.
+describe('workflow e-mail through the fake SMTP server', { timeout: 120_000 }, () => {
   it('tells reviewers about a submit and the designer about a return, and lists the messages for the admin', async () => {
     const runtime = await startMail(t.ctx, {
       env: { SMTP_PORT: 0, MAIL_FROM: 'Nestwright <no-reply@fernhollow.test>' },
@@ -72,7 +73,13 @@ describe('workflow e-mail through the fake SMTP server', () => {
       .post(`/api/families/${family.id}/return`)
       .send({ comments: 'Please show the drainage holes in a photo — thanks!' });
     expect(back.status).toBe(200);
-    box = await until(mailbox, (b) => b.messages.some((m) => m.subject === `Sent back: ${title}`));
+    // The outbox row is marked sent just after the SMTP server accepted the message: wait for both.
+    box = await until(
+      mailbox,
+      (b) =>
+        b.messages.some((m) => m.subject === `Sent back: ${title}`) &&
+        b.outbox.some((o) => o.subject === `Sent back: ${title}` && o.status === 'sent'),
+    );
     const returned = box.messages.find((m) => m.subject === `Sent back: ${title}`);
     expect(returned?.to).toEqual(['maren@fernhollow.test']);
     // non-ASCII text survives the SMTP round trip (quoted-printable decoding)

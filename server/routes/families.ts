@@ -13,7 +13,6 @@ import {
   ReturnDecisionSchema,
   ReviewDecisionSchema,
   RevisionDiffQuerySchema,
-  TransitionSchema,
   type ReturnDecision,
   type ReviewDecision,
 } from '../../shared/schemas/review';
@@ -37,6 +36,7 @@ import {
   listVariants,
 } from '../services/families/familyQueries';
 import { transitionFamily } from '../services/families/familyTransitions';
+import { linkBase } from '../mail/linkBase';
 import { addPhoto } from '../services/photoService';
 
 /** Route parameter `:id`. */
@@ -161,18 +161,24 @@ export function familiesRouter(ctx: AppContext): Router {
     },
   );
 
-  const step = (action: FamilyAction) => async (_req: unknown, res: Parameters<RequestHandler>[1]) => {
-    const body = parsedBody<ReviewDecision & Partial<ReturnDecision>>(res);
-    const comment = action === 'return' ? body.comments : body.comment;
-    const family = await transitionFamily(ctx, signedInPerson(res), idOf(res), action, { ...body, comment });
-    res.json({ family });
-  };
+  const step =
+    (action: FamilyAction): RequestHandler =>
+    async (req, res) => {
+      const body = parsedBody<ReviewDecision & Partial<ReturnDecision>>(res);
+      const comment = action === 'return' ? body.comments : body.comment;
+      const family = await transitionFamily(ctx, signedInPerson(res), idOf(res), action, {
+        ...body,
+        comment: comment || undefined,
+        linkBase: linkBase(ctx.env, req),
+      });
+      res.json({ family });
+    };
   const bodies: Record<FamilyAction, z.ZodType> = {
-    submit: TransitionSchema,
+    submit: ReviewDecisionSchema,
     approve: ReviewDecisionSchema,
     return: ReturnDecisionSchema,
-    publish: TransitionSchema,
-    retire: TransitionSchema,
+    publish: ReviewDecisionSchema,
+    retire: ReviewDecisionSchema,
   };
   for (const action of Object.keys(FAMILY_TRANSITIONS) as FamilyAction[]) {
     const guard = FAMILY_TRANSITIONS[action].role === 'designer' ? designers : managers;

@@ -36,14 +36,20 @@ export const TransitionSchema = TransitionGuardSchema.strict();
 /** Body of submit, publish and retire. */
 export type Transition = z.infer<typeof TransitionSchema>;
 
-/** Body of `POST /api/families/:id/approve`. */
-export const ReviewDecisionSchema = TransitionGuardSchema.extend({ comment: z.string().trim().max(2000).optional() });
-/** Body of `POST /api/families/:id/approve`. */
+/** A note with a workflow step, kept with the revision, in the family's history and in the e-mail. */
+export const StepNoteSchema = z.string().trim().max(2000, 'A note can be at most 2,000 characters long.');
+
+/**
+ * Body of `POST /api/families/:id/approve`, `/submit`, `/publish` and `/retire`: an optional note (an empty one is
+ * the same as none).
+ */
+export const ReviewDecisionSchema = TransitionGuardSchema.extend({ comment: StepNoteSchema.optional() });
+/** Body of approve, submit, publish and retire. */
 export type ReviewDecision = z.infer<typeof ReviewDecisionSchema>;
 
 /** Body of `POST /api/families/:id/return`: comments are required. */
 export const ReturnDecisionSchema = TransitionGuardSchema.extend({
-  comments: z.string().trim().min(1, 'comments are required').max(2000),
+  comments: StepNoteSchema.min(1, 'Say what should change before the family can be approved.'),
 });
 /** Body of `POST /api/families/:id/return`. */
 export type ReturnDecision = z.infer<typeof ReturnDecisionSchema>;

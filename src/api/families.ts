@@ -12,7 +12,6 @@ import {
   type ReturnDecision,
   type ReviewDecision,
   type RevisionDiff,
-  type Transition,
 } from '../../shared/schemas/review';
 import { type AcknowledgementsCreate } from '../../shared/schemas/gate';
 import {
@@ -127,18 +126,18 @@ export async function acknowledgeWarnings(id: string, body: AcknowledgementsCrea
 
 /** The body each workflow action takes. */
 export interface TransitionBodies {
-  submit: Transition;
+  submit: ReviewDecision;
   approve: ReviewDecision;
   return: ReturnDecision;
-  publish: Transition;
-  retire: Transition;
+  publish: ReviewDecision;
+  retire: ReviewDecision;
 }
 
 /**
  * Runs a workflow action (409 `gate_failed`, `invalid_state` or `state_changed` when it cannot happen now).
  * @param id - family id
  * @param action - submit, approve, return, publish or retire
- * @param body - the action's body (comments for return)
+ * @param body - the action's body: guards, and a note (`comments`, required, for return; `comment` otherwise)
  */
 export async function transitionFamily<A extends FamilyAction>(
   id: string,

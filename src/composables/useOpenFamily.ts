@@ -1,6 +1,7 @@
 import { computed, onMounted, ref, watch, type ComputedRef, type Ref } from 'vue';
 import { useRoute } from 'vue-router';
 import type { Family } from '../../shared/schemas/family';
+import type { ParameterDescription } from '../../templates/types';
 import { findTemplateSummary } from '../api/templates';
 import { useFamiliesStore } from '../stores/families';
 
@@ -14,6 +15,8 @@ export interface OpenFamily {
   error: Ref<string | null>;
   /** Parameter labels of the family's template, by parameter key (empty when the template could not be read). */
   axisLabels: Ref<Record<string, string>>;
+  /** The parameter descriptions (labels, units) of the family's template; empty when it could not be read. */
+  parameters: Ref<ParameterDescription[]>;
   /** The open family once the store holds it; null before. */
   family: ComputedRef<Family | null>;
   /** Opens (or reopens) the family and reads its template's labels. */
@@ -31,6 +34,7 @@ export function useOpenFamily(): OpenFamily {
   const loading = ref(true);
   const error = ref<string | null>(null);
   const axisLabels = ref<Record<string, string>>({});
+  const parameters = ref<ParameterDescription[]>([]);
   const family = computed<Family | null>(() => (families.current?.id === id.value ? families.current : null));
 
   async function load(): Promise<void> {
@@ -38,7 +42,8 @@ export function useOpenFamily(): OpenFamily {
       error.value = null;
       const opened = await families.open(id.value);
       const template = await findTemplateSummary(opened.templateId).catch(() => undefined);
-      axisLabels.value = Object.fromEntries((template?.parameters ?? []).map((param) => [param.key, param.label]));
+      parameters.value = template?.parameters ?? [];
+      axisLabels.value = Object.fromEntries(parameters.value.map((param) => [param.key, param.label]));
     } catch (err) {
       error.value = err instanceof Error ? err.message : String(err);
     } finally {
@@ -48,5 +53,5 @@ export function useOpenFamily(): OpenFamily {
   onMounted(load);
   watch(id, load);
 
-  return { id, loading, error, axisLabels, family, load };
+  return { id, loading, error, axisLabels, parameters, family, load };
 }

@@ -83,7 +83,7 @@ export const useFamiliesStore = defineStore('families', () => {
    * view (the server answers 409 `state_changed` when someone else acted first).
    * @param id - family id
    * @param action - the action
-   * @param comments - comments (required for return, optional for approve)
+   * @param comments - the note (required for return, optional for every other step)
    */
   async function act(id: string, action: FamilyAction, comments?: string): Promise<Family> {
     const seen = current.value?.id === id ? current.value : null;
@@ -91,9 +91,7 @@ export const useFamiliesStore = defineStore('families', () => {
     let family: Family;
     if (action === 'return')
       family = await familiesApi.transitionFamily(id, 'return', { ...guard, comments: comments ?? '' });
-    else if (action === 'approve')
-      family = await familiesApi.transitionFamily(id, 'approve', comments ? { ...guard, comment: comments } : guard);
-    else family = await familiesApi.transitionFamily(id, action, guard);
+    else family = await familiesApi.transitionFamily(id, action, comments ? { ...guard, comment: comments } : guard);
     return keep(family);
   }
 

@@ -255,6 +255,9 @@ describe('variant families: build, review, publish, catalogue', () => {
     expect(await page.getByTestId('action-approve').count()).toBe(0);
 
     await page.getByTestId('action-submit').click();
+    // Submitting asks for an optional note, kept in the history.
+    await page.locator('#step-note').fill('Ready for the spring list.');
+    await page.getByTestId('confirm-step').click();
     await page.waitForFunction(() =>
       document.querySelector('[data-testid="family-state"]')?.textContent?.includes('In review'),
     );
@@ -286,11 +289,15 @@ describe('variant families: build, review, publish, catalogue', () => {
     await page.screenshot({ path: `${SHOTS}/review-family.png`, fullPage: true });
 
     await page.getByTestId('action-approve').click();
+    await page.locator('#step-note').fill('Photos are clear; approved for the spring list.');
+    await page.getByTestId('confirm-step').click();
     await page.waitForFunction(() =>
       document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Approved'),
     );
+    // The note is shown with the family.
+    await page.getByTestId('review-comments').getByText('Photos are clear; approved for the spring list.').waitFor();
     await page.getByTestId('action-publish').click();
-    await page.locator('.n-dialog').getByRole('button', { name: 'Publish', exact: true }).click();
+    await page.getByTestId('confirm-step').click();
     await page.waitForFunction(() =>
       document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Published'),
     );
@@ -395,10 +402,10 @@ describe('variant families: build, review, publish, catalogue', () => {
     await page.goto(`/review/${returnedId}`);
     await page.getByTestId('action-return').click();
     // The send-back button stays disabled until comments are written.
-    await expect(page.getByTestId('confirm-return').isDisabled()).resolves.toBe(true);
+    await expect(page.getByTestId('confirm-step').isDisabled()).resolves.toBe(true);
     const comments = 'Please add a drainage note to the listing and a photo of the 32 mm sample.';
-    await page.locator('#return-comments').fill(comments);
-    await page.getByTestId('confirm-return').click();
+    await page.locator('#step-note').fill(comments);
+    await page.getByTestId('confirm-step').click();
     await page.waitForFunction(() =>
       document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Draft'),
     );
@@ -542,10 +549,10 @@ describe('variant families: build, review, publish, catalogue', () => {
     await page.getByTestId('queue-published').getByTestId(`review-${published!.code}`).click();
     await page.getByTestId('action-retire').click();
     // Nothing happens before the confirmation.
-    await page.locator('.n-dialog').getByRole('button', { name: 'Not now' }).click();
+    await page.getByTestId('cancel-step').click();
     await expect(textOf(page, 'family-state')).resolves.toBe('Published');
     await page.getByTestId('action-retire').click();
-    await page.locator('.n-dialog').getByRole('button', { name: 'Retire', exact: true }).click();
+    await page.getByTestId('confirm-step').click();
     await page.waitForFunction(() =>
       document.querySelector('[data-testid="family-state"]')?.textContent?.includes('Retired'),
     );
@@ -554,6 +561,10 @@ describe('variant families: build, review, publish, catalogue', () => {
       200,
     );
     expect(after.variants.some((v) => v.family.id === published!.id)).toBe(false);
+    // A retired family stays findable on the manager's screen, under the Retired filter.
+    await page.goto('/review');
+    await page.getByTestId('queue-filter').getByText('Retired', { exact: false }).click();
+    await page.getByTestId('queue-retired').getByTestId(`review-${published!.code}`).waitFor();
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();
   }, 60_000);

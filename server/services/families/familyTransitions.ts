@@ -1,5 +1,5 @@
 /** Workflow steps on a family (submit, approve, return, publish, retire) with their audit events and e-mails. */
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { FAMILY_TRANSITIONS, transitionRefusal } from '../../../shared/families/familyWorkflow';
 import type { Person } from '../../../shared/schemas/auth';
 import type { FamilyAction } from '../../../shared/schemas/familySpec';
@@ -19,24 +19,40 @@ import { familySubject, invalidState, loadFamily, stateChanged, viewFamily, type
 export interface TransitionInput {
   expectedRevision?: number;
   expectedLock?: number;
-  /** Reviewer's comment (approve) or required comments (return). */
+  /** A note with the step: optional for submit, approve, publish and retire; required for return. */
   comment?: string;
+  /** Start of the absolute links in the e-mails (server/mail/linkBase.ts); `http://localhost:<PORT>` if absent. */
+  linkBase?: string;
 }
 
+/** E-mail addresses of the active people holding a role. */
 async function emailsOfRole(db: Queryable, role: 'catalogue_manager'): Promise<string[]> {
   const rows = await db
     .select({ email: people.email })
     .from(people)
-    .where(sql`${role} = any(${people.roles})`);
+    .where(and(sql`${role} = any(${people.roles})`, isNull(people.deactivatedAt)));
   return rows.map((row) => row.email);
 }
 
+/** E-mail addresses of these people, leaving out anyone deactivated. */
 async function emailsOf(db: Queryable, ids: Array<string | null>): Promise<string[]> {
   const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
   if (wanted.length === 0) return [];
-  const rows = await db.select({ email: people.email }).from(people).where(inArray(people.id, wanted));
+  const rows = await db
+    .select({ email: people.email })
+    .from(people)
+    .where(and(inArray(people.id, wanted), isNull(people.deactivatedAt)));
   return rows.map((row) => row.email);
 }
+
+/** What the mail of each step says: its subject verb and the sentence's verb. */
+const MAIL_VERBS: Record<FamilyAction, { subject: string; past: string }> = {
+  submit: { subject: 'Review requested', past: 'submitted' },
+  approve: { subject: 'Approved', past: 'approved' },
+  return: { subject: 'Sent back', past: 'sent back' },
+  publish: { subject: 'Published', past: 'published' },
+  retire: { subject: 'Retired', past: 'retired' },
+};
 
 /**
  * A workflow step on a family: submit (designer, gate must pass), approve, return, publish, retire (catalogue
@@ -138,23 +154,28 @@ export async function transitionFamily(
         ...(action === 'publish' && family.publishedRevision ? { replaces: family.publishedRevision } : {}),
       },
     });
-    const link = `${ctx.env.PUBLIC_ORIGIN ?? ''}/families/${id}`;
+    const base = input.linkBase ?? `http://localhost:${ctx.env.PORT}`;
     const title = `${target.name} (${family.code}) revision ${target.number}`;
-    if (action === 'submit') {
-      await queueMail(tx, {
-        to: await emailsOfRole(tx, 'catalogue_manager'),
-        subject: `Review requested: ${title}`,
-        text: `${person.name} submitted ${title} for review: ${target.computeTotal} variants, all through the family gate.\n\nReview it: ${link}\n`,
-      });
-    } else if (action === 'approve' || action === 'return') {
-      const verb = action === 'approve' ? 'Approved' : 'Sent back';
-      const note = input.comment ? `\n\nComments from ${person.name}:\n${input.comment}\n` : '\n';
-      await queueMail(tx, {
-        to: await emailsOf(tx, [family.ownerId, target.createdBy]),
-        subject: `${verb}: ${title}`,
-        text: `${person.name} ${action === 'approve' ? 'approved' : 'sent back'} ${title}.${note}\n${link}\n`,
-      });
-    }
+    const designers = await emailsOf(tx, [family.ownerId, target.createdBy]);
+    // Who hears of each step: managers review what is submitted; the designer hears every decision; publishing
+    // and retiring change the catalogue, so the catalogue managers hear of them too.
+    const to =
+      action === 'submit'
+        ? await emailsOfRole(tx, 'catalogue_manager')
+        : action === 'approve' || action === 'return'
+          ? designers
+          : [...new Set([...designers, ...(await emailsOfRole(tx, 'catalogue_manager'))])];
+    const { subject, past } = MAIL_VERBS[action];
+    const lines = [`${person.name} ${past} ${title}.`];
+    if (action === 'submit') lines.push(`${target.computeTotal} variants, all through the family gate.`);
+    if (action === 'publish') lines.push(`Its ${target.computeTotal} variants are in the catalogue now.`);
+    if (action === 'retire') lines.push('Its variants have left the catalogue; the family and its history stay.');
+    if (input.comment) lines.push('', `Note from ${person.name}:`, input.comment);
+    // One address for everyone: the client sends a catalogue manager who is not a designer on to the review page.
+    lines.push('', `${action === 'submit' ? 'Review it' : 'Open it'}: ${base}/families/${id}`);
+    // The person acting knows what they did; everyone else concerned is told.
+    const recipients = to.filter((email) => email !== person.email);
+    await queueMail(tx, { to: recipients, subject: `${subject}: ${title}`, text: `${lines.join('\n')}\n` });
   });
   // A publish or a retire changes the catalogue and the shop; any step changes what the family shows.
   catalogueChanged(ctx.db);
