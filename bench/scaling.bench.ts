@@ -109,10 +109,11 @@ async function computeFamily(base: string, code: string): Promise<{ variants: nu
   });
   if (created.status !== 201) throw new Error(`family not created: ${created.status} ${await created.text()}`);
   const familyId = ((await created.json()) as { family: { id: string } }).family.id;
-  const stream = await call(`/api/families/${familyId}/progress`);
   const started = performance.now();
   const compute = await call(`/api/families/${familyId}/compute`, { method: 'POST', body: '{}' });
   if (compute.status !== 202) throw new Error(`compute not started: ${compute.status}`);
+  // Opened after the start: before it, the stream reports the family as it was (not computed).
+  const stream = await call(`/api/families/${familyId}/progress`);
   const reader = stream.body!.pipeThrough(new TextDecoderStream()).getReader();
   let buffer = '';
   let total = 0;
@@ -125,8 +126,11 @@ async function computeFamily(base: string, code: string): Promise<{ variants: nu
       const block = buffer.slice(0, end);
       buffer = buffer.slice(end + 2);
       const data = block.split('\n').find((line) => line.startsWith('data: '));
-      if (data) total = (JSON.parse(data.slice(6)) as { total: number }).total || total;
+      const event = data ? (JSON.parse(data.slice(6)) as { total: number; doneCount: number }) : undefined;
+      if (event) total = event.total || total;
       if (block.startsWith('event: done')) {
+        if (!event || event.doneCount !== event.total || event.total === 0)
+          throw new Error(`the family ended with ${event?.doneCount ?? 0} of ${event?.total ?? 0} variants done`);
         const seconds = (performance.now() - started) / 1000;
         await reader.cancel();
         return { variants: total, seconds };
