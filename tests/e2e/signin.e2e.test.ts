@@ -211,7 +211,7 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
 
     await page.getByRole('button', { name: 'Edit Wren Ashdown' }).click();
     await page.getByRole('dialog').getByRole('checkbox', { name: 'Sales' }).click();
-    await page.getByRole('dialog').getByRole('button', { name: 'Save roles' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Save', exact: true }).click();
     await page.getByRole('dialog').waitFor({ state: 'detached' });
     const row = page.getByRole('row').filter({ hasText: 'wren@fernhollow.test' });
     expect(await row.textContent()).toContain('Sales');
@@ -231,7 +231,7 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: `Edit ${admin.name}` }).click();
     await page.getByRole('dialog').getByRole('checkbox', { name: 'Designer' }).click();
     await page.getByRole('dialog').getByRole('checkbox', { name: 'Admin' }).click();
-    await page.getByRole('dialog').getByRole('button', { name: 'Save roles' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Save', exact: true }).click();
     await page.getByRole('dialog').getByText('The studio needs at least one admin').waitFor();
     await settle(page);
     await page.screenshot({ path: `${SHOTS}/admin-last-admin.png` });
