@@ -40,6 +40,8 @@ describe('admin account actions and change password', { timeout: 120_000 }, () =
     expect(generated).toMatch(/^[a-z2-9]{4}(-[a-z2-9]{4}){3}$/);
     await admin.screenshot({ path: `${SHOTS}/people-password-once.png` });
     await admin.getByRole('button', { name: 'Done' }).click();
+    // Shown once: gone when the dialog has closed (it fades out, so wait for it to leave the page).
+    await shown.waitFor({ state: 'detached' });
     await expect(shown.count()).resolves.toBe(0);
 
     const person = await e2e.newPage();
