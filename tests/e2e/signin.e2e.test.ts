@@ -34,6 +34,8 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
     await page.goto('/admin/people');
     await page.waitForURL((url) => url.pathname === '/sign-in');
     expect(new URL(page.url()).searchParams.get('next')).toBe('/admin/people');
+    // The staff screens load lazily after the address changes: wait for the heading, then check it is shown.
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
     await expect(page.getByRole('heading', { name: 'Sign in' }).isVisible()).resolves.toBe(true);
     await settle(page);
     await page.screenshot({ path: `${SHOTS}/sign-in.png` });
