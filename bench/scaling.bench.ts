@@ -5,76 +5,18 @@
  * `BENCH_DATABASE_URL` (or `TEST_DATABASE_URL`; `bash .ci/postgres.sh` starts one and prints it). Each round gets a
  * new database copied from a migrated and seeded template; everything is dropped at the end.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtemp, rm } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { availableParallelism, tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
-import pg from 'pg';
+import { join } from 'node:path';
 import { migrateDatabase, openPostgres } from '../server/db/client';
 import { seedIfNew } from '../server/db/seed';
 import { DEMO_PASSWORD } from '../server/db/seedDemo';
+import { adminSql, benchDatabaseBase, urlFor } from './lib/benchDatabase';
+import { API_READY, freePort, startProcess, tsxEntry, WORKER_READY, type ServerProcess } from './lib/serverProcess';
 
-const ROOT = resolve(import.meta.dirname, '..');
 const WORKER_COUNTS = [1, 2, 4];
 /** 16 entry-hole sizes x 2 colours. */
 const ENTRY_HOLES_MM = Array.from({ length: 16 }, (_, i) => 26 + i * 0.5);
-
-function urlFor(base: string, database: string): string {
-  const url = new URL(base);
-  url.pathname = `/${database}`;
-  return url.toString();
-}
-
-async function adminSql(base: string, statement: string): Promise<void> {
-  const client = new pg.Client({ connectionString: base, application_name: 'nestwright bench' });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
-}
-
-async function freePort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
-  const { port } = server.address() as { port: number };
-  await new Promise<void>((done) => server.close(() => done()));
-  return port;
-}
-
-/** Starts `server/<entry>.ts` and resolves when it prints `ready`. */
-function start(entry: string, env: Record<string, string>, ready: RegExp): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', `server/${entry}.ts`], {
-    cwd: ROOT,
-    env: { ...process.env, ...env },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let output = '';
-  return new Promise((done, fail) => {
-    child.stdout!.on('data', (chunk: Buffer) => {
-      output += chunk.toString();
-      if (ready.test(output)) done(child);
-    });
-    child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.once('exit', (code) => fail(new Error(`${entry} exited with ${code}:\n${output}`)));
-  });
-}
-
-async function stop(children: ChildProcess[]): Promise<void> {
-  await Promise.all(
-    children.map(
-      (child) =>
-        new Promise<void>((done) => {
-          if (child.exitCode !== null || child.signalCode !== null) return done();
-          child.once('exit', () => done());
-          child.kill('SIGTERM');
-          setTimeout(() => child.kill('SIGKILL'), 15_000).unref();
-        }),
-    ),
-  );
-}
 
 /** Creates a family through the API, computes it and resolves with the variant count and the seconds it took. */
 async function computeFamily(base: string, code: string): Promise<{ variants: number; seconds: number }> {
@@ -141,7 +83,7 @@ async function computeFamily(base: string, code: string): Promise<{ variants: nu
 
 /** Prints the figures. */
 export default async function bench(): Promise<void> {
-  const base = process.env.BENCH_DATABASE_URL || process.env.TEST_DATABASE_URL;
+  const base = benchDatabaseBase();
   if (!base) {
     console.log('skipped: set BENCH_DATABASE_URL (a PostgreSQL role that may create databases; .ci/postgres.sh)');
     return;
@@ -171,15 +113,25 @@ export default async function bench(): Promise<void> {
         JOB_POLL_SEC: '0.5',
       };
       const port = await freePort();
-      const children: ChildProcess[] = [];
+      const children: ServerProcess[] = [];
       try {
-        children.push(await start('index', { ...env, PORT: String(port), JOBS_IN_API: 'false' }, /is ready at/));
-        for (let i = 0; i < workers; i++) children.push(await start('worker', env, /is taking jobs/));
+        children.push(
+          await startProcess({
+            label: 'api',
+            args: tsxEntry('index'),
+            env: { ...env, PORT: String(port), JOBS_IN_API: 'false' },
+            ready: API_READY,
+          }),
+        );
+        for (let i = 0; i < workers; i++)
+          children.push(
+            await startProcess({ label: `worker-${i + 1}`, args: tsxEntry('worker'), env, ready: WORKER_READY }),
+          );
         const result = await computeFamily(`http://localhost:${port}`, `BW${workers}`);
         rows.push({ workers, ...result, perSec: result.variants / result.seconds });
         console.log(`  ${workers} worker(s): ${result.variants} variants in ${result.seconds.toFixed(1)} s`);
       } finally {
-        await stop(children);
+        await Promise.all(children.map((child) => child.stop()));
       }
     }
     const one = rows[0].perSec;

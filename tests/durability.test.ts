@@ -7,16 +7,15 @@
  * An acknowledged write surviving a crash is the durability property of ACID transactions (common practice, no
  * source).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { mkdtemp, rm } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, describe, expect, it, inject } from 'vitest';
+import { API_READY, freePort, startProcess, tsxEntry } from '../bench/lib/serverProcess';
 import { DEMO_PASSWORD } from '../server/db/seedDemo';
 import { createDatabaseFrom, databaseUrl, dropDatabase, TEST_DATABASE_URL } from './setup/postgresTestDb';
 
-const ROOT = resolve(import.meta.dirname, '..');
 const CYCLES = 10;
 const WRITES_PER_CYCLE = 12;
 const ORDERS_PER_CYCLE = 3;
@@ -30,39 +29,17 @@ afterAll(async () => {
   for (const cleanup of cleanups) await cleanup();
 });
 
-async function freePort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
-  const { port } = server.address() as { port: number };
-  await new Promise<void>((done) => server.close(() => done()));
-  return port;
-}
-
 /** Starts the production entry and resolves with the process and its address once it is ready. */
-function startServer(env: Record<string, string>): Promise<{ child: ChildProcess; base: string }> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: ROOT,
-    env: { ...process.env, NODE_ENV: 'test', ...env },
-    stdio: ['ignore', 'pipe', 'pipe'],
+async function startServer(env: Record<string, string>): Promise<{ child: ChildProcess; base: string }> {
+  const started = await startProcess({
+    label: 'server',
+    args: tsxEntry('index'),
+    env: { NODE_ENV: 'test', ...env },
+    ready: API_READY,
+    timeoutMs: 600_000,
   });
-  children.add(child);
-  let output = '';
-  return new Promise((done, fail) => {
-    const timer = setTimeout(() => fail(new Error(`the server did not start:\n${output}`)), 600_000);
-    child.stdout!.on('data', (chunk: Buffer) => {
-      output += chunk.toString();
-      const ready = /Nestwright is ready at (\S+)/.exec(output);
-      if (ready) {
-        clearTimeout(timer);
-        done({ child, base: ready[1] });
-      }
-    });
-    child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.once('exit', (code, signal) => {
-      clearTimeout(timer);
-      if (signal !== 'SIGKILL') fail(new Error(`the server exited with ${code}:\n${output}`));
-    });
-  });
+  children.add(started.child);
+  return { child: started.child, base: started.url };
 }
 
 /** Kills a server with SIGKILL and waits until it is gone. */

@@ -5,53 +5,25 @@
  * event per SKU, the done count equals the variant count) and progress reaches API B throughout.
  * Exactly-once and crash recovery are our own product rules (common practice, no source).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { mkdtemp, rm } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import { API_READY, freePort, startProcess, tsxEntry, WORKER_READY } from '../bench/lib/serverProcess';
 import { DEMO_PASSWORD } from '../server/db/seedDemo';
 import { createDatabaseFrom, databaseUrl, dropDatabase, TEST_DATABASE_URL } from './setup/postgresTestDb';
 
-const ROOT = resolve(import.meta.dirname, '..');
 const children: ChildProcess[] = [];
 let dbName: string;
 let dataDir: string;
 
-async function freePort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
-  const { port } = server.address() as { port: number };
-  await new Promise<void>((done) => server.close(() => done()));
-  return port;
-}
-
-/** Starts `server/<entry>.ts` under tsx and resolves when it prints `readyLine`. */
-function start(entry: string, env: Record<string, string>, readyLine: RegExp): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', `server/${entry}.ts`], {
-    cwd: ROOT,
-    env: { ...process.env, ...env },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  children.push(child);
-  let output = '';
-  return new Promise((done, fail) => {
-    const timer = setTimeout(() => fail(new Error(`${entry} did not start:\n${output}`)), 240_000);
-    const onData = (chunk: Buffer) => {
-      output += chunk.toString();
-      if (readyLine.test(output)) {
-        clearTimeout(timer);
-        done(child);
-      }
-    };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.once('exit', (code) => {
-      clearTimeout(timer);
-      fail(new Error(`${entry} exited with ${code}:\n${output}`));
-    });
-  });
+/** Starts `server/<entry>.ts` under tsx and resolves when it is ready; kept to be killed at the end. */
+async function start(entry: 'index' | 'worker', env: Record<string, string>): Promise<ChildProcess> {
+  const ready = entry === 'index' ? API_READY : WORKER_READY;
+  const started = await startProcess({ label: entry, args: tsxEntry(entry), env, ready, timeoutMs: 240_000 });
+  children.push(started.child);
+  return started.child;
 }
 
 /** A signed-in client of one API process (cookie kept by hand). */
@@ -94,13 +66,11 @@ describe.skipIf(!TEST_DATABASE_URL)('two API processes and two workers on one Po
       FAMILY_VARIANT_TIME_LIMIT_SEC: '20',
     };
     const [portA, portB] = [await freePort(), await freePort()];
-    const ready = /Nestwright is ready at/;
-    const taking = /is taking jobs/;
     const started = await Promise.all([
-      start('index', { ...common, PORT: String(portA), JOBS_IN_API: 'false' }, ready),
-      start('index', { ...common, PORT: String(portB), JOBS_IN_API: 'false' }, ready),
-      start('worker', common, taking),
-      start('worker', common, taking),
+      start('index', { ...common, PORT: String(portA), JOBS_IN_API: 'false' }),
+      start('index', { ...common, PORT: String(portB), JOBS_IN_API: 'false' }),
+      start('worker', common),
+      start('worker', common),
     ]);
     workers = started.slice(2);
     apiA = `http://localhost:${portA}`;
