@@ -3,14 +3,12 @@
  * through the order service (the dispatch row is written in the payment's transaction), prints `PAID <id> <number>`
  * and then hangs without ever starting the farm, so the parent can kill it between payment and dispatch.
  */
-import { randomBytes } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import { openDatabase } from '../../../server/db/client';
 import { installDispatchHook } from '../../../server/farm/dispatchOrders';
-import { listCatalogueVariants } from '../../../server/services/catalogue';
-import { createFromCheckout, markPaid } from '../../../server/services/orderService';
 import { createContext } from '../../../server/context';
 import { EnvSchema } from '../../../server/env';
+import { payOneUnitOrder } from '../paidOrder';
 
 const dataDir = process.env.DATA_DIR!;
 const snapshot = process.env.SNAPSHOT_PATH!;
@@ -20,12 +18,7 @@ const { pg, db } = await openDatabase({
 });
 const ctx = createContext({ db, pg, env: EnvSchema.parse({ NODE_ENV: 'test' }), log: () => undefined });
 installDispatchHook();
-const [variant] = await listCatalogueVariants(ctx, {});
-const id = crypto.randomUUID();
-const unit = variant.priceCents;
-const order = await createFromCheckout(db, {
-  id,
-  customerToken: randomBytes(32).toString('base64url'),
+const order = await payOneUnitOrder(ctx, {
   email: 'crash.test@example.test',
   shipTo: {
     name: 'Crash Test',
@@ -36,31 +29,7 @@ const order = await createFromCheckout(db, {
     postalCode: 'LM1 1AA',
     country: 'GB',
   },
-  quote: {
-    currency: 'EUR',
-    lines: [
-      {
-        sku: variant.sku,
-        productName: variant.family.name,
-        quantity: 1,
-        unitPriceMinor: unit,
-        lineTotalMinor: unit,
-        meshSha256: variant.sha256!,
-        billableKg: 1,
-      },
-    ],
-    subtotalMinor: unit,
-    shippingMinor: 0,
-    vatMinor: 0,
-    vatRatePct: 0,
-    totalMinor: unit,
-    billableKg: 1,
-    shippingZone: 'domestic',
-  },
-  paymentSessionId: `cs_crash_${id}`,
-  expiresAt: new Date(Date.now() + 3_600_000),
   siteOrigin: 'http://localhost',
 });
-await markPaid(db, id, { paymentIntentId: `pi_${id}`, amountMinor: unit, currency: 'EUR', eventId: `evt_${id}` });
-console.log(`PAID ${id} ${order.number}`);
+console.log(`PAID ${order.id} ${order.number}`);
 setInterval(() => undefined, 60_000);
