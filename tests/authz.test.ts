@@ -345,6 +345,12 @@ const ROUTES: AuthzRow[] = [
   },
   { method: 'get', route: '/api/farm/runs', allowed: ['operations', 'catalogue_manager', 'admin'] },
   {
+    method: 'get',
+    route: '/api/farm/print-files/:meshSha256.stl',
+    path: async (t) => `/api/farm/print-files/${(await listCatalogueVariants(t.ctx))[0]?.sha256 ?? '0'.repeat(64)}.stl`,
+    allowed: ['operations', 'catalogue_manager', 'admin'],
+  },
+  {
     method: 'post',
     route: '/api/farm/runs',
     path: planPath('/api/farm/runs'),

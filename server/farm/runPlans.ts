@@ -35,7 +35,7 @@ export async function planItemOf(ctx: AppContext, variant: CatalogueVariant, qua
   const partSizesMm = stored?.length
     ? stored
     : variant.sha256
-      ? await partSizesOf(ctx.db, variant.sha256, variant.sku)
+      ? await partSizesOf(ctx.db, ctx.files, variant.sha256, variant.sku)
       : [variant.report.bboxSizeMm];
   const axes = Object.values(variant.axisValues).map(String).join(', ');
   return {

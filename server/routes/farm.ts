@@ -1,8 +1,10 @@
 /**
- * `/api/farm`: the exceptions queue and its actions (operations), demand, plannable variants, run plans and runs
- * (operations and catalogue managers). Admins may do all of it.
+ * `/api/farm`: the exceptions queue and its actions (operations), demand, plannable variants, run plans, runs and
+ * the print files they name (operations and catalogue managers). Admins may do all of it.
  */
+import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
+import { z } from 'zod';
 import {
   CancelDispatchRequestSchema,
   DemandQuerySchema,
@@ -19,9 +21,15 @@ import { installDispatchHook } from '../farm/dispatchOrders';
 import { getDispatch, redispatch, withdrawDispatch } from '../farm/farmExceptions';
 import { farmRuntime } from '../farm/farmRuntime';
 import { listFarmExceptions, toDispatch } from '../farm/farmViews';
+import { openPrintFile, PinnedMeshError } from '../farm/printFiles';
 import { createRun, listRuns, planFromCatalogue } from '../farm/runPlans';
+import { conflict } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { listCatalogueVariants } from '../services/catalogue';
+
+const PrintFileParamsSchema = z.object({
+  meshSha256: z.string().regex(/^[0-9a-f]{64}$/, 'A print file is named by the 64-digit mesh hash of a variant.'),
+});
 
 /**
  * Builds the farm router (mounted at `/api/farm`).
@@ -94,6 +102,30 @@ export function farmRouter(ctx: AppContext): Router {
     farmRuntime(ctx)?.nudge();
     res.status(201).json(run);
   });
+
+  // The print file of a sold or planned mesh, as the farm receives it: streamed from the file store (built, checked
+  // against the hash and stored first when no process has built it yet).
+  router.get(
+    '/print-files/:meshSha256.stl',
+    planners,
+    validate({ params: PrintFileParamsSchema }),
+    async (_req, res) => {
+      const { meshSha256 } = parsedParams<{ meshSha256: string }>(res);
+      const file = await openPrintFile(ctx.db, ctx.files, meshSha256).catch((err: unknown) => {
+        if (err instanceof PinnedMeshError) throw conflict('print_file_unavailable', `No print file: ${err.message}.`);
+        throw err;
+      });
+      res.set({
+        'Content-Type': 'model/stl',
+        'Content-Length': String(file.sizeBytes),
+        'Content-Disposition': `attachment; filename="${meshSha256.slice(0, 16)}.stl"`,
+        'Cache-Control': 'private, max-age=3600',
+      });
+      await pipeline(file.body, res).catch((err: unknown) => {
+        if (!res.headersSent) throw err;
+      });
+    },
+  );
 
   return router;
 }

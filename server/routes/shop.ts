@@ -21,18 +21,17 @@ import { writeStl } from '../../shared/mesh/writeStl';
 import type { AppContext } from '../context';
 import { HttpError, notFound } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
-import { sendAttachment } from '../pdf/sendAttachment';
 import { DbRateLimitStore } from '../auth/DbRateLimitStore';
 import { loadPaymentEnv } from '../payments/paymentEnv';
 import { getVariantBySku } from '../services/catalogue';
 import { quoteCart, startCheckout } from '../services/checkoutService';
 import { getForCustomer } from '../services/orderService';
-import { readPhoto } from '../services/photoService';
+import { openPhoto } from '../services/photoService';
 import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
-import { getSalesSettings } from '../services/salesSettings';
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';
-import { renderSpecSheets } from '../services/specSheet';
+import { openSpecSheet } from '../services/specSheetDocuments';
 import { productMesh } from '../services/specSheetMesh';
+import { sendStoredFile } from '../storage/sendStoredFile';
 
 /** The rate-limit window of checkout creation. */
 export const CHECKOUT_WINDOW_MS = 10 * 60 * 1000;
@@ -109,13 +108,11 @@ export function shopRouter(ctx: AppContext): Router {
     router.get(path, validate({ params: PhotoParamsSchema }), async (_req, res) => {
       const { id } = parsedParams<{ id: string }>(res);
       if (!(await isShopPhoto(ctx, id))) throw notFound('No such photo in the shop.');
-      const bytes = await readPhoto(ctx, id, size);
-      res.set({
+      await sendStoredFile(res, await openPhoto(ctx, id, size), {
         'Content-Type': 'image/webp',
         'X-Content-Type-Options': 'nosniff',
         'Cache-Control': 'public, max-age=3600',
       });
-      res.send(bytes);
     });
   }
 
@@ -131,12 +128,7 @@ export function shopRouter(ctx: AppContext): Router {
     const { sku } = parsedParams<{ sku: string }>(res);
     const variant = await getVariantBySku(ctx, sku);
     if (!variant) throw notFound('No such product in the shop.');
-    const { settings } = await getSalesSettings(ctx.db);
-    const photo = variant.photos[0]
-      ? await readPhoto(ctx, variant.photos[0].id, 'normal').catch(() => undefined)
-      : undefined;
-    const pdf = await renderSpecSheets([variant], { settings, photo });
-    sendAttachment(res, pdf, 'application/pdf', `spec-sheet-${sku}.pdf`);
+    await sendStoredFile(res, await openSpecSheet(ctx, [variant]), {}, `spec-sheet-${sku}.pdf`);
   });
 
   return router;
