@@ -4,15 +4,19 @@
  * first start); the bare server is a second process; autocannon runs here, a third process.
  * Targets: ours/bare ≥ 0.5 on catalogue and storefront reads, p99 ≤ 100 ms at 50 connections, and no errors at 100
  * connections for 60 s. `--quick` runs short loads for development; the reported figures come from the full run.
+ * `--postgres` runs "ours" as two API processes on one PostgreSQL database instead (a new database on
+ * BENCH_DATABASE_URL or TEST_DATABASE_URL, seeded by the first process and dropped at the end); autocannon spreads
+ * its connections over both, and the CPU per answer counts both processes.
  */
 import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { RecordedAnswer } from './lib/bareServer';
+import { adminSql, benchDatabaseBase, urlFor } from './lib/benchDatabase';
 import { recordAnswer } from './lib/recordAnswer';
 import { runLoad, type LoadFigures, type LoadRequest } from './lib/runLoad';
-import { REPO_ROOT, startServerProcess } from './lib/serverProcess';
+import { REPO_ROOT, startServerProcess, type ServerProcess } from './lib/serverProcess';
 
 /** What a browser sends on every read. */
 const BROWSER_HEADERS = { 'accept-encoding': 'gzip, deflate, br', accept: 'application/json' };
@@ -69,18 +73,41 @@ function printRow(label: string, figures: LoadFigures): void {
 /** Runs the bench and prints its figures. */
 export default async function loadBench(): Promise<void> {
   const quick = process.argv.includes('--quick');
+  const postgres = process.argv.includes('--postgres');
   const dataDir = mkdtempSync(join(tmpdir(), 'nestwright-bench-load-'));
   const port = Number(process.env.BENCH_PORT ?? 3391);
   console.log(
     `load average at start: ${loadavg()
       .map((v) => v.toFixed(2))
-      .join(', ')}${quick ? ' (quick mode)' : ''}`,
+      .join(', ')}${quick ? ' (quick mode)' : ''}${postgres ? ' (PostgreSQL, two API processes)' : ''}`,
   );
-  console.log(`starting our server on PGlite in ${dataDir} (first start seeds the demo)...`);
-  const ours = await startServerProcess({ label: 'ours', dataDir, port, env: { SEED_DEMO: 'true' } });
-  console.log(`  ready after ${(ours.readyMs / 1000).toFixed(1)} s at ${ours.url}`);
-  const stops: Array<() => unknown> = [() => ours.stop()];
+  const stops: Array<() => unknown> = [];
+  const apis: ServerProcess[] = [];
   try {
+    if (postgres) {
+      const base = benchDatabaseBase();
+      if (!base)
+        throw new Error('--postgres needs BENCH_DATABASE_URL (a role that may create databases; .ci/postgres.sh)');
+      const database = `nwb_load_${process.pid}_${Date.now().toString(36)}`;
+      await adminSql(base, `create database ${database}`);
+      stops.push(() => adminSql(base, `drop database if exists ${database} with (force)`));
+      const env = { DATABASE_URL: urlFor(base, database), SEED_DEMO: 'true' };
+      console.log(`starting two API processes on PostgreSQL database ${database} (the first migrates and seeds)...`);
+      // One after the other: the second finds the database migrated and seeded.
+      for (const [i, apiPort] of [port, port + 1].entries()) {
+        const api = await startServerProcess({ label: `api-${i + 1}`, dataDir, port: apiPort, env });
+        apis.push(api);
+        stops.push(() => api.stop());
+        console.log(`  api-${i + 1} ready after ${(api.readyMs / 1000).toFixed(1)} s at ${api.url}`);
+      }
+    } else {
+      console.log(`starting our server on PGlite in ${dataDir} (first start seeds the demo)...`);
+      const api = await startServerProcess({ label: 'ours', dataDir, port, env: { SEED_DEMO: 'true' } });
+      apis.push(api);
+      stops.push(() => api.stop());
+      console.log(`  ready after ${(api.readyMs / 1000).toFixed(1)} s at ${api.url}`);
+    }
+    const ours = apis[0];
     const cookie = await signIn(ours.url);
     const products = (await (await fetch(new URL('/api/shop/products', ours.url))).json()) as {
       products: Array<{ slug: string }>;
@@ -126,25 +153,25 @@ export default async function loadBench(): Promise<void> {
     for (const scenario of scenarios) {
       console.log(`\n${scenario.name}: ${scenario.connections} connections, ${scenario.durationS} s each`);
       const figures: Record<string, LoadFigures> = {};
-      for (const [label, url, pid] of [
-        ['ours', ours.url, ours.child.pid ?? 0],
-        ['bare', bare.url, bare.pid],
+      for (const [label, urls, pids] of [
+        ['ours', apis.map((api) => api.url), apis.map((api) => api.child.pid ?? 0)],
+        ['bare', [bare.url], [bare.pid]],
       ] as const) {
         // Warm-up (not counted): JIT, caches, connection set-up.
         await runLoad({
-          baseUrls: [url],
+          baseUrls: [...urls],
           requests: scenario.requests,
           connections: 10,
           durationS: 2,
           headers: BROWSER_HEADERS,
         });
         figures[label] = await runLoad({
-          baseUrls: [url],
+          baseUrls: [...urls],
           requests: scenario.requests,
           connections: scenario.connections,
           durationS: scenario.durationS,
           headers: BROWSER_HEADERS,
-          serverPids: [pid],
+          serverPids: [...pids],
         });
         printRow(label, figures[label]);
       }
@@ -160,7 +187,9 @@ export default async function loadBench(): Promise<void> {
       console.log(`  ${line}`);
       summary.push(line);
     }
-    console.log(`\nsummary${quick ? ' (quick mode: not the reported figures)' : ''}:`);
+    console.log(
+      `\nsummary${postgres ? ' (ours: two API processes on PostgreSQL)' : ''}${quick ? ' (quick mode: not the reported figures)' : ''}:`,
+    );
     for (const line of summary) console.log(`  ${line}`);
   } finally {
     for (const stop of stops.reverse()) await stop();
