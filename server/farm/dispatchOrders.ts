@@ -97,7 +97,13 @@ async function dispatchOne(ctx: AppContext, runtime: FarmRuntime, row: FarmDispa
   try {
     const input = await workOrderInput(ctx, row);
     for (const hash of new Set(input.lines.map((line) => line.meshSha256)))
-      await ensurePrintFile(ctx.db, ctx.files, runtime.client, hash, input.lines.find((l) => l.meshSha256 === hash)?.lineRef);
+      await ensurePrintFile(
+        ctx.db,
+        ctx.files,
+        runtime.client,
+        hash,
+        input.lines.find((l) => l.meshSha256 === hash)?.lineRef,
+      );
     const workOrder = await runtime.client.createWorkOrder(input, row.idempotencyKey);
     await ctx.db.transaction(async (tx) => {
       const [claimed] = await tx

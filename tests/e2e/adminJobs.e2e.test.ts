@@ -134,9 +134,7 @@ describe('Failed jobs screen', () => {
     await expect(items.filter({ hasText: 'Closing abandoned checkouts' }).textContent()).resolves.toMatch(
       /Sent again.*by Joss/,
     );
-    await expect(items.filter({ hasText: 'test.label-printer' }).textContent()).resolves.toMatch(
-      /Discarded.*by Joss/,
-    );
+    await expect(items.filter({ hasText: 'test.label-printer' }).textContent()).resolves.toMatch(/Discarded.*by Joss/);
     await page.screenshot({ path: `${SHOTS}/handled-1440.png`, fullPage: true });
     const audit = await ctx.db
       .select()
