@@ -1,4 +1,5 @@
 import { assessDesign, plainOutdoor } from '../../shared/assessment/assessDesign';
+import { plateRuleSummary } from '../../shared/analysis/plateRule';
 import { variantVerdict } from '../../shared/families/variantVerdict';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
@@ -58,7 +59,8 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
   );
   const { fit, production, birdFit } = assessment;
   const warnings: string[] = [];
-  if (fit.fits && fit.setsPerPlate === 0) warnings.push('the parts need separate build plates on this printer');
+  if (fit.fits && fit.setsPerPlate === 0)
+    warnings.push(`the parts need separate build plates: ${assessment.plate.text}`);
   if (geometry.maxBridgeSpanMm > 10)
     warnings.push(`longest bridge ${geometry.maxBridgeSpanMm.toFixed(1)} mm: check it prints cleanly`);
   const report: VariantReport = {
@@ -79,6 +81,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     printerId: printer.id,
     fitsPrinter: fit.fits,
     copiesPerPlate: fit.copiesPerPlate,
+    plate: plateRuleSummary(assessment.plate),
     massG: production.massG,
     filamentLengthM: production.filamentLengthM,
     printTimeMin: production.printTimeMin,

@@ -1,5 +1,7 @@
 /** Wholesale quotes: the figures from a published variant, the sales settings and the farm; saved and read back. */
 import { desc, eq } from 'drizzle-orm';
+import { farmPlateGroups, plateRule, type PlateRule } from '../../shared/analysis/plateRule';
+import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import { estimateFarmCapacity } from '../../shared/production/estimateFarmCapacity';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { Quote, QuoteCreate, QuoteSummary } from '../../shared/schemas/quote';
@@ -34,6 +36,7 @@ export function computeQuote(
   const unitCostCents = variant.cost.costCents;
   const farmSettings = settings.farm;
   const copiesPerPlate = farmSettings.copiesPerPlate ?? Math.max(1, variant.report.copiesPerPlate);
+  const plate = variantPlateRule(variant);
   const capacity = estimateFarmCapacity({
     unitsWanted: request.quantity,
     printers: farmSettings.printers,
@@ -43,6 +46,15 @@ export function computeQuote(
     failureRatePct: farmSettings.failureRatePct,
     plateChangeMin: farmSettings.plateChangeMin,
     handlingDays: farmSettings.handlingDays,
+    // The plate rule: one group when the parts print together, one per part when each needs plates of its own.
+    plateGroups: plate
+      ? farmPlateGroups(
+          plate,
+          variant.report.partSizesMm ?? [variant.report.bboxSizeMm],
+          variant.report.printTimeMin,
+          farmSettings.copiesPerPlate,
+        )
+      : undefined,
   });
   const earliestDeliveryDate = addDays(today, capacity.leadTimeDays);
   return {
@@ -63,6 +75,8 @@ export function computeQuote(
       printers: farmSettings.printers,
       hoursPerDay: farmSettings.hoursPerDay,
       copiesPerPlate,
+      platesPerUnit: plate?.platesPerUnit ?? 1,
+      plateText: plate?.text ?? `${copiesPerPlate} per plate`,
       failureRatePct: farmSettings.failureRatePct,
       plateChangeMin: farmSettings.plateChangeMin,
       handlingDays: farmSettings.handlingDays,
@@ -77,6 +91,23 @@ export function computeQuote(
       unitPriceCents: Math.round(listPriceCents * (1 - b.discountPct / 100)),
     })),
   };
+}
+
+/**
+ * The variant's plate rule: as stored with its report, else worked out from its parts on its printer (variants
+ * computed before the rule was kept); null when neither is known (one plate group of the stored copies per plate).
+ * @param variant - the published variant
+ */
+export function variantPlateRule(
+  variant: CatalogueVariant,
+): Pick<PlateRule, 'layout' | 'platesPerUnit' | 'groups' | 'text'> | null {
+  const r = variant.report;
+  if (r.plate && r.plate.groups.length > 0) return r.plate;
+  const printer = DEFAULT_PRINTERS.find((p) => p.id === r.printerId);
+  if (!r.partSizesMm?.length || !printer) return null;
+  const { x, y, z } = printer.buildVolumeMm;
+  const rule = plateRule(r.partSizesMm, [x, y, z]);
+  return rule.groups.length > 0 ? rule : null;
 }
 
 /** YYYY-MM-DD of `days` calendar days after the UTC day of `from`. */

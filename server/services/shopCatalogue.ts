@@ -2,6 +2,7 @@
  * The shop's view of the catalogue: one product per published family, its published variants priced with VAT from
  * the settings, the key figures, birds, mounting and cautions. Only variants priced in the shop currency are sold.
  */
+import { assembledSizeMm } from '../../shared/analysis/plateRule';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
 import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
@@ -117,8 +118,7 @@ function sizeOf(variant: CatalogueVariant): Pick<ShopVariant, 'sizeMm' | 'sizeKi
   const parts = variant.report.partSizesMm;
   const partCount = Math.max(1, parts?.length ?? variant.report.partCount);
   if (!parts?.length) return { sizeMm: variant.report.bboxSizeMm, sizeKind: 'as_printed', partCount };
-  const body = parts.reduce((a, b) => (b[0] * b[1] * b[2] > a[0] * a[1] * a[2] ? b : a));
-  return { sizeMm: body, sizeKind: 'assembled', partCount };
+  return { sizeMm: assembledSizeMm(parts, variant.report.bboxSizeMm), sizeKind: 'assembled', partCount };
 }
 
 function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): ShopVariant {
@@ -284,7 +284,8 @@ export async function sellableVariants(
       productName: productName(variant),
       unitNetMinor: variant.priceCents,
       meshSha256: variant.sha256,
-      sizeMm: variant.report.bboxSizeMm,
+      // The parcel holds the assembled product (the plug sits in the body), not the print layout.
+      sizeMm: assembledSizeMm(variant.report.partSizesMm, variant.report.bboxSizeMm),
       massG: variant.report.massG,
     });
   }

@@ -71,7 +71,7 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
     { printer, material, colourId: options.colourId, settings: options.settings, rates: options.rates },
     { wallThicknessMm: options.wallThicknessMm, plateSpacingMm: options.plateSpacingMm },
   );
-  const { fit, production, outdoor } = assessment;
+  const { fit, plate, production, outdoor } = assessment;
   if (!outdoor) throw new Error(assessment.outdoorProblem ?? 'outdoor fitness could not be assessed');
   const report: AnalysisReport = {
     ...geometry,
@@ -84,6 +84,11 @@ export function analyzeMesh(mesh: IndexedMesh, options: AnalyzeMeshOptions): Mes
       copiesPerPlate: fit.copiesPerPlate,
       spacingMm: fit.spacingMm,
       turnedOnPlate: fit.turnedOnPlate,
+      layout: plate.layout,
+      platesPerUnit: plate.platesPerUnit,
+      plateText: plate.text,
+      partSizesMm: fit.partSizesMm,
+      assembledSizeMm: assessment.assembledSizeMm,
     },
     materialId: material.id,
     production,

@@ -23,6 +23,7 @@ import type {
 } from '../schemas/production';
 import { analyzeGeometry, type GeometryOptions } from '../analysis/analyzeGeometry';
 import { componentSizesMm, fitPartSizes, partSizesMm, type PartsFit } from '../analysis/fitParts';
+import { assembledSizeMm, plateRule, type PlateRule } from '../analysis/plateRule';
 import { assessBirdFit } from '../birdfit/assessBirdFit';
 import { estimateProduction } from '../production/estimateProduction';
 import { assessOutdoor } from '../thermal/assessOutdoor';
@@ -38,6 +39,11 @@ export interface DesignMeasure {
   supportVolumeMm3: number;
   /** Size of each printable part in build orientation (one entry for a single part). */
   partSizesMm: Array<[number, number, number]>;
+  /**
+   * Names of the parts in words; omitted for a template's parts (body, floor plug). A file's separate shells are
+   * `part 1`, `part 2`, … since nothing says what they are.
+   */
+  partNames?: string[];
   /** 5th percentile of the sampled wall thickness, mm; null when not measured. */
   thinnestWallMm: number | null;
 }
@@ -81,6 +87,7 @@ export function measureDesign(mesh: IndexedMesh, options: MeasureDesignOptions =
       bboxSizeMm: report.bbox.sizeMm,
       supportVolumeMm3: report.supportVolumeMm3,
       partSizesMm: parts,
+      ...(!options.partTriangles && parts.length > 1 ? { partNames: parts.map((_, i) => `part ${i + 1}`) } : {}),
       thinnestWallMm: report.thinnestWall ? report.thinnestWall.p5Mm : null,
     },
     report,
@@ -126,6 +133,10 @@ export type DesignOutdoor = OutdoorAssessment & {
 export interface DesignAssessment {
   /** Fit of every part and copies per plate; `turnedOnPlate` for a single part turned 90° on the plate. */
   fit: PartsFit & { turnedOnPlate: boolean; spacingMm: number; buildVolumeMm: [number, number, number] };
+  /** How one unit's parts go on plates (shared/analysis/plateRule.ts): the figure every screen shows. */
+  plate: PlateRule;
+  /** The assembled product's size (the body), never the print layout's. */
+  assembledSizeMm: [number, number, number];
   production: ProductionEstimate;
   /** Null when it could not be assessed (see `outdoorProblem`). */
   outdoor: DesignOutdoor | null;
@@ -228,7 +239,16 @@ export function assessDesign(
   }
 
   const birdFit = options.facts ? assessBirdFit(options.facts, options.region ? { region: options.region } : {}) : null;
-  return { fit, production, outdoor, outdoorProblem, birdFit };
+  const plate = plateRule(measure.partSizesMm, buildVolumeMm, spacingMm, measure.partNames);
+  return {
+    fit,
+    plate,
+    assembledSizeMm: assembledSizeMm(measure.partSizesMm, measure.bboxSizeMm),
+    production,
+    outdoor,
+    outdoorProblem,
+    birdFit,
+  };
 }
 
 /**

@@ -1,4 +1,4 @@
-import { fitPartSizes } from '../analysis/fitParts';
+import { partTimeShares, plateRule } from '../analysis/plateRule';
 import {
   PlanItemSchema,
   PlanSettingsSchema,
@@ -47,13 +47,9 @@ export function planRun(items: readonly PlanItem[], settingsInput: PlanSettingsI
   const reprintFactor = 1 / (1 - failure);
 
   // Per-part print minutes by bounding-box volume share.
-  const partMinutes = list.map((item) => {
-    const volumes = item.partSizesMm.map(([x, y, z]) => x * y * z);
-    const total = volumes.reduce((sum, v) => sum + v, 0);
-    return volumes.map((v) =>
-      total > 0 ? (item.unitPrintTimeMin * v) / total : item.unitPrintTimeMin / volumes.length,
-    );
-  });
+  const partMinutes = list.map((item) =>
+    partTimeShares(item.partSizesMm).map((share) => item.unitPrintTimeMin * share),
+  );
 
   // Group units by material and colour; every unit's every part is a footprint.
   const groups = new Map<string, { materialId: string; colourId: string; footprints: FootprintToPack[] }>();
@@ -155,8 +151,8 @@ export function planRun(items: readonly PlanItem[], settingsInput: PlanSettingsI
   }
 
   const lines: PlanLine[] = list.map((item, i) => {
-    const fit = fitPartSizes(item.partSizesMm, settings.buildVolumeMm, s);
-    const platesPerUnit = fit.setsPerPlate > 0 ? 1 : item.partSizesMm.length;
+    // On demand a unit is printed alone, on the plates the plate rule gives it.
+    const platesPerUnit = Math.max(1, plateRule(item.partSizesMm, settings.buildVolumeMm, s).platesPerUnit);
     const onDemandUnitCents = Math.round(item.unitCostCents + platesPerUnit * plateSetupCents + jobSetupCents);
     const runUnitCents = Math.round(
       item.unitCostCents + setupShareCents[i] / item.quantity + (units > 0 ? jobSetupCents / units : 0),

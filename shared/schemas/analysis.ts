@@ -143,11 +143,24 @@ export const BuildPlateReportSchema = z.object({
   printerId: z.string(),
   buildVolumeMm: Vec3MmSchema,
   fits: z.boolean(),
-  /** Copies in a grid on one plate (0 when it does not fit). */
+  /**
+   * Complete units on one plate (every part together); when the parts need plates of their own, the copies of the
+   * part that fits fewest. 0 when it does not fit. `layout` and `platesPerUnit` say which.
+   */
   copiesPerPlate: z.number().int(),
   spacingMm: z.number(),
   /** True when the copies are turned 90° about z to fit more. */
   turnedOnPlate: z.boolean(),
+  /** The plate rule (shared/analysis/plateRule.ts): parts together on a plate, each on its own plates, or too big. */
+  layout: z.enum(['together', 'separate', 'none']),
+  /** Plates one unit needs: 1 together, one per part when separate, 0 when it does not fit. */
+  platesPerUnit: z.number().int(),
+  /** The rule in words, as every screen shows it. */
+  plateText: z.string(),
+  /** Size of each separate part in build orientation. */
+  partSizesMm: z.array(Vec3MmSchema),
+  /** The assembled product's size (its largest part, the body), never the layout of the parts side by side. */
+  assembledSizeMm: Vec3MmSchema,
 });
 /** A build plate report (see {@link BuildPlateReportSchema}). */
 export type BuildPlateReport = z.infer<typeof BuildPlateReportSchema>;

@@ -36,7 +36,16 @@ export type QuoteCreate = z.infer<typeof QuoteCreateSchema>;
 export const QuoteFarmSchema = z.object({
   printers: z.number().int(),
   hoursPerDay: z.number(),
+  /** Complete units on one plate when the parts go together; else the copies of the part that fits fewest. */
   copiesPerPlate: z.number().int(),
+  /** Plates one unit needs under the plate rule (absent on quotes saved before it was kept: 1). */
+  platesPerUnit: z.number().int().optional(),
+  /** The plate rule in words, e.g. `2 plates per unit: body 1 per plate, floor plug 4 per plate`. */
+  plateText: z.string().optional(),
+  /** Plates of each plate group (one group when the parts go together, one per part otherwise). */
+  groups: z
+    .array(z.object({ unitsPerPlate: z.number().int(), plates: z.number().int(), plateTimeMin: z.number() }))
+    .optional(),
   failureRatePct: z.number(),
   plateChangeMin: z.number(),
   handlingDays: z.number(),

@@ -67,7 +67,20 @@ export const VariantReportSchema = z.object({
   thinnestWallMm: z.number().nullable(),
   printerId: z.string(),
   fitsPrinter: z.boolean(),
+  /** Complete units on one plate when the parts go together; else the copies of the part that fits fewest. */
   copiesPerPlate: z.number().int(),
+  /**
+   * The plate rule on the variant's printer (shared/analysis/plateRule.ts): together, one plate group per part, or
+   * none; absent on variants computed before it was kept (then derived from `partSizesMm`).
+   */
+  plate: z
+    .object({
+      layout: z.enum(['together', 'separate', 'none']),
+      platesPerUnit: z.number().int(),
+      groups: z.array(z.object({ partIndexes: z.array(z.number().int()), unitsPerPlate: z.number().int() })),
+      text: z.string(),
+    })
+    .optional(),
   massG: z.number(),
   filamentLengthM: z.number(),
   printTimeMin: z.number(),

@@ -57,12 +57,17 @@ export interface FiguresRequest {
 export interface DesignFigures {
   volumeMm3: number;
   surfaceAreaMm2: number | null;
+  /** The whole mesh as laid out for printing (parts side by side): not a product size. */
   boundingBoxMm: [number, number, number];
+  /** The assembled product's size (its body), as the catalogue and spec sheet show it. */
+  assembledSizeMm?: [number, number, number];
   triangleCount: number;
   bodyCount: number | null;
   overhangAreaMm2: number | null;
   supportVolumeMm3: number | null;
   fitsPrinter: boolean | null;
+  /** How one unit's parts go on plates (shared/analysis/plateRule.ts); null when not assessed. */
+  plate?: { layout: 'together' | 'separate' | 'none'; platesPerUnit: number; text: string; tag: string } | null;
   /** Mass, print time, cost of one unit on the chosen printer, material and settings. */
   production: ProductionEstimate | null;
   /**

@@ -134,7 +134,16 @@ export function formatReport(r: AnalysisReport, name: string): string {
         : String(typeof r.up === 'string' ? `${r.up} up` : 'rotation'),
     ],
     ['Triangles', String(r.triangles)],
-    ['Size (x × y × z)', r.bbox.sizeMm.map((v) => v.toFixed(1)).join(' × ') + ' mm'],
+    ['Size, assembled (x × y × z)', r.buildPlate.assembledSizeMm.map((v) => v.toFixed(1)).join(' × ') + ' mm'],
+    ...(r.buildPlate.partSizesMm.length > 1
+      ? ([
+          [
+            'Parts',
+            r.buildPlate.partSizesMm.map((size) => size.map((v) => v.toFixed(0)).join(' × ')).join('; ') + ' mm',
+          ],
+          ['Print layout of the file', r.bbox.sizeMm.map((v) => v.toFixed(1)).join(' × ') + ' mm'],
+        ] as [string, string][])
+      : []),
     ['Volume', cm3(r.volumeMm3)],
     ['Surface area', cm2(r.surfaceAreaMm2)],
     [
@@ -160,7 +169,7 @@ export function formatReport(r: AnalysisReport, name: string): string {
         : 'not measured (open mesh)',
     ],
     ['Printer', `${r.buildPlate.printerId} (${r.buildPlate.buildVolumeMm.join(' × ')} mm)`],
-    ['Fits / copies per plate', r.buildPlate.fits ? `yes / ${r.buildPlate.copiesPerPlate}` : 'no'],
+    ['Build plates', r.buildPlate.plateText],
     ['Material', r.materialId],
     ['Mass', `${p.massG.toFixed(0)} g`],
     ['Filament', `${p.filamentLengthM.toFixed(1)} m`],
