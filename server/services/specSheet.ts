@@ -1,5 +1,5 @@
 /** Gathers what a spec sheet shows for a published variant and renders it. */
-import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
+import { assessBirdFit, thinWallWarning } from '../../shared/birdfit/assessBirdFit';
 import { SPECIES } from '../../shared/birdfit/species';
 import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
@@ -286,8 +286,18 @@ function cautions(
     },
   ];
   const covered = new Set(['perch', 'predator-guard', 'mounting-height', 'plastic-heat']);
-  for (const warning of variant.birdFitWarnings) {
-    if (warning.severity === 'info' || covered.has(warning.code)) continue;
+  for (const stored of variant.birdFitWarnings) {
+    // The thin-wall sentence is worded now from the variant's wall figure and material, as the editor shows it
+    // (variants computed earlier kept an older wording).
+    const warning =
+      stored.code === 'thin-walls'
+        ? thinWallWarning(variant.report.facts.wallThicknessMm, {
+            materialName: material?.name ?? variant.attributes.material.toUpperCase(),
+            polymerK: material?.thermalConductivityWmK,
+            ratioToPine: outdoor?.wallResistance?.ratioToPine ?? null,
+          })
+        : stored;
+    if (!warning || warning.severity === 'info' || covered.has(warning.code)) continue;
     covered.add(warning.code);
     list.push({ title: warningTitle(warning.code), text: pdfText(warning.message), source: pdfText(warning.source) });
   }

@@ -238,7 +238,18 @@ export function assessDesign(
     }
   }
 
-  const birdFit = options.facts ? assessBirdFit(options.facts, options.region ? { region: options.region } : {}) : null;
+  // The thin-wall warning quotes the same insulation figure the outdoor section shows, in the chosen material.
+  const birdFit = options.facts
+    ? assessBirdFit(options.facts, {
+        ...(options.region ? { region: options.region } : {}),
+        wall: {
+          materialName: material.name,
+          polymerK: material.thermalConductivityWmK,
+          ratioToPine:
+            wallThicknessMm === options.facts.wallThicknessMm ? (outdoor?.wallResistance?.ratioToPine ?? null) : null,
+        },
+      })
+    : null;
   const plate = plateRule(measure.partSizesMm, buildVolumeMm, spacingMm, measure.partNames);
   return {
     fit,

@@ -20,13 +20,75 @@ const PLA_K_WMK = 0.13;
 /** The lower of the published wood-wall minimums (BTO; Which?). */
 export const MIN_WOOD_WALL_MM = 15;
 
+const fmt = (n: number) => `${Math.round(n * 10) / 10}`;
+
 /** Options of {@link assessBirdFit}. */
 export interface AssessBirdFitOptions {
   /** Only species and regional warnings of this region; both regions when omitted. */
   region?: Region;
+  /** The wall as chosen and printed: the thin-wall warning names the material and quotes the figure's percent. */
+  wall?: ThinWallFigures;
 }
 
-const fmt = (n: number) => `${Math.round(n * 10) / 10}`;
+/** What the thin-wall warning says about the chosen wall: the same numbers the insulation figure shows. */
+export interface ThinWallFigures {
+  /** The chosen material's name (PLA, PETG, …). */
+  materialName: string;
+  /** Conductivity of the solid printed material, W/m·K; used when the printed wall's resistance is not known. */
+  polymerK?: number;
+  /**
+   * The printed wall's resistance as a share of a 19 mm pine board (perimeters and infill core), as the figures show
+   * it (OutdoorAssessment.wallResistance.ratioToPine); without it the wall is taken as solid material.
+   */
+  ratioToPine?: number | null;
+}
+
+/**
+ * The thin-wall warning for a wall thinner than a ¾ in board: where its thickness stands against the 15–19 mm of
+ * wood that guidance asks for, and how well it insulates beside a 19 mm pine board, in the chosen material. The
+ * percent is the printed wall's figure when given (the one the insulation bars show), else a solid wall's
+ * (thickness / k against 19 mm / 0.11 W/m·K). Severity follows the guidance, which is about thickness: `warning`
+ * below 15 mm, `caution` from 15 to 19 mm (conduction is not the whole heat balance: a thin plastic shell also
+ * heats through in sun). Null at 19 mm and over.
+ * @param wallThicknessMm - the designed wall thickness
+ * @param wall - the chosen material and the printed wall's figure (PLA, solid, when omitted)
+ */
+export function thinWallWarning(
+  wallThicknessMm: number,
+  wall: ThinWallFigures = { materialName: 'PLA' },
+): BirdFitWarning | null {
+  if (wallThicknessMm >= WOOD_WALL_MM) return null;
+  const t = fmt(wallThicknessMm);
+  const printed = wall.ratioToPine !== undefined && wall.ratioToPine !== null;
+  const ratio = printed
+    ? wall.ratioToPine!
+    : wallThicknessMm / (wall.polymerK ?? PLA_K_WMK) / (PINE_BOARD_MM / PINE_K_WMK);
+  const pct = Math.round(ratio * 100);
+  const where =
+    wallThicknessMm < MIN_WOOD_WALL_MM
+      ? `Walls of ${t} mm are thinner than the ${MIN_WOOD_WALL_MM}–${WOOD_WALL_MM} mm of wood that guidance asks for.`
+      : `Walls of ${t} mm are within the ${MIN_WOOD_WALL_MM}–${WOOD_WALL_MM} mm of wood that guidance asks for, but ` +
+        `thinner than a ¾ in (${WOOD_WALL_MM} mm) board.`;
+  const how = printed
+    ? `As printed in ${wall.materialName} (solid perimeters round an infill core) this wall insulates about ${pct} % ` +
+      'as well as a ¾ in pine board'
+    : `A solid ${wall.materialName} wall this thick insulates about ${pct} % as well as a ¾ in pine board`;
+  const then =
+    ratio >= 1
+      ? ', so by conduction it matches the board; a thin plastic shell still heats through in sun: choose a light ' +
+        'colour, ventilation, a roof overhang and a shaded site.'
+      : '. Compensate with thicker walls holding closed air cells (check the wall resistance), a light colour, ' +
+        'ventilation, a roof overhang and a shaded site.';
+  return {
+    code: 'thin-walls',
+    severity: wallThicknessMm < MIN_WOOD_WALL_MM ? 'warning' : 'caution',
+    message: `${where} ${how}${then}`,
+    source:
+      'Cornell (¾ in walls); BTO and Which? (≥ 15 mm; thin plastic boxes overheat); conductivity of ' +
+      `${wall.materialName} (material data sheet; Zmeskal 2020 for PLA) and pine (USDA Wood Handbook)`,
+  };
+}
+
 
 function fitOne(facts: NestBoxFacts, s: Species): SpeciesFit {
   const reasons: string[] = [];
@@ -168,20 +230,8 @@ export function assessBirdFit(facts: NestBoxFacts, options: AssessBirdFitOptions
       source: 'RSPB (≥ 125 mm); BTO and Which? (≥ 120 mm); NABU (≥ 170 mm)',
     });
   }
-  if (f.wallThicknessMm < WOOD_WALL_MM) {
-    const ratio = f.wallThicknessMm / PLA_K_WMK / (PINE_BOARD_MM / PINE_K_WMK);
-    warnings.push({
-      code: 'thin-walls',
-      severity: f.wallThicknessMm < MIN_WOOD_WALL_MM ? 'warning' : 'caution',
-      message:
-        `Walls of ${fmt(f.wallThicknessMm)} mm are thinner than the 15–19 mm wood that guidance asks for. Solid PLA ` +
-        `conducts heat about as well as pine, so a solid wall this thick insulates only about ${Math.round(ratio * 100)} % ` +
-        'as well as a ¾ in pine board. Compensate with thicker walls holding closed air cells (check the wall resistance), ' +
-        'a light colour, ventilation, a roof overhang and a shaded site.',
-      source:
-        'Cornell (¾ in walls); BTO and Which? (≥ 15 mm; thin plastic boxes overheat); PLA and pine conductivity (Zmeskal 2020; USDA Wood Handbook)',
-    });
-  }
+  const thin = thinWallWarning(f.wallThicknessMm, options.wall);
+  if (thin) warnings.push(thin);
   if (!f.cleaningAccess) {
     warnings.push({
       code: 'no-cleaning-access',
