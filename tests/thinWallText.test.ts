@@ -108,6 +108,7 @@ describe('the spec sheet says the same', () => {
       attributes: { material: 'petg', colour: petg.colours[0].id, finish: null },
       family: { id: 'f', code: 'GBX', name: 'Gable test', description: '' },
       report: evaluated.report,
+      acknowledgements: [],
       // A variant computed earlier kept the old wording; the sheet words it afresh.
       birdFitWarnings: evaluated.birdFitWarnings.map((w) =>
         w.code === 'thin-walls' ? { ...w, message: 'Solid PLA conducts heat about as well as pine.' } : w,

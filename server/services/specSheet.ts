@@ -1,5 +1,6 @@
 /** Gathers what a spec sheet shows for a published variant and renders it. */
 import { assessBirdFit, thinWallWarning } from '../../shared/birdfit/assessBirdFit';
+import { studioReason } from '../../shared/families/publishPolicy';
 import { SPECIES } from '../../shared/birdfit/species';
 import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
@@ -245,6 +246,7 @@ function cautions(
   solarAbsorptance: number,
   suits: Array<{ commonName: string; mountingHeightM: { min: number; max: number } }>,
 ): SpecSheetCaution[] {
+  const outdoorAck = variant.acknowledgements.find((a) => a.code === 'outdoor-heat');
   const list: SpecSheetCaution[] = [
     {
       title: 'Heat',
@@ -260,7 +262,10 @@ function cautions(
             ? `The material softens from about ${material.heatDeflectionC} °C. `
             : '') +
         (solarAbsorptance >= 0.6 ? 'This colour absorbs most sunlight and runs hot: choose a shaded site. ' : '') +
-        'Hang the box where it gets afternoon shade, facing away from the strongest sun. These figures are estimates; follow local advice.',
+        'Hang the box where it gets afternoon shade, facing away from the strongest sun. These figures are estimates; follow local advice.' +
+        (outdoorAck && outdoor && (outdoor.roof.verdict === 'fail' || outdoor.wall.verdict === 'fail')
+          ? ` Acknowledged limit: this colour can pass the material's heat-deflection temperature in full sun. ${pdfText(studioReason(outdoorAck.text))}`
+          : ''),
       source:
         'Audubon (2024), K. Stumpf; sol-air temperature, ASHRAE Fundamentals (30 °C air, roof 1000 W/m², wall 600 W/m²); heat deflection at 0.45 MPa, material data sheet (PLA: NatureWorks)',
     },
@@ -299,7 +304,14 @@ function cautions(
         : stored;
     if (!warning || warning.severity === 'info' || covered.has(warning.code)) continue;
     covered.add(warning.code);
-    list.push({ title: warningTitle(warning.code), text: pdfText(warning.message), source: pdfText(warning.source) });
+    // A finding the studio acknowledged is stated plainly as a limit, with the studio's reason
+    // (shared/families/publishPolicy.ts decides which findings may be published this way at all).
+    const ack = variant.acknowledgements.find((a) => a.code === warning.code);
+    list.push({
+      title: ack ? `Acknowledged limit: ${warningTitle(warning.code).toLowerCase()}` : warningTitle(warning.code),
+      text: pdfText(ack ? `${warning.message} ${studioReason(ack.text)}` : warning.message),
+      source: pdfText(warning.source),
+    });
   }
   list.push({
     title: 'Local rules',

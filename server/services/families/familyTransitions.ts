@@ -1,6 +1,7 @@
 /** Workflow steps on a family (submit, approve, return, publish, retire) with their audit events and e-mails. */
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { FAMILY_TRANSITIONS, transitionRefusal } from '../../../shared/families/familyWorkflow';
+import { publishBlockers, publishRefusal } from '../../../shared/families/publishPolicy';
 import type { Person } from '../../../shared/schemas/auth';
 import type { FamilyAction } from '../../../shared/schemas/familySpec';
 import type { ReviewComment } from '../../../shared/schemas/review';
@@ -99,6 +100,16 @@ export async function transitionFamily(
           `cannot submit: ${gate.blockers.map((b) => b.message).join('; ')}`,
           gate,
         );
+      }
+    }
+    if (action === 'publish') {
+      // An acknowledgement gets a family through review; some findings still keep it out of the catalogue
+      // (shared/families/publishPolicy.ts; the README's table).
+      const blocked = publishBlockers((await gateOf(tx, target)).warnings);
+      if (blocked.length > 0) {
+        throw new HttpError(409, 'publish_blocked', publishRefusal(blocked), {
+          findings: blocked.map((w) => ({ code: w.code, skus: w.skus })),
+        });
       }
     }
     const now = new Date();
