@@ -103,7 +103,7 @@ export default async function bench(): Promise<void> {
     materialId: 'pla',
     region: 'europe',
     targets: { maxUnitCostCents: null, maxPrintHours: null, maxMassG: null, minInsulation: null },
-    printRecipe: { wallLoops: null, infillPct: null },
+    printRecipe: { perimeters: null, infillPct: null },
   });
   const [revision] = await db.select().from(familyRevisions).where(eq(familyRevisions.familyId, family.id));
   const jobs = familyJobs(ctx);

@@ -47,20 +47,20 @@ function bruteForce(printers: PrinterProfile[]): WallRecipePoint[] {
   const points: WallRecipePoint[] = [];
   for (const printer of printers) {
     for (const t of grid) {
-      for (let wallLoops = 2; wallLoops <= 5; wallLoops++) {
+      for (let perimeters = 2; perimeters <= 5; perimeters++) {
         for (let infillPct = 5; infillPct <= 60; infillPct++) {
           if (gridCellSizeMm(printer.lineWidthMm, infillPct) > 6 + 1e-9) continue;
-          const settings = { ...DEFAULT_SETTINGS, wallLoops, infillPct };
+          const settings = { ...DEFAULT_SETTINGS, perimeters, infillPct };
           const e = estimateProduction(hollowBox(t), printer, pla, settings, DEFAULT_RATES);
           const r = wallResistance({
             wallThicknessMm: t,
-            wallLoops,
+            perimeters,
             lineWidthMm: printer.lineWidthMm,
             infillPct,
             polymerK: pla.thermalConductivityWmK,
           });
           points.push({
-            recipe: { wallThicknessMm: t, wallLoops, infillPct },
+            recipe: { wallThicknessMm: t, perimeters, infillPct },
             printerId: printer.id,
             unitCostCents: e.cost.totalCents,
             printTimeMin: e.printTimeMin,
@@ -88,7 +88,7 @@ function cheapestMeeting(points: WallRecipePoint[], targetR: number): WallRecipe
 }
 
 const key = (p: WallRecipePoint): string =>
-  `${p.printerId}/${p.recipe.wallThicknessMm}/${p.recipe.wallLoops}/${p.recipe.infillPct}`;
+  `${p.printerId}/${p.recipe.wallThicknessMm}/${p.recipe.perimeters}/${p.recipe.infillPct}`;
 
 describe('optimizeWallRecipe', () => {
   const options = {

@@ -32,7 +32,7 @@ const printer = PrinterProfileSchema.parse({
 /** Hand-checkable print settings: 3 perimeters, 4 top and bottom layers, 15 % infill at 100 mm/s. */
 const SETTINGS = {
   ...DEFAULT_SETTINGS,
-  wallLoops: 3,
+  perimeters: 3,
   infillPct: 15,
   printSpeedMmS: 100,
   topLayers: 4,

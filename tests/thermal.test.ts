@@ -44,7 +44,7 @@ describe('solAirTemperature', () => {
 describe('wallResistance', () => {
   it('gives about 0.018 m²K/W for a 2.4 mm solid PLA wall', () => {
     // source: computed from k (USDA FPL Wood Handbook Table 4-7; MakeItFrom PLA data sheet) — a 2.4 mm solid PLA wall ≈ 0.018 (k 0.13, MakeItFrom)
-    const r = wallResistance({ wallThicknessMm: 2.4, wallLoops: 3, lineWidthMm: 0.45, infillPct: 15, polymerK: 0.13 });
+    const r = wallResistance({ wallThicknessMm: 2.4, perimeters: 3, lineWidthMm: 0.45, infillPct: 15, polymerK: 0.13 });
     expect(r.coreThicknessMm).toBe(0);
     expect(Math.abs(r.rM2KW - 0.018)).toBeLessThan(0.001);
     expect(r.limits.join(' ')).toMatch(/no enclosed air cells/);
@@ -52,14 +52,14 @@ describe('wallResistance', () => {
 
   it('compares with a 19 mm pine board of about 0.17 m²K/W', () => {
     // source: computed from k (USDA FPL Wood Handbook Table 4-7; MakeItFrom PLA data sheet) — ¾ in (19 mm) pine ≈ 0.17 m²K/W (k 0.11, USDA Wood Handbook)
-    const r = wallResistance({ wallThicknessMm: 2.4, wallLoops: 3, lineWidthMm: 0.45, infillPct: 15, polymerK: 0.13 });
+    const r = wallResistance({ wallThicknessMm: 2.4, perimeters: 3, lineWidthMm: 0.45, infillPct: 15, polymerK: 0.13 });
     expect(Math.abs(r.pineBoardRM2KW - 0.17)).toBeLessThan(0.005);
     expect(r.ratioToPine).toBeLessThan(0.15);
   });
 
   it('puts the parallel-path core near a measured printed cellular panel', () => {
     // source: Anwajler et al., Materials 17(24):6293 (2024) — 0.038 W/m·K at 90 % porosity
-    const wall = { wallThicknessMm: 20.9, wallLoops: 1, lineWidthMm: 0.45, infillPct: 10, polymerK: 0.13 };
+    const wall = { wallThicknessMm: 20.9, perimeters: 1, lineWidthMm: 0.45, infillPct: 10, polymerK: 0.13 };
     const r = wallResistance(wall);
     const skinR = r.skinThicknessMm / 1000 / wall.polymerK;
     const coreK = r.coreThicknessMm / 1000 / (r.rM2KW - skinR);
@@ -68,7 +68,7 @@ describe('wallResistance', () => {
 
   it('keeps the series value above the parallel one and warns about large cells', () => {
     // analytic: the series (Reuss) bound on resistance is never below the parallel (Voigt) one
-    const r = wallResistance({ wallThicknessMm: 12, wallLoops: 2, lineWidthMm: 0.45, infillPct: 10, polymerK: 0.13 });
+    const r = wallResistance({ wallThicknessMm: 12, perimeters: 2, lineWidthMm: 0.45, infillPct: 10, polymerK: 0.13 });
     expect(r.rUpperM2KW).toBeGreaterThan(r.rM2KW);
     // source: Grabowska & Kasperski 2020 — cells above ~6 mm let air move
     expect(r.infillCellSizeMm).toBeCloseTo(9, 6);
@@ -77,7 +77,7 @@ describe('wallResistance', () => {
 
   it('insulates better with thicker walls and with more air in the core', () => {
     // analytic: R grows with thickness; air (0.026) conducts less than PLA (0.13)
-    const base = { wallThicknessMm: 10, wallLoops: 2, lineWidthMm: 0.45, infillPct: 20, polymerK: 0.13 };
+    const base = { wallThicknessMm: 10, perimeters: 2, lineWidthMm: 0.45, infillPct: 20, polymerK: 0.13 };
     expect(wallResistance({ ...base, wallThicknessMm: 15 }).rM2KW).toBeGreaterThan(wallResistance(base).rM2KW);
     expect(wallResistance({ ...base, infillPct: 10 }).rM2KW).toBeGreaterThan(wallResistance(base).rM2KW);
   });
@@ -123,7 +123,7 @@ describe('assessOutdoor', () => {
     const a = assessOutdoor({
       material: pla,
       colourId: 'white',
-      wall: { wallThicknessMm: 3, wallLoops: 3, lineWidthMm: 0.45, infillPct: 15 },
+      wall: { wallThicknessMm: 3, perimeters: 3, lineWidthMm: 0.45, infillPct: 15 },
     });
     expect(a.wallResistance?.rM2KW).toBeGreaterThan(0);
     expect(a.cautions.join(' ')).toMatch(/19 mm pine/);

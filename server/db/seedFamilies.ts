@@ -67,7 +67,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
       materialId: 'pla',
       region: 'europe',
       targets: HEDGEROW_TARGETS,
-      printRecipe: { wallLoops: 2, infillPct: 23 },
+      printRecipe: { perimeters: 2, infillPct: 23 },
     },
   },
   {
@@ -94,7 +94,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
         maxMassG: 700,
         minInsulation: { kind: 'pine-board', boardMm: 15 },
       },
-      printRecipe: { wallLoops: 2, infillPct: 23 },
+      printRecipe: { perimeters: 2, infillPct: 23 },
     },
   },
   {
@@ -116,7 +116,7 @@ const FAMILIES: Array<{ body: FamilyCreate; target: 'published' | 'in_review' | 
       region: 'europe',
       // The same targets as the Hedgerow Gable: the clear coat's hand work is what the designer still has to fit in.
       targets: HEDGEROW_TARGETS,
-      printRecipe: { wallLoops: 2, infillPct: 23 },
+      printRecipe: { perimeters: 2, infillPct: 23 },
     },
   },
 ];

@@ -96,7 +96,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
     // The side wall as printed with the family's perimeters and infill (the template's designed thickness).
     const wall = wallInsulationFigures(
       geometry.facts.wallThicknessMm,
-      settings.wallLoops,
+      settings.perimeters,
       printer.lineWidthMm,
       settings.infillPct,
       material.thermalConductivityWmK,

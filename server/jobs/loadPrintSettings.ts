@@ -1,5 +1,5 @@
 import type { CostRates, PrintSettings } from '../../shared/schemas/production';
-import type { PrintRecipe } from '../../shared/schemas/wallRecipe';
+import { PrintRecipeSchema, type PrintRecipe } from '../../shared/schemas/wallRecipe';
 import type { Queryable } from '../db/client';
 import { loadProductionCatalogue } from '../services/productionCatalogue';
 
@@ -14,11 +14,13 @@ export async function loadPrintSettings(
   recipe: PrintRecipe | null | undefined,
 ): Promise<{ settings: PrintSettings; rates: CostRates }> {
   const catalogue = await loadProductionCatalogue(db);
+  // Read through the schema: a recipe stored under the old key (`wallLoops`) keeps its value.
+  const r = recipe ? PrintRecipeSchema.parse(recipe) : null;
   return {
     settings: {
       ...catalogue.settings,
-      ...(recipe?.wallLoops != null ? { wallLoops: recipe.wallLoops } : {}),
-      ...(recipe?.infillPct != null ? { infillPct: recipe.infillPct } : {}),
+      ...(r?.perimeters != null ? { perimeters: r.perimeters } : {}),
+      ...(r?.infillPct != null ? { infillPct: r.infillPct } : {}),
     },
     rates: catalogue.rates,
   };

@@ -12,7 +12,7 @@ import type { VariantGeometry } from './variantGeometry';
 
 /** The print recipe's own numeric parameters, moved like template parameters. */
 const RECIPE_PARAMETERS: SensitivityParameter[] = [
-  { key: 'wallLoops', label: 'Perimeters', step: 1, unit: '', min: 1, max: 20 },
+  { key: 'perimeters', label: 'Perimeters', step: 1, unit: '', min: 1, max: 20 },
   { key: 'infillPct', label: 'Infill', step: 5, unit: '%', min: 0, max: 100 },
 ];
 
@@ -84,7 +84,7 @@ export async function addTargetDrivers(
       ...Object.fromEntries(
         Object.entries(row.params).filter((entry): entry is [string, number] => typeof entry[1] === 'number'),
       ),
-      wallLoops: context.settings.wallLoops,
+      perimeters: context.settings.perimeters,
       infillPct: context.settings.infillPct,
     };
     const drivers = await findTargetDrivers(
@@ -93,7 +93,7 @@ export async function addTargetDrivers(
       parameters,
       async (changed) => {
         const [key, value] = Object.entries(changed)[0]!;
-        if (key === 'wallLoops' || key === 'infillPct') {
+        if (key === 'perimeters' || key === 'infillPct') {
           const settings = { ...context.settings, [key]: value };
           return figuresOf(evaluateVariant(await geometry(row.params), { ...variantContext, settings }));
         }

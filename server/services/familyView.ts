@@ -1,4 +1,5 @@
 /** Reads families from the database into the API shapes of shared/schemas/family.ts. */
+import { PrintRecipeSchema } from '../../shared/schemas/wallRecipe';
 import { asc, desc, eq, inArray } from 'drizzle-orm';
 import { allowedActions } from '../../shared/families/familyWorkflow';
 import { evaluateFamilyGate } from '../../shared/families/familyGate';
@@ -190,7 +191,7 @@ export async function familyView(db: Queryable, id: string, person: Person): Pro
     materialId: current.materialId,
     region: current.region,
     targets: current.targets,
-    printRecipe: current.printRecipe,
+    printRecipe: PrintRecipeSchema.parse(current.printRecipe),
     owner: actor(names, family.ownerId),
     state: current.state,
     revision: current.number,

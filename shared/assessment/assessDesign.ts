@@ -173,7 +173,7 @@ export function productionInputOf(measure: DesignMeasure, heightMm: number): Pro
 export function printedWallOf(wallThicknessMm: number, choice: Pick<DesignChoice, 'printer' | 'settings'>) {
   return {
     wallThicknessMm,
-    wallLoops: choice.settings.wallLoops,
+    perimeters: choice.settings.perimeters,
     lineWidthMm: choice.printer.lineWidthMm,
     infillPct: choice.settings.infillPct,
   };

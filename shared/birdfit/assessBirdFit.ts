@@ -89,7 +89,6 @@ export function thinWallWarning(
   };
 }
 
-
 function fitOne(facts: NestBoxFacts, s: Species): SpeciesFit {
   const reasons: string[] = [];
   const hole = facts.entryHoleDiameterMm;

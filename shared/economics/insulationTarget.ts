@@ -37,21 +37,21 @@ export interface WallInsulationFigures {
  * wall-recipe optimizer judge it: R by the parallel-path model, and cells above {@link CONVECTION_CELL_MM} (where
  * air starts to move, Grabowska & Kasperski 2020) do not count as still air.
  * @param wallThicknessMm - wall thickness
- * @param wallLoops - perimeters on each face
+ * @param perimeters - perimeters on each face
  * @param lineWidthMm - extrusion line width
  * @param infillPct - core infill density, 0–100
  * @param polymerK - conductivity of the solid polymer, W/m·K
  */
 export function wallInsulationFigures(
   wallThicknessMm: number,
-  wallLoops: number,
+  perimeters: number,
   lineWidthMm: number,
   infillPct: number,
   polymerK: number,
 ): WallInsulationFigures {
-  const hasCore = wallThicknessMm > 2 * wallLoops * lineWidthMm + 1e-9;
+  const hasCore = wallThicknessMm > 2 * perimeters * lineWidthMm + 1e-9;
   return {
-    wallRM2KW: wallResistanceM2KW(wallThicknessMm, wallLoops, lineWidthMm, infillPct, polymerK),
+    wallRM2KW: wallResistanceM2KW(wallThicknessMm, perimeters, lineWidthMm, infillPct, polymerK),
     wallCellMm: hasCore ? gridCellSizeMm(lineWidthMm, infillPct) : null,
     wallCellInfillPct: Math.ceil((200 * lineWidthMm) / CONVECTION_CELL_MM),
   };

@@ -75,7 +75,7 @@ export function optimizeWallRecipe(options: WallOptimizeOptions): WallOptimum {
     const thickest = all.reduce((a, b) => (b.rM2KW > a.rM2KW ? b : a));
     reason =
       `No recipe reaches R ${targetRM2KW.toFixed(3)} m²K/W: the best is ${thickest.rM2KW.toFixed(3)} m²K/W at ` +
-      `${thickest.recipe.wallThicknessMm} mm, ${thickest.recipe.wallLoops} perimeters and ` +
+      `${thickest.recipe.wallThicknessMm} mm, ${thickest.recipe.perimeters} perimeters and ` +
       `${thickest.recipe.infillPct} % infill. Allow a thicker wall or a lower target.`;
   }
   const shown = best ?? (all.length > 0 ? all.reduce((a, b) => (b.rM2KW > a.rM2KW ? b : a)) : null);
@@ -105,25 +105,25 @@ function searchPrinter(
   const lineMm = printer.lineWidthMm;
   const k = material.thermalConductivityWmK;
   const pineRM2KW = boardResistanceM2KW(PINE_BOARD_MM);
-  const loopsList = range(o.minWallLoops, Math.max(o.minWallLoops, o.maxWallLoops), 1);
+  const perimeterCounts = range(o.minPerimeters, Math.max(o.minPerimeters, o.maxPerimeters), 1);
   const infills = range(o.minInfillPct, o.maxInfillPct, o.infillStepPct).filter(
     (pct) => gridCellSizeMm(lineMm, pct) <= o.maxCellMm + 1e-9,
   );
   let searched = 0;
-  const evaluate = (t: number, wallLoops: number, infillPct: number): WallRecipePoint => {
+  const evaluate = (t: number, perimeters: number, infillPct: number): WallRecipePoint => {
     searched++;
     const estimate = estimateProductionUnchecked(
       inputFor(t),
       printer,
       material,
-      { ...o.settings, wallLoops, infillPct },
+      { ...o.settings, perimeters, infillPct },
       o.rates,
       o.finishId,
     );
-    const rM2KW = wallResistanceM2KW(t, wallLoops, lineMm, infillPct, k);
-    const allSkin = 2 * wallLoops * lineMm >= t;
+    const rM2KW = wallResistanceM2KW(t, perimeters, lineMm, infillPct, k);
+    const allSkin = 2 * perimeters * lineMm >= t;
     return {
-      recipe: { wallThicknessMm: t, wallLoops, infillPct },
+      recipe: { wallThicknessMm: t, perimeters, infillPct },
       printerId: printer.id,
       unitCostCents: estimate.cost.totalCents,
       printTimeMin: estimate.printTimeMin,
@@ -136,11 +136,11 @@ function searchPrinter(
 
   // The cheapest recipe: per perimeters × infill, the thinnest wall on the grid that reaches the target.
   let best: WallRecipePoint | null = null;
-  for (const wallLoops of loopsList) {
+  for (const perimeters of perimeterCounts) {
     for (const infillPct of infills) {
-      const t = thinnestOnGrid(thicknesses, targetRM2KW, wallLoops, lineMm, infillPct, k);
+      const t = thinnestOnGrid(thicknesses, targetRM2KW, perimeters, lineMm, infillPct, k);
       if (t === null) continue;
-      const point = evaluate(t, wallLoops, infillPct);
+      const point = evaluate(t, perimeters, infillPct);
       if (!best || better(point, best)) best = point;
     }
   }
@@ -152,9 +152,9 @@ function searchPrinter(
   const cloudInfills = infills.filter((pct, i) => i === 0 || pct % CLOUD_INFILL_STEP_PCT === 0);
   const all: WallRecipePoint[] = [];
   for (const t of thicknesses)
-    for (const wallLoops of loopsList)
-      for (const infillPct of wallLoops === loopsList[0] ? cloudInfills : cloudInfills.slice(1))
-        all.push(evaluate(t, wallLoops, infillPct));
+    for (const perimeters of perimeterCounts)
+      for (const infillPct of perimeters === perimeterCounts[0] ? cloudInfills : cloudInfills.slice(1))
+        all.push(evaluate(t, perimeters, infillPct));
   if (best && !all.some((p) => sameRecipe(p, best!))) all.push(best);
   const noInfill =
     infills.length === 0
@@ -168,7 +168,7 @@ function sameRecipe(a: WallRecipePoint, b: WallRecipePoint): boolean {
   return (
     a.printerId === b.printerId &&
     a.recipe.wallThicknessMm === b.recipe.wallThicknessMm &&
-    a.recipe.wallLoops === b.recipe.wallLoops &&
+    a.recipe.perimeters === b.recipe.perimeters &&
     a.recipe.infillPct === b.recipe.infillPct
   );
 }
@@ -188,19 +188,19 @@ function better(a: WallRecipePoint, b: WallRecipePoint): boolean {
 function thinnestOnGrid(
   thicknesses: readonly number[],
   targetRM2KW: number,
-  wallLoops: number,
+  perimeters: number,
   lineMm: number,
   infillPct: number,
   k: number,
 ): number | null {
-  const skinMm = 2 * wallLoops * lineMm;
+  const skinMm = 2 * perimeters * lineMm;
   const skinR = skinMm / 1000 / k;
   const fill = infillPct / 100;
   const coreK = fill * k + (1 - fill) * AIR_K_WMK;
   const boundMm = targetRM2KW <= skinR ? targetRM2KW * k * 1000 : skinMm + (targetRM2KW - skinR) * coreK * 1000;
   let i = thicknesses.findIndex((t) => t >= boundMm - 1e-9);
   if (i < 0) return null;
-  while (i < thicknesses.length && wallResistanceM2KW(thicknesses[i]!, wallLoops, lineMm, infillPct, k) < targetRM2KW)
+  while (i < thicknesses.length && wallResistanceM2KW(thicknesses[i]!, perimeters, lineMm, infillPct, k) < targetRM2KW)
     i++;
   return i < thicknesses.length ? thicknesses[i]! : null;
 }

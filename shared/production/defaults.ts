@@ -161,7 +161,7 @@ export const DEFAULT_MATERIALS: Material[] = [
  * recommended for parts (common practice, no source). The wall-recipe optimizer and each family may choose others.
  */
 export const DEFAULT_SETTINGS: PrintSettings = {
-  wallLoops: 2,
+  perimeters: 2,
   topLayers: 4,
   bottomLayers: 4,
   infillPct: 15,

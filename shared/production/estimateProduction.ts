@@ -80,7 +80,7 @@ export function estimateProductionUnchecked(
   const downMm2 = part.downFacingAreaMm2 ?? part.footprintMm2;
   const sideMm2 = Math.max(0, part.surfaceAreaMm2 - upMm2 - downMm2);
   const shellUncappedMm3 =
-    sideMm2 * s.wallLoops * p.lineWidthMm +
+    sideMm2 * s.perimeters * p.lineWidthMm +
     upMm2 * s.topLayers * p.layerHeightMm +
     downMm2 * s.bottomLayers * p.layerHeightMm;
   const shellVolumeMm3 = Math.min(part.volumeMm3, shellUncappedMm3);

@@ -5,7 +5,7 @@ import { MaterialSchema } from './production';
 export const WallResistanceInputSchema = z.object({
   wallThicknessMm: z.number().positive(),
   /** Perimeters on each face of the wall. */
-  wallLoops: z.number().int().min(1),
+  perimeters: z.number().int().min(1),
   lineWidthMm: z.number().positive(),
   /** Infill density of the core, 0–100. */
   infillPct: z.number().min(0).max(100),

@@ -66,7 +66,7 @@ export type Material = z.infer<typeof MaterialSchema>;
 /** Slicer-like settings that change mass, time and cost. */
 export const PrintSettingsSchema = z.object({
   /** Perimeters (walls) on every side of the part. */
-  wallLoops: z.number().int().min(1).max(20),
+  perimeters: z.number().int().min(1).max(20),
   topLayers: z.number().int().min(0).max(50),
   bottomLayers: z.number().int().min(0).max(50),
   /** Sparse infill density of the part's core, 0–100. */

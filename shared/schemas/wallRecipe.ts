@@ -15,7 +15,7 @@ import {
 export const WallRecipeSchema = z.object({
   wallThicknessMm: z.number().positive().max(100),
   /** Perimeters on each face of the wall. */
-  wallLoops: z.number().int().min(1).max(20),
+  perimeters: z.number().int().min(1).max(20),
   /** Infill density of the wall's core, 0–100. */
   infillPct: z.number().min(0).max(100),
 });
@@ -26,10 +26,32 @@ export type WallRecipe = z.infer<typeof WallRecipeSchema>;
  * A family's own perimeters and infill for every variant; null keeps the studio's print settings. The wall-recipe
  * optimizer writes these together with the wall thickness parameter.
  */
-export const PrintRecipeSchema = z.object({
-  wallLoops: z.number().int().min(1, 'at least 1 perimeter').max(20, 'at most 20 perimeters').nullable().default(null),
-  infillPct: z.number().min(0, 'infill must be 0–100 %').max(100, 'infill must be 0–100 %').nullable().default(null),
-});
+export const PrintRecipeSchema = z.preprocess(
+  renamedPerimeters,
+  z.object({
+    perimeters: z
+      .number()
+      .int()
+      .min(1, 'at least 1 perimeter')
+      .max(20, 'at most 20 perimeters')
+      .nullable()
+      .default(null),
+    infillPct: z.number().min(0, 'infill must be 0–100 %').max(100, 'infill must be 0–100 %').nullable().default(null),
+  }),
+);
+
+/**
+ * Reads a recipe saved before perimeters had their own name (`wallLoops`): the old key is taken as `perimeters`
+ * when the new one is absent, so saved families and requests from an older page keep their value.
+ * @param value - a recipe as sent or stored
+ */
+export function renamedPerimeters(value: unknown): unknown {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return value;
+  const record = value as Record<string, unknown>;
+  if (!('wallLoops' in record)) return value;
+  const { wallLoops, ...rest } = record;
+  return 'perimeters' in rest ? rest : { ...rest, perimeters: wallLoops };
+}
 /** A family's print recipe (see {@link PrintRecipeSchema}). */
 export type PrintRecipe = z.infer<typeof PrintRecipeSchema>;
 
@@ -72,7 +94,7 @@ export type TargetKey = z.infer<typeof TargetKeySchema>;
 
 /** The parameter that moves a figure most, from finite differences over the variant's numeric parameters. */
 export const TargetDriverSchema = z.object({
-  /** Template parameter key, or `wallLoops` / `infillPct` of the print recipe. */
+  /** Template parameter key, or `perimeters` / `infillPct` of the print recipe. */
   key: z.string(),
   label: z.string(),
   /** Step the parameter was moved by, in its own unit. */
@@ -151,8 +173,8 @@ export const WallOptimizeOptionsSchema = z.object({
   rates: CostRatesSchema,
   finishId: z.string().nullable().default(null),
   /** Fewest and most perimeters per face; two is the usual minimum for a sound outer skin. */
-  minWallLoops: z.number().int().min(1).max(20).default(2),
-  maxWallLoops: z.number().int().min(1).max(20).default(5),
+  minPerimeters: z.number().int().min(1).max(20).default(2),
+  maxPerimeters: z.number().int().min(1).max(20).default(5),
   /** Infill densities searched, %, in steps of `infillStepPct`. */
   minInfillPct: z.number().min(0).max(100).default(5),
   maxInfillPct: z.number().min(0).max(100).default(60),

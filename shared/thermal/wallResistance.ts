@@ -13,7 +13,7 @@ export const CONVECTION_CELL_MM = 6;
  * The stated (parallel-path) resistance of {@link wallResistance} as a bare number, without validation or texts:
  * for searches that evaluate it thousands of times.
  * @param wallThicknessMm - wall thickness
- * @param wallLoops - perimeters on each face
+ * @param perimeters - perimeters on each face
  * @param lineWidthMm - extrusion line width
  * @param infillPct - core infill density, 0–100
  * @param polymerK - conductivity of the solid polymer, W/m·K
@@ -21,12 +21,12 @@ export const CONVECTION_CELL_MM = 6;
  */
 export function wallResistanceM2KW(
   wallThicknessMm: number,
-  wallLoops: number,
+  perimeters: number,
   lineWidthMm: number,
   infillPct: number,
   polymerK: number,
 ): number {
-  const skinThicknessMm = Math.min(wallThicknessMm, 2 * wallLoops * lineWidthMm);
+  const skinThicknessMm = Math.min(wallThicknessMm, 2 * perimeters * lineWidthMm);
   const fill = infillPct / 100;
   const kParallel = fill * polymerK + (1 - fill) * AIR_K_WMK;
   return skinThicknessMm / 1000 / polymerK + (wallThicknessMm - skinThicknessMm) / 1000 / kParallel;
@@ -64,12 +64,12 @@ export function boardResistanceM2KW(boardMm: number, woodK = PINE_K_WMK): number
  */
 export function wallResistance(input: WallResistanceInput): WallResistance {
   const w = WallResistanceInputSchema.parse(input);
-  const skinThicknessMm = Math.min(w.wallThicknessMm, 2 * w.wallLoops * w.lineWidthMm);
+  const skinThicknessMm = Math.min(w.wallThicknessMm, 2 * w.perimeters * w.lineWidthMm);
   const coreThicknessMm = w.wallThicknessMm - skinThicknessMm;
   const fill = w.infillPct / 100;
   const kSeries = 1 / (fill / w.polymerK + (1 - fill) / AIR_K_WMK);
   const skinR = skinThicknessMm / 1000 / w.polymerK;
-  const rM2KW = wallResistanceM2KW(w.wallThicknessMm, w.wallLoops, w.lineWidthMm, w.infillPct, w.polymerK);
+  const rM2KW = wallResistanceM2KW(w.wallThicknessMm, w.perimeters, w.lineWidthMm, w.infillPct, w.polymerK);
   const rUpperM2KW = skinR + coreThicknessMm / 1000 / kSeries;
   const infillCellSizeMm = coreThicknessMm > 0 && fill > 0 ? gridCellSizeMm(w.lineWidthMm, w.infillPct) : null;
   const pineBoardRM2KW = boardResistanceM2KW(PINE_BOARD_MM);

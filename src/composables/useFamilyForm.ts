@@ -55,7 +55,7 @@ export function useFamilyForm() {
     maxMassG: null,
     minInsulation: null,
   });
-  const printRecipe = ref<PrintRecipe>({ wallLoops: null, infillPct: null });
+  const printRecipe = ref<PrintRecipe>({ perimeters: null, infillPct: null });
   /** Re-pin an existing family to the template's current version when saving. */
   const repin = ref(false);
 

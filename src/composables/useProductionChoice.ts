@@ -92,7 +92,7 @@ export function useProductionChoice(): ProductionChoiceState {
       // The design's own perimeters and infill (from the wall-recipe optimizer) over the studio's settings.
       settings: {
         ...catalogue.settings,
-        ...(design.printRecipe.wallLoops !== null ? { wallLoops: design.printRecipe.wallLoops } : {}),
+        ...(design.printRecipe.perimeters !== null ? { perimeters: design.printRecipe.perimeters } : {}),
         ...(design.printRecipe.infillPct !== null ? { infillPct: design.printRecipe.infillPct } : {}),
       },
       rates: catalogue.rates,

@@ -20,7 +20,7 @@ export const useDesignStore = defineStore('design', () => {
   const preset = ref<Preset | null>(null);
   const savedParamsJson = ref('{}');
   /** Perimeters and infill chosen for this design (null: the studio's print settings), e.g. by the optimizer. */
-  const printRecipe = ref<PrintRecipe>({ wallLoops: null, infillPct: null });
+  const printRecipe = ref<PrintRecipe>({ perimeters: null, infillPct: null });
   const lengthDisplay = ref<LengthDisplay>(
     typeof localStorage !== 'undefined' && localStorage.getItem('nw.lengthDisplay') === 'in' ? 'in' : 'mm',
   );
@@ -34,7 +34,7 @@ export const useDesignStore = defineStore('design', () => {
    */
   function startNew(id: string, defaults: DesignParams): void {
     templateId.value = id;
-    printRecipe.value = { wallLoops: null, infillPct: null };
+    printRecipe.value = { perimeters: null, infillPct: null };
     params.value = { ...defaults };
     preset.value = null;
     savedParamsJson.value = JSON.stringify(params.value);
@@ -47,7 +47,7 @@ export const useDesignStore = defineStore('design', () => {
    */
   function openPreset(saved: Preset, defaults: DesignParams): void {
     templateId.value = saved.templateId;
-    printRecipe.value = { wallLoops: null, infillPct: null };
+    printRecipe.value = { perimeters: null, infillPct: null };
     const known = Object.fromEntries(Object.entries(saved.params).filter(([key]) => key in defaults));
     params.value = { ...defaults, ...(known as DesignParams) };
     preset.value = saved;

@@ -78,7 +78,7 @@ describe('production economics in the editor', () => {
     await page.getByTestId('wall-recipe-chosen').waitFor({ timeout: 180_000 });
     const chosen = {
       wallThicknessMm: parseFloat(await text(page, 'chosen-wall')),
-      wallLoops: parseInt(await text(page, 'chosen-loops'), 10),
+      perimeters: parseInt(await text(page, 'chosen-perimeters'), 10),
       infillPct: parseFloat(await text(page, 'chosen-infill')),
     };
     expect(await text(page, 'wall-recipe-chosen')).toContain('Cheapest recipe that meets the target');
@@ -101,8 +101,8 @@ describe('production economics in the editor', () => {
       material: DEFAULT_MATERIALS.find((material) => material.id === 'pla')!,
       settings: DEFAULT_SETTINGS,
       rates: DEFAULT_RATES,
-      minWallLoops: 2,
-      maxWallLoops: 5,
+      minPerimeters: 2,
+      maxPerimeters: 5,
       maxCellMm: CONVECTION_CELL_MM,
     });
     expect(chosen).toEqual(outside.best!.recipe);
@@ -117,7 +117,7 @@ describe('production economics in the editor', () => {
     await waitForBuild(page, firstHash);
     expect(Number(await page.locator('#input-wallThicknessMm').inputValue())).toBe(chosen.wallThicknessMm);
     expect(await text(page, 'design-recipe')).toContain(
-      `${chosen.wallLoops} perimeters and ${chosen.infillPct} % infill`,
+      `${chosen.perimeters} perimeters and ${chosen.infillPct} % infill`,
     );
     await expect
       .poll(() => text(page, 'target-insulation'), { timeout: 30_000 })
@@ -136,7 +136,7 @@ describe('production economics in the editor', () => {
       return ((await (await fetch(`/api/families/${id}`)).json()) as { family: Family }).family;
     });
     expect(family.baseParams.wallThicknessMm).toBe(chosen.wallThicknessMm);
-    expect(family.printRecipe).toEqual({ wallLoops: chosen.wallLoops, infillPct: chosen.infillPct });
+    expect(family.printRecipe).toEqual({ perimeters: chosen.perimeters, infillPct: chosen.infillPct });
     await page.screenshot({ path: `${SHOTS}/economics-applied.png` });
     expect(e2e.problems(page)).toEqual([]);
     await page.context().close();

@@ -65,7 +65,7 @@ export const familyRevisions = pgTable(
       .notNull()
       .default({ maxUnitCostCents: null, maxPrintHours: null, maxMassG: null, minInsulation: null }),
     /** The family's own perimeters and infill (nulls: the studio's print settings). */
-    printRecipe: jsonb('print_recipe').$type<PrintRecipe>().notNull().default({ wallLoops: null, infillPct: null }),
+    printRecipe: jsonb('print_recipe').$type<PrintRecipe>().notNull().default({ perimeters: null, infillPct: null }),
     computeState: text('compute_state').$type<ComputeState>().notNull().default('idle'),
     computeDone: integer('compute_done').notNull().default(0),
     computeTotal: integer('compute_total').notNull().default(0),
