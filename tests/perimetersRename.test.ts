@@ -55,5 +55,6 @@ describe('perimeters in a print recipe', () => {
       { perimeters: 4, infillPct: 10 },
     ]);
     await db.close();
-  });
+    // A fresh PGlite takes a while to start on a loaded machine.
+  }, 120_000);
 });
