@@ -15,7 +15,7 @@ import { getSalesSettings } from './salesSettings';
 import { renderSpecSheets } from './specSheet';
 
 /** Raise when the sheet's layout changes, so documents stored by an earlier version are not served again. */
-export const SPEC_SHEET_LAYOUT_VERSION = 1;
+export const SPEC_SHEET_LAYOUT_VERSION = 2;
 
 /**
  * The spec sheet of some published variants (one document, pages in order), opened for streaming: from the file
