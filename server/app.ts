@@ -31,6 +31,7 @@ import { farmNoticesRouter } from './routes/farmNotices';
 import { shopRouter } from './routes/shop';
 import { ordersRouter } from './routes/orders';
 import { paymentWebhooksRouter } from './routes/paymentWebhooks';
+import { repeatSentAnswers } from './services/catalogueCache';
 
 /** Largest JSON body the API accepts. */
 export const JSON_BODY_LIMIT = '1mb';
@@ -50,6 +51,9 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}): Expr
   const app = express();
   app.disable('x-powered-by');
   if (ctx.env.TRUST_PROXY) app.set('trust proxy', parseTrustProxy(ctx.env.TRUST_PROXY));
+  // A catalogue or shop answer already sent, asked again (same URL and Accept-Encoding, cache still current, a
+  // remembered session with the right role): sent again as it was, before the rest of the chain.
+  app.use(repeatSentAnswers(ctx));
   // gzip/brotli for JSON, pages and scripts over 1 KB; event streams stay unbuffered; cached answers come pre-encoded.
   app.use(compression({ filter: compressible }));
   // Security headers (CSP, nosniff, no framing, referrer policy) on every answer: pages, files and API.

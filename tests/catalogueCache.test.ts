@@ -1,7 +1,8 @@
 /**
  * The cache of catalogue and shop answers: an answer carries a strong ETag and If-None-Match with it gets 304 and no
- * body (RFC 9110 §13.1.2, "If-None-Match", IETF, 2022); the gzip copy inflates (node:zlib) to the same JSON; and a
- * publish, a retire, new shop settings or a change written by another process (seen through the stamp) all show on
+ * body (RFC 9110 §13.1.2, "If-None-Match", IETF, 2022); the gzip copy inflates (node:zlib) to the same JSON; an answer
+ * sent again before the middleware chain has the same headers and bytes as the first and lets in the same people; and
+ * a publish, a retire, new shop settings or a change written by another process (seen through the stamp) all show on
  * the next read.
  */
 import { once } from 'node:events';
@@ -9,13 +10,15 @@ import { get, type IncomingHttpHeaders } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { gunzipSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
+import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import type { ShopProductList } from '../shared/schemas/shop';
+import { SESSION_COOKIE_NAME } from '../server/auth/lucia';
 import { families } from '../server/db/schema';
 import { STAMP_CHECK_MS } from '../server/services/catalogueCache';
 import { familyInState } from './familiesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -29,7 +32,7 @@ afterAll(async () => {
 async function rawGet(
   path: string,
   headers: Record<string, string>,
-): Promise<{ headers: IncomingHttpHeaders; body: Buffer }> {
+): Promise<{ status: number; headers: IncomingHttpHeaders; body: Buffer }> {
   const server = t.app.listen(0);
   await once(server, 'listening');
   try {
@@ -38,7 +41,9 @@ async function rawGet(
       get({ host: '127.0.0.1', port, path, headers }, (res) => {
         const chunks: Buffer[] = [];
         res.on('data', (chunk: Buffer) => chunks.push(chunk));
-        res.on('end', () => resolve({ headers: res.headers, body: Buffer.concat(chunks) }));
+        res.on('end', () =>
+          resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }),
+        );
       }).on('error', reject);
     });
   } finally {
@@ -75,6 +80,80 @@ describe('ETag and 304', () => {
     const moss = await sales.get('/api/catalogue?colour=moss-green');
     expect(all.headers.etag).not.toBe(moss.headers.etag);
     expect((moss.body.variants as CatalogueVariant[]).length).toBeLessThan((all.body.variants as unknown[]).length);
+  });
+});
+
+/** Signs in with supertest and returns the session cookie (name=value) for raw requests. */
+async function sessionCookie(email: string): Promise<string> {
+  const res = await supertest(t.app)
+    .post('/api/auth/sign-in')
+    .set('Origin', TEST_ORIGIN)
+    .send({ email, password: 'fernhollow-demo' });
+  expect(res.status).toBe(200);
+  const cookie = (res.headers['set-cookie'] as unknown as string[] | undefined)?.[0]?.split(';')[0];
+  if (!cookie) throw new Error('no session cookie');
+  return cookie;
+}
+
+/** Headers of an answer without the ones set per connection and per request. */
+function lasting(headers: IncomingHttpHeaders): IncomingHttpHeaders {
+  const { date: _date, connection: _connection, 'keep-alive': _keepAlive, ...rest } = headers;
+  return rest;
+}
+
+describe('answers sent again before the middleware chain', () => {
+  it('repeats the first answer byte for byte with the same headers, and its 304, for the catalogue and the shop', async () => {
+    const cookie = await sessionCookie('ada@fernhollow.test');
+    for (const [path, headers] of [
+      ['/api/catalogue', { cookie, 'accept-encoding': 'gzip, deflate, br' }],
+      ['/api/catalogue?colour=moss-green', { cookie, 'accept-encoding': 'gzip' }],
+      ['/api/shop/products', { 'accept-encoding': 'gzip, deflate, br' }],
+    ] as const) {
+      const first = await rawGet(path, headers);
+      const again = await rawGet(path, headers);
+      const third = await rawGet(path, headers);
+      expect(first.headers['content-encoding']).toBe('gzip');
+      // Security headers of the chain are part of what is repeated (helmet sets them on every answer).
+      expect(again.headers['content-security-policy']).toBeDefined();
+      expect(again.headers['x-content-type-options']).toBe('nosniff');
+      for (const later of [again, third]) {
+        expect(lasting(later.headers)).toEqual(lasting(first.headers));
+        expect(later.body.equals(first.body)).toBe(true);
+      }
+      expect(again.headers['set-cookie']).toBeUndefined();
+      const etag = first.headers.etag as string;
+      const notModified = await rawGet(path, { ...headers, 'if-none-match': `"other", ${etag}` });
+      expect(notModified.status).toBe(304);
+      expect(notModified.body.length).toBe(0);
+      expect(notModified.headers.etag).toBe(etag);
+      // A request that asks for no cached copy (Cache-Control: no-cache) gets the full answer (RFC 9111 §5.2.1.4).
+      const forced = await rawGet(path, { ...headers, 'if-none-match': etag, 'cache-control': 'no-cache' });
+      expect(forced.status).toBe(200);
+      expect(forced.body.equals(first.body)).toBe(true);
+    }
+  });
+
+  it('lets in only the people the route lets in: signed out gets 401 and a role without the catalogue gets 403', async () => {
+    const headers = { 'accept-encoding': 'gzip, deflate, br' };
+    const sales = await sessionCookie('ada@fernhollow.test');
+    expect((await rawGet('/api/catalogue', { ...headers, cookie: sales })).status).toBe(200);
+    expect((await rawGet('/api/catalogue', { ...headers, cookie: sales })).status).toBe(200);
+    expect((await rawGet('/api/catalogue', headers)).status).toBe(401);
+    const operations = await sessionCookie('ines@fernhollow.test');
+    // Twice: the second time the session is remembered, so the check is the repeat's own.
+    expect((await rawGet('/api/catalogue', { ...headers, cookie: operations })).status).toBe(403);
+    expect((await rawGet('/api/catalogue', { ...headers, cookie: operations })).status).toBe(403);
+    expect((await rawGet('/api/catalogue', { ...headers, cookie: `${SESSION_COOKIE_NAME}=unknown` })).status).toBe(401);
+  });
+
+  it('stops repeating a signed-out session at once', async () => {
+    const headers = { 'accept-encoding': 'gzip' };
+    const cookie = await sessionCookie('ada@fernhollow.test');
+    expect((await rawGet('/api/catalogue', { ...headers, cookie })).status).toBe(200);
+    expect((await rawGet('/api/catalogue', { ...headers, cookie })).status).toBe(200);
+    const out = await supertest(t.app).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', cookie);
+    expect(out.status).toBeLessThan(300);
+    expect((await rawGet('/api/catalogue', { ...headers, cookie })).status).toBe(401);
   });
 });
 

@@ -6,11 +6,15 @@ import { rememberSession, rememberedSession } from './sessionCache';
 import { clearSessionCookie, setSessionCookie } from './sessionCookie';
 
 /**
- * Validates the session cookie (a session validated in the last few seconds is taken from ./sessionCache): sets `res.locals.person` and `res.locals.sessionId` when valid, renews the cookie
- * when lucia extended the session, clears it when the session is unknown or expired.
+ * Validates the session cookie (a session validated in the last few seconds is taken from ./sessionCache, and
+ * requests arriving together with one cookie share one validation): sets `res.locals.person` and
+ * `res.locals.sessionId` when valid, renews the cookie when lucia extended the session, clears it when the session is
+ * unknown or expired.
  * @param ctx - app context
  */
 export function sessionMiddleware(ctx: AppContext): RequestHandler {
+  // Validations under way, by session id: requests that arrive together with one cookie share one database check.
+  const validating = new Map<string, ReturnType<typeof ctx.lucia.validateSession>>();
   return async (req, res, next) => {
     const sessionId = ctx.lucia.readSessionCookie(req.headers.cookie ?? '');
     if (!sessionId) {
@@ -24,7 +28,12 @@ export function sessionMiddleware(ctx: AppContext): RequestHandler {
       next();
       return;
     }
-    const { session, user } = await ctx.lucia.validateSession(sessionId);
+    let validation = validating.get(sessionId);
+    if (!validation) {
+      validation = ctx.lucia.validateSession(sessionId).finally(() => validating.delete(sessionId));
+      validating.set(sessionId, validation);
+    }
+    const { session, user } = await validation;
     // Deactivating ends every session; this also turns away one created in the same instant.
     if (!session || user.deactivatedAt) {
       if (session) await ctx.lucia.invalidateSession(session.id);

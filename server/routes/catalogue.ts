@@ -4,11 +4,15 @@
  */
 import { Router } from 'express';
 import { CatalogueQuerySchema, type CatalogueQuery } from '../../shared/schemas/catalogue';
+import type { Role } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { parsedQuery, validate } from '../http/validate';
 import { listCatalogueVariants } from '../services/catalogue';
 import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
+
+/** Roles that read the catalogue. */
+const CATALOGUE_READERS = ['sales', 'catalogue_manager', 'designer'] as const satisfies readonly Role[];
 
 /**
  * Builds the catalogue router (mounted at `/api/catalogue`).
@@ -16,17 +20,12 @@ import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/
  */
 export function catalogueRouter(ctx: AppContext): Router {
   const router = Router();
-  router.get(
-    '/',
-    requireRole('sales', 'catalogue_manager', 'designer'),
-    validate({ query: CatalogueQuerySchema }),
-    async (req, res) => {
-      const query = parsedQuery<CatalogueQuery>(res);
-      const answer = await cachedCatalogueAnswer(ctx, answerKey('catalogue', query), async () => ({
-        variants: await listCatalogueVariants(ctx, query),
-      }));
-      sendCachedAnswer(req, res, answer, 'private');
-    },
-  );
+  router.get('/', requireRole(...CATALOGUE_READERS), validate({ query: CatalogueQuerySchema }), async (req, res) => {
+    const query = parsedQuery<CatalogueQuery>(res);
+    const answer = await cachedCatalogueAnswer(ctx, answerKey('catalogue', query), async () => ({
+      variants: await listCatalogueVariants(ctx, query),
+    }));
+    sendCachedAnswer(ctx, req, res, answer, { scope: 'private', roles: CATALOGUE_READERS });
+  });
   return router;
 }

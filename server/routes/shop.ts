@@ -74,7 +74,7 @@ export function shopRouter(ctx: AppContext): Router {
     const answer = await cachedCatalogueAnswer(ctx, answerKey('shop-products', query), () =>
       listShopProducts(ctx, query),
     );
-    sendCachedAnswer(req, res, answer, 'public');
+    sendCachedAnswer(ctx, req, res, answer, { scope: 'public' });
   });
 
   router.get('/products/:slug', validate({ params: ShopSlugParamsSchema }), async (req, res) => {
@@ -84,7 +84,7 @@ export function shopRouter(ctx: AppContext): Router {
       if (!product) throw notFound('No such product in the shop.');
       return product;
     });
-    sendCachedAnswer(req, res, answer, 'public');
+    sendCachedAnswer(ctx, req, res, answer, { scope: 'public' });
   });
 
   router.post('/quote', validate({ body: ShopQuoteRequestSchema }), async (_req, res) => {
