@@ -494,6 +494,22 @@ describe('review workflow', () => {
     expect(res.body.families.every((f: { state: string }) => f.state === 'in_review')).toBe(true);
     expect((await manager.get('/api/families?state=nonsense')).status).toBe(400);
   });
+
+  it('shows in the list the same gate and variant count as the page of each family', async () => {
+    const manager = await t.agent('catalogue_manager');
+    const list = (await manager.get('/api/families')).body.families as Array<{
+      id: string;
+      gateOk: boolean;
+      variantCount: number;
+    }>;
+    // The demo has a published family (gate open), one in review and a draft never computed (gate closed).
+    expect(new Set(list.map((row) => row.gateOk))).toEqual(new Set([true, false]));
+    for (const row of list) {
+      const { family } = (await manager.get(`/api/families/${row.id}`)).body as { family: Family };
+      expect(row.gateOk, family.code).toBe(family.gate.ok);
+      expect(row.variantCount, family.code).toBe(family.variantCount);
+    }
+  });
 });
 
 describe('SKU format', () => {

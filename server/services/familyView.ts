@@ -117,12 +117,15 @@ export async function acknowledgementsOf(db: Queryable, revisionId: string): Pro
     db,
     rows.map((row) => row.personId),
   );
-  return rows.map((row) => ({
-    code: row.code,
-    text: row.text,
-    by: actor(names, row.personId),
-    at: row.at.toISOString(),
-  }));
+  return rows.map((row) => toAcknowledgement(row, names));
+}
+
+/** The API shape of an acknowledgement row. @param row - the stored row @param names - people by id */
+function toAcknowledgement(
+  row: typeof familyAcknowledgements.$inferSelect,
+  names: Map<string, Actor>,
+): Acknowledgement {
+  return { code: row.code, text: row.text, by: actor(names, row.personId), at: row.at.toISOString() };
 }
 
 /**
@@ -132,13 +135,22 @@ export async function acknowledgementsOf(db: Queryable, revisionId: string): Pro
  */
 export async function gateOf(db: Queryable, revision: FamilyRevisionRow): Promise<FamilyGate> {
   const variants = await db.select().from(familyVariants).where(eq(familyVariants.revisionId, revision.id));
+  return evaluateGateOf(revision, variants, await acknowledgementsOf(db, revision.id));
+}
+
+/** The gate of a revision from its variant rows and acknowledgements, already read. */
+function evaluateGateOf(
+  revision: FamilyRevisionRow,
+  variants: FamilyVariantRow[],
+  acknowledgements: Acknowledgement[],
+): FamilyGate {
   return evaluateFamilyGate({
     computeState: revision.computeState,
     supportBudgetMm3: revision.supportBudgetMm3,
     templateVersion: revision.templateVersion,
     currentTemplateVersion: findTemplate(revision.templateId)?.version ?? revision.templateVersion,
     variants: variants.map(toVariant),
-    acknowledgements: await acknowledgementsOf(db, revision.id),
+    acknowledgements,
   });
 }
 
@@ -223,22 +235,54 @@ async function countVariants(db: Queryable, revisionId: string): Promise<number>
   return rows.length;
 }
 
+/** Groups rows by a key. */
+function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
+  const groups = new Map<string, T[]>();
+  for (const row of rows) {
+    const group = groups.get(key(row));
+    if (group) group.push(row);
+    else groups.set(key(row), [row]);
+  }
+  return groups;
+}
+
 /**
- * Every family as a list row, most recently changed first.
+ * Every family as a list row, most recently changed first. The gates of all current revisions are evaluated from
+ * one read of their variants and one of their acknowledgements (not a query or three per family).
  * @param db - database
  */
 export async function familySummaries(db: Queryable): Promise<FamilySummary[]> {
   const rows = await db.select().from(families);
   const revisions = await db.select().from(familyRevisions);
-  const names = await actorsById(
-    db,
-    rows.map((row) => row.ownerId),
-  );
-  const summaries: FamilySummary[] = [];
+  const currents = new Map<string, FamilyRevisionRow>();
   for (const family of rows) {
     const current = revisions.find((r) => r.familyId === family.id && r.number === family.currentRevision);
+    if (current) currents.set(family.id, current);
+  }
+  const currentIds = [...currents.values()].map((revision) => revision.id);
+  const variantRows = currentIds.length
+    ? await db.select().from(familyVariants).where(inArray(familyVariants.revisionId, currentIds))
+    : [];
+  const ackRows = currentIds.length
+    ? await db
+        .select()
+        .from(familyAcknowledgements)
+        .where(inArray(familyAcknowledgements.revisionId, currentIds))
+        .orderBy(asc(familyAcknowledgements.id))
+    : [];
+  const names = await actorsById(db, [...rows.map((row) => row.ownerId), ...ackRows.map((row) => row.personId)]);
+  const variantsOf = groupBy(variantRows, (row) => row.revisionId);
+  const acksOf = groupBy(ackRows, (row) => row.revisionId);
+  const summaries: FamilySummary[] = [];
+  for (const family of rows) {
+    const current = currents.get(family.id);
     if (!current) continue;
-    const gate = await gateOf(db, current);
+    const variants = variantsOf.get(current.id) ?? [];
+    const gate = evaluateGateOf(
+      current,
+      variants,
+      (acksOf.get(current.id) ?? []).map((row) => toAcknowledgement(row, names)),
+    );
     const updated = current.updatedAt > family.updatedAt ? current.updatedAt : family.updatedAt;
     summaries.push({
       id: family.id,
@@ -250,7 +294,7 @@ export async function familySummaries(db: Queryable): Promise<FamilySummary[]> {
       state: current.state,
       revision: current.number,
       publishedRevision: family.publishedRevision,
-      variantCount: current.computeTotal || (await countVariants(db, current.id)),
+      variantCount: current.computeTotal || variants.length,
       updatedAt: updated.toISOString(),
       computeState: current.computeState,
       gateOk: gate.ok,
