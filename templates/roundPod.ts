@@ -172,11 +172,11 @@ function podCavity(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: Bu
       upperMm: upperInner,
       lowerMm: bli,
       cutZMm: floorZ,
-      steps: context.pick(PROFILE_STEPS, 6),
+      steps: context.pick(PROFILE_STEPS, 4),
       coneTop: true,
       coneBottom: false,
     }),
-    context.pick(SEGMENTS, 24),
+    context.pick(SEGMENTS, 16),
   );
 }
 
@@ -190,7 +190,7 @@ function podFloor(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: Buil
     cleaningAccess: p.cleaningAccess,
     clearanceMm: p.printClearanceMm,
     drainageHoles: p.drainageHoles,
-    segments: context.pick(64, 24),
+    segments: context.pick(64, 16),
   });
 }
 
@@ -203,11 +203,11 @@ function podShell(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: Buil
       upperMm: upper,
       lowerMm: lower,
       cutZMm: cutZ,
-      steps: context.pick(PROFILE_STEPS, 6),
+      steps: context.pick(PROFILE_STEPS, 4),
       coneTop: true,
       coneBottom: true,
     }),
-    context.pick(SEGMENTS, 24),
+    context.pick(SEGMENTS, 16),
   );
   const additions: Solid[] = [];
   const cuts: Solid[] = [podCavity(p, context)];
