@@ -299,11 +299,30 @@ const ROUTES: AuthzRow[] = [
     path: salesPath(() => '/api/quotes'),
     allowed: ['sales', 'catalogue_manager'],
     body: (role: Role | null) => ({
-      sku: FIXTURE_SKUS[0],
-      quantity: 10,
+      lines: [{ sku: FIXTURE_SKUS[0], quantity: 10 }],
       deliveryDate: '2099-01-31',
       customerName: `Authz ${role ?? 'nobody'}`,
     }),
+  },
+  {
+    method: 'put',
+    route: '/api/quotes/:id',
+    path: salesQuotePath,
+    allowed: ['sales', 'catalogue_manager'],
+    body: { lines: [{ sku: FIXTURE_SKUS[0], quantity: 12 }], deliveryDate: '2099-01-31', customerName: 'Authz edit' },
+  },
+  {
+    method: 'post',
+    route: '/api/quotes/:id/copy',
+    path: async (t) => `${await salesQuotePath(t)}/copy`,
+    allowed: ['sales', 'catalogue_manager'],
+  },
+  {
+    method: 'post',
+    route: '/api/quotes/:id/status',
+    path: async (t) => `${await salesQuotePath(t)}/status`,
+    allowed: ['sales', 'catalogue_manager'],
+    body: { status: 'sent' },
   },
   {
     method: 'get',
@@ -613,7 +632,7 @@ async function salesQuotePath(t: TestApp): Promise<string> {
     await t.agent('sales')
   )
     .post('/api/quotes')
-    .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-31', customerName: 'Authz probe' });
+    .send({ lines: [{ sku: FIXTURE_SKUS[0], quantity: 3 }], deliveryDate: '2099-01-31', customerName: 'Authz probe' });
   if (res.status !== 201) throw new Error(`Could not create a quote: ${res.status} ${JSON.stringify(res.body)}`);
   return `/api/quotes/${res.body.id as string}`;
 }

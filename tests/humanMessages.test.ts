@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import { fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
 import { PersonCreateSchema, PersonUpdateSchema, SignInSchema } from '../shared/schemas/auth';
-import { QuoteCreateSchema } from '../shared/schemas/quote';
+import { QuoteInputSchema, QuoteLineInputSchema } from '../shared/schemas/quote';
 import { PresetCreateSchema, PresetUpdateSchema } from '../shared/schemas/preset';
 import { SalesSettingsSchema } from '../shared/schemas/sales';
 import { AnalysisRequestSchema } from '../shared/schemas/analysis';
@@ -22,7 +22,20 @@ const SCHEMAS: Array<[string, z.ZodType, Record<string, unknown>]> = [
   ['sign-in', SignInSchema, { email: 'ada@fernhollow.test', password: 'fernhollow-demo' }],
   ['new person', PersonCreateSchema, { name: 'Ada', email: 'ada@x.test', password: 'long-enough-1', roles: ['sales'] }],
   ['person update', PersonUpdateSchema, { name: 'Ada', roles: ['sales'] }],
-  ['quote', QuoteCreateSchema, { sku: 'FH-X-1', quantity: 3, deliveryDate: '2099-01-01', customerName: 'Wren & Co' }],
+  [
+    'quote',
+    QuoteInputSchema,
+    {
+      customerName: 'Wren & Co',
+      deliveryDate: '2099-01-01',
+      validUntil: '2099-01-01',
+      terms: 'Net 30 days',
+      taxRatePct: 20,
+      shippingCents: 3500,
+      lines: [{ sku: 'FH-X-1', quantity: 3 }],
+    },
+  ],
+  ['quote line', QuoteLineInputSchema, { sku: 'FH-X-1', quantity: 3, unitPriceCents: 1250 }],
   ['preset', PresetCreateSchema, { templateId: 'gable-box', name: 'Blue tit', params: {} }],
   ['preset update', PresetUpdateSchema, { name: 'Blue tit' }],
   ['sales settings', SalesSettingsSchema, structuredClone(DEFAULT_SALES_SETTINGS) as Record<string, unknown>],
@@ -86,8 +99,13 @@ describe('text fields are trimmed before they are checked', () => {
   it('stores names without the surrounding spaces', () => {
     expect(PersonUpdateSchema.parse({ name: '  Ada Wren ' }).name).toBe('Ada Wren');
     expect(
-      QuoteCreateSchema.parse({ sku: ' FH-X-1 ', quantity: 1, deliveryDate: '2099-01-01', customerName: ' Wren ' }),
-    ).toMatchObject({ sku: 'FH-X-1', customerName: 'Wren' });
+      QuoteInputSchema.parse({
+        lines: [{ sku: ' FH-X-1 ', quantity: 1 }],
+        deliveryDate: '2099-01-01',
+        customerName: ' Wren ',
+        terms: '  Net 30 days ',
+      }),
+    ).toMatchObject({ lines: [{ sku: 'FH-X-1' }], customerName: 'Wren', terms: 'Net 30 days' });
   });
 });
 

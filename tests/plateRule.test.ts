@@ -202,15 +202,24 @@ describe('default gable box: one answer on every demo printer', () => {
       currency: evaluated.cost.currency,
     } as unknown as CatalogueVariant;
     const quote = computeQuote(
-      variant,
-      { sku: 'GBX-TEST', quantity: 43, deliveryDate: '2027-12-31', customerName: 'Test' },
+      new Map([['GBX-TEST', variant]]),
+      {
+        customerName: 'Test',
+        deliveryDate: '2027-12-31',
+        terms: '',
+        taxRatePct: 0,
+        shippingCents: 0,
+        lines: [{ sku: 'GBX-TEST', quantity: 43 }],
+      },
       settings,
       new Date('2027-03-01T09:00:00Z'),
     );
-    expect(quote.farm.plates).toBe(platesForOrder(expected, 43));
-    expect(quote.farm.platesPerUnit).toBe(expected.platesPerUnit);
-    expect(quote.farm.plateText).toBe(expected.text);
-    if (expected.layout === 'separate') expect(quote.farm.plates).toBe(43 * expected.platesPerUnit);
+    const line = quote.lines[0].farm;
+    expect(line.plates).toBe(platesForOrder(expected, 43));
+    expect(line.platesPerUnit).toBe(expected.platesPerUnit);
+    expect(line.plateText).toBe(expected.text);
+    expect(quote.farm.plates).toBe(line.plates);
+    if (expected.layout === 'separate') expect(line.plates).toBe(43 * expected.platesPerUnit);
 
     // CLI report of the exported file (the parts found as separate shells).
     const fromFile = parseMeshFile(writeStl(design.mesh), 'gable.stl');

@@ -72,11 +72,11 @@ describe('to-do counts on the home page', { timeout: 180_000 }, () => {
 
     await ensureSalesFixture(t.ctx.db);
     const quotesBefore = (await todo('sales'))['sales.open_quotes'].count;
-    const created = await (
-      await t.agent('sales')
-    )
-      .post('/api/quotes')
-      .send({ sku: FIXTURE_SKUS[0], quantity: 3, deliveryDate: '2099-01-31', customerName: 'To-do probe' });
+    const created = await (await t.agent('sales')).post('/api/quotes').send({
+      lines: [{ sku: FIXTURE_SKUS[0], quantity: 3 }],
+      deliveryDate: '2099-01-31',
+      customerName: 'To-do probe',
+    });
     expect(created.status).toBe(201);
     expect((await todo('sales'))['sales.open_quotes'].count).toBe(quotesBefore + 1);
   });

@@ -1,10 +1,25 @@
-/** The wholesale quote as a one-page A4 PDF for the customer (prices and delivery; no costs or margins). */
+/**
+ * The wholesale quote as an A4 PDF for the customer: the lines, shipping, tax, total, delivery, validity and terms.
+ * No production cost, margin or farm plan: those stay on the studio's own quote screen.
+ */
 import type { Quote } from '../../shared/schemas/quote';
 import { money } from './formatMeasure';
 import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectionHeading } from './pdfPageFrame';
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfTable } from './pdfTable';
 import { pdfToBuffer } from './pdfToBuffer';
+
+const LINE_COLUMNS = [100, 221, 50, 70, 70];
+/** Lowest y a table row may start at before the goods continue on a new page. */
+const PAGE_BOTTOM = PAGE.height - PAGE.margin - 40;
+
+/**
+ * The tax rate as the document writes it, e.g. `20 %`, `7.25 %`.
+ * @param pct - rate, percent
+ */
+function ratePct(pct: number): string {
+  return `${Number(pct.toFixed(2))} %`;
+}
 
 /**
  * Renders a saved quote.
@@ -28,38 +43,70 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
     .font(FONT.body)
     .fontSize(10)
     .fillColor(INK.muted)
-    .text(`For ${quote.customerName} · issued ${quote.createdAt.slice(0, 10)}`, x, doc.y + 2);
+    .text(
+      `For ${quote.customerName} · issued ${quote.createdAt.slice(0, 10)} · valid until ${quote.validUntil}`,
+      x,
+      doc.y + 2,
+    );
 
   const m = (cents: number) => money(cents, quote.currency);
   let y = sectionHeading(doc, 'Goods', x, doc.y + 16, CONTENT_WIDTH);
-  y = pdfTable(
-    doc,
-    ['SKU', 'Product', 'Quantity', 'Unit price', 'Total'],
-    [[quote.sku, quote.productName, String(quote.quantity), m(quote.unitPriceCents), m(quote.totalPriceCents)]],
-    [110, 201, 60, 70, 70],
-    x,
-    y,
-  );
+  const head = ['SKU', 'Product', 'Quantity', 'Unit price', 'Line total'];
+  const rows = quote.lines.map((line) => [
+    line.sku,
+    line.productName,
+    String(line.quantity),
+    m(line.unitPriceCents),
+    m(line.lineTotalCents),
+  ]);
+  // The goods continue on a new page, under the header row again, when they do not fit.
+  let start = 0;
+  while (start < rows.length) {
+    doc.font(FONT.body).fontSize(8);
+    let end = start;
+    let bottom = y + 15;
+    while (end < rows.length) {
+      const h = Math.max(...rows[end].map((cell, i) => doc.heightOfString(cell, { width: LINE_COLUMNS[i] - 8 }))) + 6;
+      if (end > start && bottom + h > PAGE_BOTTOM) break;
+      bottom += h;
+      end += 1;
+    }
+    y = pdfTable(doc, head, rows.slice(start, end), LINE_COLUMNS, x, y);
+    start = end;
+    if (start < rows.length) {
+      doc.addPage();
+      pageHeader(doc, studioName, 'Wholesale quote');
+      y = 48;
+    }
+  }
+  const newPageIfBelow = (needed: number): void => {
+    if (y + needed <= PAGE_BOTTOM) return;
+    doc.addPage();
+    pageHeader(doc, studioName, 'Wholesale quote');
+    y = 48;
+  };
+  newPageIfBelow(80);
   y = keyValueRows(
     doc,
     [
-      ['List price per unit', m(quote.listPriceCents)],
-      ['Quantity discount', quote.discountPct > 0 ? `${quote.discountPct} %` : 'none at this quantity'],
-      ['Total, before tax and shipping', m(quote.totalPriceCents)],
+      ['Goods', m(quote.subtotalCents)],
+      ['Shipping', m(quote.shippingCents)],
+      [`Tax at ${ratePct(quote.taxRatePct)} on goods and shipping`, m(quote.taxCents)],
+      ['Total', m(quote.totalCents)],
     ],
     x,
     y + 4,
     CONTENT_WIDTH,
-    170,
+    220,
   );
 
+  newPageIfBelow(90);
   y = sectionHeading(doc, 'Delivery', x, y + 12, CONTENT_WIDTH);
   y = keyValueRows(
     doc,
     [
       ['Requested delivery', quote.deliveryDate],
-      // The customer's copy gives dates only: the farm's production plan (plates, printers, failure allowance) stays
-      // on the studio's own quote screen.
+      // Dates only: the farm's production plan stays on the studio's own quote screen.
       ['Earliest delivery', `${quote.earliestDeliveryDate} (${quote.farm.leadTimeDays} days from the quote date)`],
       [
         'Can we meet the date?',
@@ -67,6 +114,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
           ? 'Yes: the earliest delivery is on or before the requested date.'
           : 'Not by the requested date: we can deliver from the earliest date above, or split the order.',
       ],
+      ['Prices valid until', quote.validUntil],
     ],
     x,
     y,
@@ -74,21 +122,14 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
     170,
   );
 
-  if (quote.breaks.length > 0) {
-    y = sectionHeading(doc, 'Quantity prices', x, y + 12, CONTENT_WIDTH);
-    y = pdfTable(
-      doc,
-      ['From quantity', 'Discount', 'Unit price'],
-      [
-        ['1', '0 %', m(quote.listPriceCents)],
-        ...quote.breaks.map((b) => [String(b.minQuantity), `${b.discountPct} %`, m(b.unitPriceCents)]),
-      ],
-      [140, 140, 140],
-      x,
-      y,
-    );
+  if (quote.terms) {
+    newPageIfBelow(60);
+    y = sectionHeading(doc, 'Terms', x, y + 12, CONTENT_WIDTH);
+    doc.font(FONT.body).fontSize(9).fillColor(INK.text).text(quote.terms, x, y, { width: CONTENT_WIDTH });
+    y = doc.y;
   }
 
+  newPageIfBelow(40);
   doc.font(FONT.body).fontSize(8).fillColor(INK.muted);
   doc.text(
     'Delivery dates are estimated on the quote date; we confirm them when the order is placed. ' +

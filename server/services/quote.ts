@@ -1,95 +1,179 @@
-/** Wholesale quotes: the figures from a published variant, the sales settings and the farm; saved and read back. */
-import { desc, eq } from 'drizzle-orm';
+/** Wholesale quotes: prices, totals and lead time from published variants, the sales settings and the farm. */
 import { farmPlateGroups, plateRule, type PlateRule } from '../../shared/analysis/plateRule';
 import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import { estimateFarmCapacity } from '../../shared/production/estimateFarmCapacity';
+import { quoteTotals } from '../../shared/quotes/quoteTotals';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
-import type { Quote, QuoteCreate, QuoteSummary } from '../../shared/schemas/quote';
-import type { SalesSettings } from '../../shared/schemas/sales';
-import type { Db } from '../db/client';
-import { people, quotes, type QuoteRow } from '../db/schema';
+import {
+  QUOTE_DEFAULT_VALID_DAYS,
+  type QuoteFarm,
+  type QuoteInput,
+  type QuoteLine,
+  type QuoteLineFarm,
+} from '../../shared/schemas/quote';
+import type { FarmSettings, SalesSettings } from '../../shared/schemas/sales';
+import { badRequest } from '../http/HttpError';
 import { productName } from './specSheet';
 
-/** A computed quote before it is saved. */
-export type QuoteFigures = Omit<Quote, 'id' | 'reference' | 'createdBy' | 'createdAt'>;
+/** A computed quote before it is saved (the header fields and the priced lines). */
+export interface QuoteFigures {
+  customerName: string;
+  deliveryDate: string;
+  validUntil: string;
+  terms: string;
+  currency: string;
+  lines: QuoteLine[];
+  subtotalCents: number;
+  shippingCents: number;
+  taxRatePct: number;
+  taxCents: number;
+  totalCents: number;
+  costCents: number;
+  marginPct: number;
+  farm: QuoteFarm;
+  earliestDeliveryDate: string;
+  feasible: boolean;
+}
+
+/** Largest total one quote may come to, in cents (what the database's amount columns hold). */
+const MAX_TOTAL_CENTS = 2_000_000_000;
 
 /**
- * Prices a quantity of a variant and checks the delivery date against the farm's lead time.
- * Unit price = list price less the largest quantity break at or below the quantity; margin = (price − cost) / price;
- * lead time = estimateFarmCapacity (plates spread over the printers, failures replaced) + handling days, counted in
- * calendar days from `today`.
- * @param variant - the published variant
- * @param request - SKU, quantity, delivery date, customer
+ * Prices the lines of a quote and checks the delivery date against the farm's lead time.
+ * Each line: unit price = the agreed price, else list price less the largest quantity break at or below its
+ * quantity; margin = (price − cost) / price. Totals: see shared/quotes/quoteTotals.ts. Lead time: the lines print
+ * one after another on the farm (see {@link quoteFarmPlan}), counted in calendar days from `today`.
+ * @param variants - the published variants by SKU (every line's SKU must be there)
+ * @param input - the checked quote body
  * @param settings - farm settings and quantity breaks
  * @param today - the quote date (UTC day is used)
  */
 export function computeQuote(
-  variant: CatalogueVariant,
-  request: QuoteCreate,
+  variants: ReadonlyMap<string, CatalogueVariant>,
+  input: QuoteInput,
   settings: SalesSettings,
   today: Date,
 ): QuoteFigures {
+  const lines = input.lines.map((line, index) => {
+    const variant = variants.get(line.sku);
+    if (!variant)
+      throw badRequest(`There is no published product with the SKU ${line.sku}.`, [
+        { in: 'body', path: `lines.${index}.sku`, message: 'This SKU is not in the catalogue.' },
+      ]);
+    return priceLine(variant, line.quantity, line.unitPriceCents ?? null, settings);
+  });
+  const currency = lines.length > 0 ? variants.get(lines[0].sku)!.currency : 'EUR';
+  const otherCurrency = input.lines.findIndex((line) => variants.get(line.sku)!.currency !== currency);
+  if (otherCurrency >= 0)
+    throw badRequest('Every line of one quote must be priced in the same currency.', [
+      { in: 'body', path: `lines.${otherCurrency}.sku`, message: 'This product is priced in another currency.' },
+    ]);
+  const totals = quoteTotals({ lines, shippingCents: input.shippingCents, taxRatePct: input.taxRatePct });
+  if (totals.totalCents > MAX_TOTAL_CENTS)
+    throw badRequest('This quote comes to more than 20,000,000.00 in all: split it into several quotes.', [
+      { in: 'body', path: 'lines', message: 'The quote is too large for one document.' },
+    ]);
+  const costCents = lines.reduce((sum, line) => sum + line.quantity * line.unitCostCents, 0);
+  const farm = quoteFarmPlan(
+    lines.map((line) => line.farm),
+    settings.farm,
+  );
+  const earliestDeliveryDate = addDays(today, farm.leadTimeDays);
+  return {
+    customerName: input.customerName,
+    deliveryDate: input.deliveryDate,
+    validUntil: input.validUntil ?? addDays(today, QUOTE_DEFAULT_VALID_DAYS),
+    terms: input.terms,
+    currency,
+    lines: lines.map((line, i) => ({ ...line, lineTotalCents: totals.lineTotalsCents[i] })),
+    subtotalCents: totals.subtotalCents,
+    shippingCents: input.shippingCents,
+    taxRatePct: input.taxRatePct,
+    taxCents: totals.taxCents,
+    totalCents: totals.totalCents,
+    costCents,
+    marginPct: totals.subtotalCents > 0 ? ((totals.subtotalCents - costCents) / totals.subtotalCents) * 100 : 0,
+    farm,
+    earliestDeliveryDate,
+    feasible: earliestDeliveryDate <= input.deliveryDate,
+  };
+}
+
+/**
+ * One priced line: the break price as default unit price, the agreed price when given, and its farm figures.
+ * @param variant - the published variant
+ * @param quantity - units
+ * @param agreedPriceCents - unit price entered by hand, or null for the break price
+ * @param settings - farm settings and quantity breaks
+ */
+export function priceLine(
+  variant: CatalogueVariant,
+  quantity: number,
+  agreedPriceCents: number | null,
+  settings: SalesSettings,
+): QuoteLine {
   const listPriceCents = variant.priceCents;
-  const applicable = settings.quantityBreaks.filter((b) => b.minQuantity <= request.quantity);
+  const applicable = settings.quantityBreaks.filter((b) => b.minQuantity <= quantity);
   const discountPct = applicable.length > 0 ? applicable[applicable.length - 1].discountPct : 0;
-  const unitPriceCents = Math.round(listPriceCents * (1 - discountPct / 100));
+  const breakPriceCents = Math.round(listPriceCents * (1 - discountPct / 100));
+  const unitPriceCents = agreedPriceCents ?? breakPriceCents;
   const unitCostCents = variant.cost.costCents;
-  const farmSettings = settings.farm;
-  const copiesPerPlate = farmSettings.copiesPerPlate ?? Math.max(1, variant.report.copiesPerPlate);
+  return {
+    sku: variant.sku,
+    productName: productName(variant),
+    familyName: variant.family.name,
+    quantity,
+    unitCostCents,
+    listPriceCents,
+    discountPct,
+    breakPriceCents,
+    unitPriceCents,
+    priceSetByHand: agreedPriceCents !== null,
+    lineTotalCents: quantity * unitPriceCents,
+    marginPct: unitPriceCents > 0 ? ((unitPriceCents - unitCostCents) / unitPriceCents) * 100 : 0,
+    farm: lineFarm(variant, quantity, settings.farm),
+    breaks: settings.quantityBreaks.map((b) => ({
+      minQuantity: b.minQuantity,
+      discountPct: b.discountPct,
+      unitPriceCents: Math.round(listPriceCents * (1 - b.discountPct / 100)),
+    })),
+  };
+}
+
+/** The plates and print days of one line on the farm (estimateFarmCapacity, without handling days). */
+function lineFarm(variant: CatalogueVariant, quantity: number, farm: FarmSettings): QuoteLineFarm {
+  const copiesPerPlate = farm.copiesPerPlate ?? Math.max(1, variant.report.copiesPerPlate);
   const plate = variantPlateRule(variant);
   const capacity = estimateFarmCapacity({
-    unitsWanted: request.quantity,
-    printers: farmSettings.printers,
-    hoursPerDay: farmSettings.hoursPerDay,
+    unitsWanted: quantity,
+    printers: farm.printers,
+    hoursPerDay: farm.hoursPerDay,
     copiesPerPlate,
     printTimeMin: variant.report.printTimeMin,
-    failureRatePct: farmSettings.failureRatePct,
-    plateChangeMin: farmSettings.plateChangeMin,
-    handlingDays: farmSettings.handlingDays,
+    failureRatePct: farm.failureRatePct,
+    plateChangeMin: farm.plateChangeMin,
+    handlingDays: 0,
     // The plate rule: one group when the parts print together, one per part when each needs plates of its own.
     plateGroups: plate
       ? farmPlateGroups(
           plate,
           variant.report.partSizesMm ?? [variant.report.bboxSizeMm],
           variant.report.printTimeMin,
-          farmSettings.copiesPerPlate,
+          farm.copiesPerPlate,
         )
       : undefined,
   });
-  const earliestDeliveryDate = addDays(today, capacity.leadTimeDays);
   return {
-    sku: variant.sku,
-    productName: productName(variant),
-    familyName: variant.family.name,
-    customerName: request.customerName,
-    quantity: request.quantity,
-    deliveryDate: request.deliveryDate,
-    currency: variant.currency,
-    unitCostCents,
-    listPriceCents,
-    discountPct,
-    unitPriceCents,
-    totalPriceCents: unitPriceCents * request.quantity,
-    marginPct: unitPriceCents > 0 ? ((unitPriceCents - unitCostCents) / unitPriceCents) * 100 : 0,
-    farm: {
-      printers: farmSettings.printers,
-      hoursPerDay: farmSettings.hoursPerDay,
-      copiesPerPlate,
-      platesPerUnit: plate?.platesPerUnit ?? 1,
-      plateText: plate?.text ?? `${copiesPerPlate} per plate`,
-      failureRatePct: farmSettings.failureRatePct,
-      plateChangeMin: farmSettings.plateChangeMin,
-      handlingDays: farmSettings.handlingDays,
-      printTimeMin: variant.report.printTimeMin,
-      ...capacity,
-    },
-    earliestDeliveryDate,
-    feasible: earliestDeliveryDate <= request.deliveryDate,
-    breaks: settings.quantityBreaks.map((b) => ({
-      minQuantity: b.minQuantity,
-      discountPct: b.discountPct,
-      unitPriceCents: Math.round(listPriceCents * (1 - b.discountPct / 100)),
-    })),
+    copiesPerPlate,
+    platesPerUnit: plate?.platesPerUnit ?? 1,
+    plateText: plate?.text ?? `${copiesPerPlate} per plate`,
+    groups: capacity.groups,
+    printTimeMin: variant.report.printTimeMin,
+    plates: capacity.plates,
+    platesPerPrinter: capacity.platesPerPrinter,
+    plateTimeMin: capacity.plateTimeMin,
+    expectedGoodUnits: capacity.expectedGoodUnits,
+    printDays: capacity.printDays,
   };
 }
 
@@ -110,99 +194,33 @@ export function variantPlateRule(
   return rule.groups.length > 0 ? rule : null;
 }
 
-/** YYYY-MM-DD of `days` calendar days after the UTC day of `from`. */
-function addDays(from: Date, days: number): string {
-  const d = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + days));
-  return d.toISOString().slice(0, 10);
-}
-
-/** `Q-0007` from the running number. */
-function reference(number: number): string {
-  return `Q-${String(number).padStart(4, '0')}`;
-}
-
-function toQuote(row: QuoteRow, createdByName: string): Quote {
+/**
+ * The farm plan of a whole quote: its lines print one after another on the same printers (each line's plates
+ * spread over them), then the order is packed and dispatched together, so lead time = whole days of the summed
+ * print days + handling days.
+ * @param lines - each line's farm figures
+ * @param farm - the farm settings
+ */
+export function quoteFarmPlan(lines: readonly QuoteLineFarm[], farm: FarmSettings): QuoteFarm {
+  const printDays = lines.reduce((sum, line) => sum + line.printDays, 0);
   return {
-    id: row.id,
-    reference: reference(row.number),
-    sku: row.sku,
-    productName: row.productName,
-    familyName: row.familyName,
-    customerName: row.customerName,
-    quantity: row.quantity,
-    deliveryDate: row.deliveryDate,
-    currency: row.currency,
-    unitCostCents: row.unitCostCents,
-    listPriceCents: row.listPriceCents,
-    discountPct: row.discountPct,
-    unitPriceCents: row.unitPriceCents,
-    totalPriceCents: row.totalPriceCents,
-    marginPct: row.marginPct,
-    farm: row.farm,
-    earliestDeliveryDate: row.earliestDeliveryDate,
-    feasible: row.feasible,
-    breaks: row.breaks,
-    createdBy: { id: row.createdById, name: createdByName },
-    createdAt: row.createdAt.toISOString(),
+    printers: farm.printers,
+    hoursPerDay: farm.hoursPerDay,
+    failureRatePct: farm.failureRatePct,
+    plateChangeMin: farm.plateChangeMin,
+    handlingDays: farm.handlingDays,
+    plates: lines.reduce((sum, line) => sum + line.plates, 0),
+    printDays,
+    leadTimeDays: Math.ceil(printDays - 1e-9) + Math.ceil(farm.handlingDays),
   };
 }
 
 /**
- * Saves a computed quote.
- * @param db - database
- * @param figures - from {@link computeQuote}
- * @param person - who made it
+ * YYYY-MM-DD of `days` calendar days after the UTC day of `from`.
+ * @param from - the start
+ * @param days - days to add
  */
-export async function insertQuote(db: Db, figures: QuoteFigures, person: { id: string; name: string }): Promise<Quote> {
-  const [row] = await db
-    .insert(quotes)
-    .values({ ...figures, createdById: person.id })
-    .returning();
-  return toQuote(row, person.name);
-}
-
-/**
- * Every quote, newest first.
- * @param db - database
- */
-export async function listQuotes(db: Db): Promise<QuoteSummary[]> {
-  const rows = await db
-    .select({ quote: quotes, name: people.name })
-    .from(quotes)
-    .innerJoin(people, eq(people.id, quotes.createdById))
-    .orderBy(desc(quotes.createdAt), desc(quotes.number));
-  return rows.map(({ quote, name }) => {
-    const full = toQuote(quote, name);
-    return {
-      id: full.id,
-      reference: full.reference,
-      sku: full.sku,
-      productName: full.productName,
-      customerName: full.customerName,
-      quantity: full.quantity,
-      deliveryDate: full.deliveryDate,
-      currency: full.currency,
-      unitPriceCents: full.unitPriceCents,
-      totalPriceCents: full.totalPriceCents,
-      marginPct: full.marginPct,
-      earliestDeliveryDate: full.earliestDeliveryDate,
-      feasible: full.feasible,
-      createdAt: full.createdAt,
-      createdByName: name,
-    };
-  });
-}
-
-/**
- * One quote, or undefined.
- * @param db - database
- * @param id - quote id
- */
-export async function findQuote(db: Db, id: string): Promise<Quote | undefined> {
-  const [row] = await db
-    .select({ quote: quotes, name: people.name })
-    .from(quotes)
-    .innerJoin(people, eq(people.id, quotes.createdById))
-    .where(eq(quotes.id, id));
-  return row ? toQuote(row.quote, row.name) : undefined;
+export function addDays(from: Date, days: number): string {
+  const d = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + days));
+  return d.toISOString().slice(0, 10);
 }

@@ -55,12 +55,18 @@ const ITEMS: Record<Role, (db: Db, person: Person, today: string) => Promise<Tod
     ];
   },
   async sales(db, _person, today) {
-    const open = await counted(db.select({ n: count() }).from(quotes).where(gte(quotes.deliveryDate, today)));
+    // Drafts and sent quotes still within their validity date: the ones a sales person follows up.
+    const open = await counted(
+      db
+        .select({ n: count() })
+        .from(quotes)
+        .where(and(inArray(quotes.status, ['draft', 'sent']), gte(quotes.validUntil, today))),
+    );
     return [
       {
         key: 'sales.open_quotes',
         role: 'sales',
-        label: 'Open quotes (delivery still ahead)',
+        label: 'Open quotes (draft or sent, still valid)',
         count: open,
         path: '/quotes',
       },
