@@ -114,6 +114,18 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['sales', 'catalogue_manager'], title: 'Quotes' },
   },
   {
+    path: '/quotes/new',
+    name: 'quote-new',
+    component: () => import('../views/QuoteEditorView.vue'),
+    meta: { roles: ['sales', 'catalogue_manager'], title: 'New quote' },
+  },
+  {
+    path: '/quotes/:id/edit',
+    name: 'quote-edit',
+    component: () => import('../views/QuoteEditorView.vue'),
+    meta: { roles: ['sales', 'catalogue_manager'], title: 'Edit quote' },
+  },
+  {
     path: '/quotes/:id',
     name: 'quote-detail',
     component: () => import('../views/QuoteDetailView.vue'),

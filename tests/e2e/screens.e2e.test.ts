@@ -91,7 +91,13 @@ async function screensOf(page: Page, role: Role): Promise<string[]> {
     case 'sales': {
       const quotes = (await json('/api/quotes')) as { quotes: Array<{ id: string }> };
       const first = quotes.quotes[0]?.id;
-      return ['/', '/catalogue', '/quotes', ...(first ? [`/quotes/${first}`] : [])];
+      return [
+        '/',
+        '/catalogue',
+        '/quotes',
+        '/quotes/new',
+        ...(first ? [`/quotes/${first}`, `/quotes/${first}/edit`] : []),
+      ];
     }
     case 'operations': {
       const orders = (await json('/api/orders')) as { orders: Array<{ id: string }> };
