@@ -89,7 +89,24 @@ async function screensOf(page: Page, role: Role): Promise<string[]> {
       return ['/', '/review', ...(first ? [`/review/${first}`] : [])];
     }
     case 'sales': {
-      const quotes = (await json('/api/quotes')) as { quotes: Array<{ id: string }> };
+      let quotes = (await json('/api/quotes')) as { quotes: Array<{ id: string }> };
+      if (quotes.quotes.length === 0) {
+        // The demo seeds no quote: make one with two lines, so the quote page and its editor are checked too.
+        const catalogue = (await json('/api/catalogue')) as { variants: Array<{ sku: string }> };
+        const made = await page.request.post('/api/quotes', {
+          headers: { Origin: e2e.baseUrl },
+          data: {
+            customerName: 'Marsh Lane Garden Centre',
+            deliveryDate: '2099-06-30',
+            terms: 'Payment within 30 days of delivery.',
+            taxRatePct: 20,
+            shippingCents: 3500,
+            lines: catalogue.variants.slice(0, 2).map((v, i) => ({ sku: v.sku, quantity: 40 + i * 80 })),
+          },
+        });
+        expect(made.status(), await made.text()).toBe(201);
+        quotes = (await json('/api/quotes')) as { quotes: Array<{ id: string }> };
+      }
       const first = quotes.quotes[0]?.id;
       return [
         '/',
