@@ -8,7 +8,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { ZodObject, type z } from 'zod';
-import { fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
+import { asSentence, fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
 import { PersonCreateSchema, PersonUpdateSchema, SignInSchema } from '../shared/schemas/auth';
 import { QuoteCreateSchema } from '../shared/schemas/quote';
 import { PresetCreateSchema, PresetUpdateSchema } from '../shared/schemas/preset';
@@ -161,6 +161,8 @@ describe('every object schema the API and the screens share names no key and use
       for (const message of messagesOfShape(schema)) {
         expect(message, `${name}: ${message}`).not.toMatch(CAMEL_KEY);
         expect(message, `${name}: ${message}`).not.toMatch(LIBRARY_WORDING);
+        // The API sends it as a sentence (server/http/validate.ts): a capital first, a closing mark last.
+        expect(asSentence(message), `${name}: ${message}`).toMatch(/^[A-Z“"0-9].*[.!?:)”"]$/);
       }
     }
   });

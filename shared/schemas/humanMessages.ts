@@ -140,6 +140,18 @@ export function humanIssueMessage(issue: RawIssue): string {
   }
 }
 
+/**
+ * A message as a sentence: first letter a capital, a full stop at the end when it has no closing mark. Schemas that
+ * write their own short messages (`at most 6 axes`) reach people as sentences through this.
+ * @param message - a validation message
+ */
+export function asSentence(message: string): string {
+  const text = message.trim();
+  if (!text) return text;
+  const capital = text.charAt(0).toUpperCase() + text.slice(1);
+  return /[.!?:)”"]$/.test(capital) ? capital : `${capital}.`;
+}
+
 let installed = false;
 
 /**
