@@ -119,6 +119,9 @@ describe('creating a family', () => {
     const res = await (await t.agent('designer')).post('/api/families').send(smallFamilyBody({ code: 'HGB' }));
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('code_taken');
+    // Written for people and pointed at the field, so the editor shows it beside the SKU code input.
+    expect(res.body.error.message).toBe('Another family already uses the code HGB: choose another.');
+    expect(res.body.error.details).toEqual([{ in: 'body', path: 'code', message: res.body.error.message }]);
   });
 });
 

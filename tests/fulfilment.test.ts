@@ -183,7 +183,7 @@ describe('dispatch and tracking', () => {
     const ops = await t.agent('operations');
     const res = await ops.post('/api/farm/dispatches/999999/redispatch').send({ shipTo: { name: '' } });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/name is required/);
+    expect(res.body.error.message).toBe('Enter the name to ship to.');
   });
 });
 

@@ -3,9 +3,12 @@
  * wording ("expected", "Too big", "Invalid input"). The test walks each input schema with typical bad values for
  * every field and reads every message zod produces. Wording rules are our own house style: common practice, no source.
  */
+import { readdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import type { z } from 'zod';
-import { fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
+import { ZodObject, type z } from 'zod';
+import { asSentence, fieldLabel, humanIssueMessage } from '../shared/schemas/humanMessages';
 import { PersonCreateSchema, PersonUpdateSchema, SignInSchema } from '../shared/schemas/auth';
 import { QuoteInputSchema, QuoteLineInputSchema } from '../shared/schemas/quote';
 import { PresetCreateSchema, PresetUpdateSchema } from '../shared/schemas/preset';
@@ -129,5 +132,56 @@ describe('field labels', () => {
         input: 1e6,
       } as never),
     ).toBe('Quantity must be 100,000 or less.');
+  });
+});
+
+/** Unwraps optional, nullable, default and pipe wrappers to the schema inside. */
+function inner(schema: z.ZodType): z.ZodType {
+  let current = schema as z.ZodType & { def: { innerType?: z.ZodType; in?: z.ZodType; type: string } };
+  for (let i = 0; i < 8; i++) {
+    const def = current.def;
+    const next = def.innerType ?? (def.type === 'pipe' ? def.in : undefined);
+    if (!next) break;
+    current = next as typeof current;
+  }
+  return current;
+}
+
+/**
+ * Every message an object schema gives when one of its fields (and the fields of objects inside it, two levels
+ * deep) holds a typical bad value and the rest is missing: required, too big, too small and wrong kind for each field.
+ */
+function messagesOfShape(schema: z.ZodObject, depth = 0): string[] {
+  const messages: string[] = [];
+  for (const [key, field] of Object.entries(schema.shape as Record<string, z.ZodType>)) {
+    for (const bad of BAD_VALUES) {
+      const result = schema.safeParse({ [key]: bad });
+      if (!result.success) messages.push(...result.error.issues.map((issue) => issue.message));
+    }
+    const nested = inner(field);
+    if (depth < 2 && nested instanceof ZodObject) {
+      for (const message of messagesOfShape(nested, depth + 1)) messages.push(message);
+    }
+  }
+  return messages;
+}
+
+describe('every object schema the API and the screens share names no key and uses no library wording', () => {
+  const dir = join(dirname(fileURLToPath(import.meta.url)), '../shared/schemas');
+  const files = readdirSync(dir).filter((file) => file.endsWith('.ts') && file !== 'humanMessages.ts');
+
+  it.each(files)('%s', async (file) => {
+    const module = (await import(`../shared/schemas/${file}`)) as Record<string, unknown>;
+    const schemas = Object.entries(module).filter(
+      (entry): entry is [string, z.ZodObject] => entry[1] instanceof ZodObject,
+    );
+    for (const [name, schema] of schemas) {
+      for (const message of messagesOfShape(schema)) {
+        expect(message, `${name}: ${message}`).not.toMatch(CAMEL_KEY);
+        expect(message, `${name}: ${message}`).not.toMatch(LIBRARY_WORDING);
+        // The API sends it as a sentence (server/http/validate.ts): a capital first, a closing mark last.
+        expect(asSentence(message), `${name}: ${message}`).toMatch(/^[A-Z“"0-9].*[.!?:)”"]$/);
+      }
+    }
   });
 });

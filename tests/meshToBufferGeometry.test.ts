@@ -12,7 +12,13 @@ import {
   overhangRgb,
   SURFACE_RGB,
 } from '../src/components/viewer/meshToBufferGeometry';
-import { fromDisplayLength, toDisplayLength } from '../src/components/editor/lengthUnits';
+import {
+  formatLength,
+  fromDisplayLength,
+  INCH_DECIMALS,
+  lengthsInText,
+  toDisplayLength,
+} from '../src/components/editor/lengthUnits';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 
 /** A 10 mm cube, counter-clockwise seen from outside. */
@@ -126,5 +132,23 @@ describe('length display', () => {
     expect(toDisplayLength(32, 'mm')).toBe(32);
     expect(fromDisplayLength(1.25, 'in')).toBeCloseTo(31.75, 9);
     expect(fromDisplayLength(1.26, 'in')).toBeCloseTo(32.0, 9); // 32.004 rounds to 32.00
+  });
+});
+
+describe('lengths in inch mode', () => {
+  it('shows inches to the thousandth, not rounded to hundredths', () => {
+    // source: 1 in = 25.4 mm exactly (international inch, 1959); 32 mm = 1.2598… in
+    expect(formatLength(32, 'in')).toBe('1.260 in');
+    expect(formatLength(0.6, 'in', 0)).toBe('0.024 in');
+    expect(INCH_DECIMALS).toBe(3);
+  });
+
+  it('writes the millimetre lengths of a help text in inches, and leaves mm² and mm³ alone', () => {
+    const help = 'Over about 180 mm the box no longer fits a 250 mm build height; typical 28–32 mm. Area in mm² stays.';
+    expect(lengthsInText(help, 'in')).toBe(
+      'Over about 7.087 in the box no longer fits a 9.843 in build height; typical 1.102–1.260 in. Area in mm² stays.',
+    );
+    expect(lengthsInText(help, 'mm')).toBe(help);
+    expect(lengthsInText('chamber radius + 42 mm tall', 'in')).not.toMatch(/\bmm\b/);
   });
 });

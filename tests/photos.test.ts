@@ -134,7 +134,9 @@ describe('uploading photos', () => {
       .post(familyPath)
       .attach('photo', Buffer.from('<?php echo "hello"; ?>\n'), { filename: 'innocent.png', contentType: 'image/png' });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/^photo: /);
+    // A sentence for people, pointed at the photo field (no field key in the text).
+    expect(res.body.error.message).toMatch(/^This file is not a JPEG, PNG or WebP image/);
+    expect(res.body.error.details[0].path).toBe('photo');
   });
 
   it('refuses a file over the size limit with 413', async () => {
@@ -148,7 +150,8 @@ describe('uploading photos', () => {
   it('asks for a file when none is attached', async () => {
     const res = await (await t.agent('designer')).post(familyPath).field('caption', 'no file');
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/^photo: /);
+    expect(res.body.error.message).toBe('Attach one photo (JPEG, PNG or WebP).');
+    expect(res.body.error.details[0].path).toBe('photo');
   });
 
   it('serves photos only to signed-in people and refuses uploads from other roles', async () => {

@@ -145,16 +145,16 @@ describe('checkout', () => {
   it.each([
     ['an empty cart', { items: [] }, 'items', /cart is empty/],
     ['an unknown SKU', { items: [{ sku: 'FH-NOPE-1', quantity: 1 }] }, 'items.0.sku', /not on sale/],
-    ['quantity 0', { items: [{ sku: SHOP_SKU, quantity: 0 }] }, 'items.0.quantity', /quantity/],
-    ['quantity 10,000', { items: [{ sku: SHOP_SKU, quantity: 10_000 }] }, 'items.0.quantity', /quantity/],
+    ['quantity 0', { items: [{ sku: SHOP_SKU, quantity: 0 }] }, 'items.0.quantity', /quantity/i],
+    ['quantity 10,000', { items: [{ sku: SHOP_SKU, quantity: 10_000 }] }, 'items.0.quantity', /quantity/i],
     [
       'a malformed postcode',
       { shipTo: { ...checkoutBody().shipTo, postalCode: '<<>>' } },
       'shipTo.postalCode',
-      /postcode/,
+      /postcode/i,
     ],
-    ['an unknown country', { shipTo: { ...checkoutBody().shipTo, country: 'XX' } }, 'shipTo.country', /country/],
-    ['no e-mail', { email: 'not-an-address' }, 'email', /e-mail/],
+    ['an unknown country', { shipTo: { ...checkoutBody().shipTo, country: 'XX' } }, 'shipTo.country', /country/i],
+    ['no e-mail', { email: 'not-an-address' }, 'email', /e-mail/i],
   ])('answers 400 naming the field for %s, and writes nothing', async (_label, patch, path, message) => {
     const before = await countRows();
     const res = await (await t.agent(null)).post('/api/shop/checkout').send({ ...checkoutBody(), ...patch });

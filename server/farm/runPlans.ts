@@ -10,7 +10,7 @@ import type { FarmRun, PlanRequest, PlanResponse } from '../../shared/schemas/fu
 import type { PlanItem } from '../../shared/schemas/plan';
 import type { AppContext } from '../context';
 import { farmDispatches, farmRuns } from '../db/schema';
-import { badRequest } from '../http/HttpError';
+import { fieldProblem } from '../http/HttpError';
 import { recordAudit } from '../services/audit';
 import { listCatalogueVariants } from '../services/catalogue';
 import { loadProductionCatalogue } from '../services/productionCatalogue';
@@ -60,15 +60,16 @@ export async function planItemOf(ctx: AppContext, variant: CatalogueVariant, qua
  * @throws 400 naming an unknown SKU, printer, or dates in the wrong order
  */
 export async function planFromCatalogue(ctx: AppContext, request: PlanRequest): Promise<PlanResponse> {
-  if (request.finishBy <= request.startDate) throw badRequest('finishBy: the finish date must be after the start date');
+  if (request.finishBy <= request.startDate)
+    throw fieldProblem('finishBy', 'The finish date must be after the start date.');
   const production = await loadProductionCatalogue(ctx.db);
   const printer = production.printers.find((p) => p.id === request.printerId);
-  if (!printer) throw badRequest(`printerId: no printer ${request.printerId}`);
+  if (!printer) throw fieldProblem('printerId', 'That printer is not in the studio’s printer list: choose another.');
   const skus = [...new Set(request.items.map((item) => item.sku))];
   const variants = await listCatalogueVariants(ctx, { skus });
   const bySku = new Map(variants.map((v) => [v.sku, v]));
   const unknown = skus.find((sku) => !bySku.has(sku));
-  if (unknown) throw badRequest(`items: ${unknown} is not a published variant`);
+  if (unknown) throw fieldProblem('items', `${unknown} is not a published variant.`);
   const quantities = new Map<string, number>();
   for (const item of request.items) quantities.set(item.sku, (quantities.get(item.sku) ?? 0) + item.quantity);
   const items: PlanItem[] = [];
@@ -92,7 +93,11 @@ export async function planFromCatalogue(ctx: AppContext, request: PlanRequest): 
       currency: production.rates.currency,
     });
   } catch (err) {
-    if (err instanceof RangeError) throw badRequest(`printerId: ${err.message} on the ${printer.name}`);
+    if (err instanceof RangeError)
+      throw fieldProblem(
+        'printerId',
+        `${err.message.charAt(0).toUpperCase()}${err.message.slice(1)} on the ${printer.name}.`,
+      );
     throw err;
   }
   return { plan, items, printer: { id: printer.id, name: printer.name, buildVolumeMm: volume } };

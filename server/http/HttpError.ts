@@ -22,6 +22,14 @@ export class HttpError extends Error {
 /** 400 `bad_request`. @param message - what is wrong, naming the field @param details - per-field details */
 export const badRequest = (message: string, details?: unknown): HttpError =>
   new HttpError(400, 'bad_request', message, details);
+/**
+ * 400 `bad_request` about one field: the sentence is the message and, in `details`, the problem of that field (so a
+ * form shows it beside the field). The sentence is written for people and never starts with the field's key.
+ * @param path - dotted path of the field in the body, e.g. `items.0.quantity`
+ * @param message - what is wrong and what to do, as a sentence
+ */
+export const fieldProblem = (path: string, message: string): HttpError =>
+  badRequest(message, [{ in: 'body', path, message }]);
 /** 401 `unauthenticated`. @param message - what to tell the caller */
 export const unauthorized = (message = 'Sign in first.'): HttpError => new HttpError(401, 'unauthenticated', message);
 /** 403 `forbidden`. @param message - what to tell the caller */

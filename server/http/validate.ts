@@ -2,7 +2,7 @@
 import type { RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import { badRequest } from './HttpError';
-import '../../shared/schemas/humanMessages';
+import { asSentence } from '../../shared/schemas/humanMessages';
 
 /** The schemas one route validates. */
 export interface ValidateSchemas {
@@ -40,7 +40,7 @@ export function validate(schemas: ValidateSchemas): RequestHandler {
       if (result.success) parsed[part] = result.data;
       else
         for (const issue of result.error.issues)
-          issues.push({ in: part, path: issue.path.map(String).join('.'), message: issue.message });
+          issues.push({ in: part, path: issue.path.map(String).join('.'), message: asSentence(issue.message) });
     }
     if (issues.length > 0) {
       const first = issues[0];

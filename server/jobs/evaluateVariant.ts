@@ -111,7 +111,7 @@ export function evaluateVariant(geometry: VariantGeometry, context: EvaluationCo
       context.targets,
     );
   }
-  const checked = variantVerdict(report, context.supportBudgetMm3, birdFitWarnings, material.name);
+  const checked = variantVerdict(report, context.supportBudgetMm3, birdFitWarnings, material.name, printer.name);
   const missed = report.targetChecks.filter((check) => !check.met);
   const verdict: VariantVerdict = missed.length > 0 ? 'fail' : checked.verdict;
   const reasons = [...missed.map((check) => describeTargetCheck(check, production.currency)), ...checked.reasons];

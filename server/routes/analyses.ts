@@ -4,7 +4,7 @@ import multer from 'multer';
 import { AnalysisRequestSchema, type AnalysisRequest } from '../../shared/schemas/analysis';
 import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
-import { HttpError, badRequest } from '../http/HttpError';
+import { HttpError, badRequest, fieldProblem } from '../http/HttpError';
 import { parsedBody, validate } from '../http/validate';
 import {
   ANALYSIS_MAX_UPLOAD_BYTES,
@@ -53,7 +53,7 @@ export function analysesRouter(ctx: AppContext): Router {
   const worker = new AnalysisWorker();
   const router = Router();
   router.post('/', requireRole('designer'), meshUpload, validate({ body: AnalysisRequestSchema }), async (req, res) => {
-    if (!req.file) throw badRequest('file: attach the STL or 3MF file in the multipart field "file"');
+    if (!req.file) throw fieldProblem('file', 'Attach the STL or 3MF file to check.');
     const request = parsedBody<AnalysisRequest>(res);
     const [printers, materials] = await Promise.all([loadPrinters(ctx.db), loadMaterials(ctx.db)]);
     const defaults = defaultCatalogue();

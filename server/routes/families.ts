@@ -22,7 +22,7 @@ import { FamilyListQuerySchema, type FamilyListQuery } from '../../shared/schema
 import { FAMILY_TRANSITIONS } from '../../shared/families/familyWorkflow';
 import type { AppContext } from '../context';
 import { requireRole, signedInPerson } from '../auth/requireRole';
-import { badRequest, HttpError } from '../http/HttpError';
+import { HttpError, fieldProblem } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { familyJobs } from '../jobs/FamilyJobRunner';
 import { acknowledgeWarnings, createFamily, updateFamily } from '../services/families/familyCommands';
@@ -54,10 +54,16 @@ const photoUpload: RequestHandler = (req, res, next) => {
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
         return next(
-          new HttpError(413, 'payload_too_large', `photo: the file is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB`),
+          new HttpError(
+            413,
+            'payload_too_large',
+            `The photo is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB: choose a smaller one.`,
+          ),
         );
       }
-      return next(badRequest(`${err.field ?? 'photo'}: ${err.message}`));
+      return next(
+        fieldProblem(err.field ?? 'photo', `The upload was refused (${err.message.toLowerCase()}): attach one photo.`),
+      );
     }
     next(err);
   });
@@ -200,10 +206,7 @@ export function familiesRouter(ctx: AppContext): Router {
   });
 
   router.post('/:id/photos', designers, idParams, photoUpload, async (req, res) => {
-    if (!req.file)
-      throw badRequest('photo: attach one image file in the form field "photo"', [
-        { in: 'body', path: 'photo', message: 'required' },
-      ]);
+    if (!req.file) throw fieldProblem('photo', 'Attach one photo (JPEG, PNG or WebP).');
     const caption = typeof req.body?.caption === 'string' ? req.body.caption.trim().slice(0, 200) : '';
     const photo = await addPhoto(ctx, signedInPerson(res), idOf(res), req.file.buffer, caption);
     res.status(201).json({ photo });

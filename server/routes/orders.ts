@@ -17,7 +17,7 @@ import {
 } from '../../shared/schemas/order';
 import type { AppContext } from '../context';
 import { requireRole, signedInPerson } from '../auth/requireRole';
-import { badRequest } from '../http/HttpError';
+import { fieldProblem } from '../http/HttpError';
 import { parsedBody, parsedParams, parsedQuery, validate } from '../http/validate';
 import { cancelOrder } from '../services/checkoutService';
 import { kickMail } from '../services/mailService';
@@ -54,7 +54,7 @@ export function ordersRouter(ctx: AppContext): Router {
     async (_req, res) => {
       const body = parsedBody<OrderTransitionRequest>(res);
       if (body.to === 'shipped' && !body.trackingUrl)
-        throw badRequest('trackingUrl: a shipped order needs the tracking link for the customer');
+        throw fieldProblem('trackingUrl', 'A shipped order needs the tracking link for the customer.');
       const order = await transition(ctx.db, parsedParams<{ id: string }>(res).id, body.to, signedInPerson(res), {
         trackingUrl: body.trackingUrl,
         note: body.note,

@@ -11,7 +11,7 @@ import type { CheckoutRequest, CheckoutResponse, ShopQuote } from '../../shared/
 import { CartPricingError, priceCart, type CartLine } from '../../shared/shop/priceCart';
 import type { AppContext } from '../context';
 import { orders, paymentEvents } from '../db/schema';
-import { badRequest, conflict, HttpError } from '../http/HttpError';
+import { badRequest, conflict, HttpError, fieldProblem } from '../http/HttpError';
 import { kickMail } from './mailService';
 import { paymentsOf } from '../payments/paymentRuntime';
 import {
@@ -58,14 +58,8 @@ export async function quoteCart(ctx: AppContext, items: CheckoutRequest['items']
   const lines: CartLine[] = [];
   for (const [sku, { quantity, index }] of merged) {
     const variant = bySku.get(sku);
-    if (!variant)
-      throw badRequest(`SKU ${sku} is not on sale (unknown, or no longer sold)`, [
-        { in: 'body', path: `items.${index}.sku`, message: 'not on sale' },
-      ]);
-    if (quantity > 50)
-      throw badRequest('quantity: at most 50 of one product in one order', [
-        { in: 'body', path: `items.${index}.quantity`, message: 'too many' },
-      ]);
+    if (!variant) throw fieldProblem(`items.${index}.sku`, `SKU ${sku} is not on sale (unknown, or no longer sold).`);
+    if (quantity > 50) throw fieldProblem(`items.${index}.quantity`, 'One order can hold at most 50 of one product.');
     lines.push({ variant, quantity });
   }
   try {

@@ -7,7 +7,7 @@ import type { Person } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
 import { familyPhotos, families } from '../db/schema';
 import { fileKey, readAll, type StoredFile } from '../storage/FileStore';
-import { badRequest, notFound } from '../http/HttpError';
+import { notFound, fieldProblem } from '../http/HttpError';
 import { recordAudit } from './audit';
 import { catalogueChanged } from './catalogueCache';
 import { familySubject } from './families/loadFamily';
@@ -53,9 +53,7 @@ export async function addPhoto(
   if (!family) throw notFound('No such family.');
   const type = detectPhotoType(file);
   if (!type)
-    throw badRequest('photo: the file is not a JPEG, PNG or WebP image (checked by its content)', [
-      { in: 'body', path: 'photo', message: 'not a JPEG, PNG or WebP image' },
-    ]);
+    throw fieldProblem('photo', 'This file is not a JPEG, PNG or WebP image (checked by its content): choose a photo.');
   let normal: { data: Buffer; info: OutputInfo };
   let thumb: Buffer;
   // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
@@ -73,9 +71,10 @@ export async function addPhoto(
       .webp({ quality: 75 })
       .toBuffer();
   } catch (err) {
-    throw badRequest(`photo: the image could not be read (${(err as Error).message})`, [
-      { in: 'body', path: 'photo', message: 'unreadable image' },
-    ]);
+    throw fieldProblem(
+      'photo',
+      `The image could not be read (${(err as Error).message}): try another copy of the photo.`,
+    );
   }
   const fileName = `${randomBytes(16).toString('hex')}.webp`;
   const thumbFileName = `${randomBytes(16).toString('hex')}.webp`;

@@ -3,6 +3,7 @@ import type { Acknowledgement, FamilyGate, GateBlocker, GateWarning, GateWarning
 import { exceedsHeatDeflection, OUTDOOR_HEAT_SOURCE } from './outdoorHeat';
 import { needsAcknowledgement } from './variantVerdict';
 import { targetMisses } from './targetBlockers';
+import { formatCm3 } from './formatCm3';
 
 /** What the gate reads of a revision. */
 export interface GateInput {
@@ -70,7 +71,7 @@ export function evaluateFamilyGate(input: GateInput): FamilyGate {
   );
   block(
     'over_support_budget',
-    `support volume is over the family budget of ${Math.round(input.supportBudgetMm3)} mm³`,
+    `support volume is over the family budget of ${formatCm3(input.supportBudgetMm3)}`,
     done.filter((v) => v.report!.supportVolumeMm3 > input.supportBudgetMm3).map((v) => v.sku),
   );
 

@@ -34,6 +34,12 @@ export function skuFor(
   return [SKU_PREFIX, familyCode, ...segments].join('-');
 }
 
+/** A value as a sentence names it: numbers and yes/no as they read, words in quotes. */
+function valueWords(value: AxisValue): string {
+  if (typeof value === 'boolean') return value ? 'Yes' : 'No';
+  return typeof value === 'number' ? String(value) : `“${value}”`;
+}
+
 /** Two values of one axis that would give the same SKU segment. */
 export interface SkuClash {
   /** Path of the second value, e.g. `axes.2.values.3`. */
@@ -55,7 +61,7 @@ export function findSkuClashes(axes: readonly Axis[]): SkuClash[] {
       if (earlier !== undefined) {
         clashes.push({
           path: `axes.${axisIndex}.values.${valueIndex}`,
-          message: `${JSON.stringify(value)} and ${JSON.stringify(earlier)} on axis ${axis.key} share the SKU code ${code}; rename one`,
+          message: `${valueWords(value)} and ${valueWords(earlier)} would share the SKU code ${code}: change one of them.`,
         });
       } else seen.set(code, value);
     });

@@ -1,6 +1,7 @@
 import type { BirdFitWarning } from '../schemas/birdfit';
 import type { VariantReport, VariantVerdict } from '../schemas/variant';
 import { outdoorHeatReasons } from './outdoorHeat';
+import { formatCm3 } from './formatCm3';
 
 /** Bird-fit severities that must be acknowledged in writing before a family can be submitted. */
 export const ACK_REQUIRED_SEVERITIES: ReadonlyArray<BirdFitWarning['severity']> = ['warning'];
@@ -21,6 +22,7 @@ export function needsAcknowledgement(warning: Pick<BirdFitWarning, 'severity'>):
  * @param supportBudgetMm3 - the family's support budget
  * @param warnings - the variant's bird-fit warnings
  * @param materialName - the material's display name for the heat reasons (defaults to the material id)
+ * @param printerName - the printer's display name for the fit reason (defaults to the printer id)
  * @returns the verdict and every reason for it
  */
 export function variantVerdict(
@@ -32,14 +34,16 @@ export function variantVerdict(
   supportBudgetMm3: number,
   warnings: readonly Pick<BirdFitWarning, 'code' | 'severity'>[],
   materialName?: string,
+  printerName?: string,
 ): { verdict: VariantVerdict; reasons: string[] } {
   const reasons: string[] = [];
   if (!report.watertight || report.openEdges > 0) reasons.push(`mesh is not closed (${report.openEdges} open edges)`);
   if (report.nonManifoldEdges > 0) reasons.push(`mesh is not manifold (${report.nonManifoldEdges} non-manifold edges)`);
-  if (!report.fitsPrinter) reasons.push(`a part does not fit the build volume of ${report.printerId}`);
+  if (!report.fitsPrinter)
+    reasons.push(`a part does not fit the build volume of the ${printerName ?? report.printerId}`);
   if (report.supportVolumeMm3 > supportBudgetMm3) {
     reasons.push(
-      `support ${Math.round(report.supportVolumeMm3)} mm³ is over the family budget of ${Math.round(supportBudgetMm3)} mm³`,
+      `support ${formatCm3(report.supportVolumeMm3)} is over the family budget of ${formatCm3(supportBudgetMm3)}`,
     );
   }
   if (reasons.length > 0) return { verdict: 'fail', reasons };

@@ -24,7 +24,7 @@ export const SKU_PREFIX = 'FH';
 /** A SKU as the scheme above writes it, e.g. `FH-HGB-28-SHIN-SAND`. */
 export const SkuSchema = z
   .string()
-  .regex(/^FH-[A-Z0-9]{2,6}(-[A-Z0-9]{1,8})*$/, 'sku must look like FH-HGB-28-SHIN-SAND');
+  .regex(/^FH-[A-Z0-9]{2,6}(-[A-Z0-9]{1,8})*$/, 'A SKU looks like FH-HGB-28-SHIN-SAND.');
 
 /** Review states of a family revision, in workflow order. */
 export const FAMILY_STATES = ['draft', 'in_review', 'approved', 'published', 'retired'] as const;
@@ -51,7 +51,7 @@ export type FamilyAction = z.infer<typeof FamilyActionSchema>;
 export const FamilyCodeSchema = z
   .string()
   .trim()
-  .regex(/^[A-Z0-9]{2,6}$/, 'code must be 2 to 6 upper-case letters or digits');
+  .regex(/^[A-Z0-9]{2,6}$/, 'The family code must be 2 to 6 capital letters or digits, such as HGB.');
 
 /** A value on a parameter axis: a number (mm, degrees, count), a choice word or a boolean. */
 export const AxisValueSchema = z.union([z.number(), z.string().min(1).max(40), z.boolean()]);
@@ -68,7 +68,7 @@ export type AttributeKey = z.infer<typeof AttributeKeySchema>;
 /** Values of attribute axes are ids: lower-case words joined by hyphens, e.g. `moss-green`, `uv-clear-coat`. */
 export const AttributeValueSchema = z
   .string()
-  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'value must be a lower-case id such as uv-clear-coat')
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'A value must be lower-case letters, digits and dashes, such as uv-clear-coat.')
   .max(40);
 
 function noDuplicates(values: readonly unknown[], ctx: z.RefinementCtx): void {
@@ -140,7 +140,7 @@ export type VariantAttributes = z.infer<typeof VariantAttributesSchema>;
 
 /** The part of a family a designer edits (one revision's content). */
 export const FamilySpecSchema = z.object({
-  name: z.string().trim().min(1, 'name is required').max(80),
+  name: z.string().trim().min(1, 'Give the family a name.').max(80),
   description: z.string().max(2000).default(''),
   templateId: z.string().min(1).max(64),
   /** Parameters shared by every variant (missing keys take the template defaults). */

@@ -94,21 +94,21 @@ export const FarmExceptionsResponseSchema = z.object({
 export type FarmExceptionsResponse = z.infer<typeof FarmExceptionsResponseSchema>;
 
 /** Route parameter `:id` of a dispatch. */
-export const DispatchIdParamsSchema = z.object({ id: z.coerce.number().int().positive('no such dispatch') });
+export const DispatchIdParamsSchema = z.object({ id: z.coerce.number().int().positive('No such dispatch.') });
 
 /** Body of `POST /api/farm/dispatches/:id/redispatch`: send again, with a corrected address when given. */
 export const RedispatchRequestSchema = z.object({
   shipTo: z
     .object({
-      name: z.string().trim().min(1, 'name is required').max(120),
-      line1: z.string().trim().min(1, 'address line 1 is required').max(120),
+      name: z.string().trim().min(1, 'Enter the name to ship to.').max(120),
+      line1: z.string().trim().min(1, 'Enter the first line of the address.').max(120),
       line2: z.string().trim().max(120).default(''),
-      city: z.string().trim().min(1, 'town or city is required').max(80),
+      city: z.string().trim().min(1, 'Enter the town or city.').max(80),
       region: z.string().trim().max(80).default(''),
       postalCode: z
         .string()
         .trim()
-        .min(1, 'postcode is required')
+        .min(1, 'Enter the postcode.')
         .max(16)
         .regex(/^[A-Za-z0-9][A-Za-z0-9 -]{0,15}$/, 'postcode has characters a postcode never has'),
       country: z.string().trim().toUpperCase().length(2, 'country must be chosen from the list'),
@@ -121,7 +121,7 @@ export type RedispatchRequest = z.infer<typeof RedispatchRequestSchema>;
 
 /** Body of `POST /api/farm/dispatches/:id/cancel`: withdraw at the farm and refund the order. */
 export const CancelDispatchRequestSchema = z.object({
-  reason: z.string().trim().min(3, 'reason is required').max(500),
+  reason: z.string().trim().min(3, 'Give a reason (at least 3 characters).').max(500),
 });
 
 /** Query of `GET /api/farm/demand`. */
@@ -165,7 +165,7 @@ export const PlanRequestSchema = z.object({
   items: z
     .array(
       z.object({
-        sku: z.string().trim().min(1, 'SKU is required'),
+        sku: z.string().trim().min(1, 'Enter a SKU.'),
         quantity: z.coerce
           .number('quantity must be a number')
           .int('quantity must be a whole number')

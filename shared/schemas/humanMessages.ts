@@ -70,7 +70,6 @@ const FORMATS: Record<string, string> = {
   uuid: 'a valid identifier',
   guid: 'a valid identifier',
   url: 'a web address starting with https://',
-  regex: 'in the expected form',
 };
 
 type RawIssue = $ZodRawIssue;
@@ -115,10 +114,15 @@ export function humanIssueMessage(issue: RawIssue): string {
       if (origin === 'array' || origin === 'set') return `${label} can have at most ${num(max)} entries.`;
       return inclusive ? `${label} must be ${num(max)} or less.` : `${label} must be less than ${num(max)}.`;
     }
-    case 'invalid_format':
-      return `${label} must be ${FORMATS[String(i.format)] ?? 'in the expected form'}.`;
+    case 'invalid_format': {
+      const format = FORMATS[String(i.format)];
+      return format ? `${label} must be ${format}.` : `${label} is not in the right form.`;
+    }
     case 'invalid_value': {
-      const values = (i.values as unknown[] | undefined) ?? [];
+      // A value written as a key (`printTimeMin`) is read as words, like a field name.
+      const values = ((i.values as unknown[] | undefined) ?? []).map((value) =>
+        typeof value === 'string' && /[a-z][A-Z]/.test(value) ? fieldLabel([value]).toLowerCase() : value,
+      );
       return values.length === 1
         ? `${label} must be ${String(values[0])}.`
         : `${label} must be one of: ${values.map(String).join(', ')}.`;
@@ -134,6 +138,18 @@ export function humanIssueMessage(issue: RawIssue): string {
     default:
       return `${label} is not valid.`;
   }
+}
+
+/**
+ * A message as a sentence: first letter a capital, a full stop at the end when it has no closing mark. Schemas that
+ * write their own short messages (`at most 6 axes`) reach people as sentences through this.
+ * @param message - a validation message
+ */
+export function asSentence(message: string): string {
+  const text = message.trim();
+  if (!text) return text;
+  const capital = text.charAt(0).toUpperCase() + text.slice(1);
+  return /[.!?:)”"]$/.test(capital) ? capital : `${capital}.`;
 }
 
 let installed = false;

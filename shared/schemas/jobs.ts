@@ -36,7 +36,7 @@ export type DeadLetter = z.infer<typeof DeadLetterSchema>;
 
 /** Query of `GET /api/jobs/dead-letters`: the ones waiting for an admin (default) or those already handled. */
 export const DeadLettersQuerySchema = z.object({
-  show: z.enum(['waiting', 'handled'], 'show must be waiting or handled').default('waiting'),
+  show: z.enum(['waiting', 'handled'], 'Show waiting or handled messages.').default('waiting'),
 });
 /** Query of the dead-letter list. */
 export type DeadLettersQuery = z.infer<typeof DeadLettersQuerySchema>;

@@ -187,7 +187,7 @@ export type OrderTransitionRequest = z.infer<typeof OrderTransitionRequestSchema
 
 /** Body of `POST /api/orders/:id/cancel`: cancels an unpaid order, or refunds a paid one in full. */
 export const OrderCancelRequestSchema = z.object({
-  reason: z.string().trim().min(3, 'reason is required').max(500),
+  reason: z.string().trim().min(3, 'Give a reason (at least 3 characters).').max(500),
 });
 /** Body of `POST /api/orders/:id/cancel`. */
 export type OrderCancelRequest = z.infer<typeof OrderCancelRequestSchema>;

@@ -91,7 +91,12 @@ export type PrintSettings = z.infer<typeof PrintSettingsSchema>;
  * Its id is the value of a family's `finish` axis.
  */
 export const FinishSchema = z.object({
-  id: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'id must be a lower-case id such as uv-clear-coat'),
+  id: z
+    .string()
+    .regex(
+      /^[a-z0-9]+(-[a-z0-9]+)*$/,
+      'The identifier must be lower-case letters, digits and dashes, such as uv-clear-coat.',
+    ),
   name: z.string().min(1).max(80),
   /** Coating by hand (masking, spraying, handling while it dries), minutes per unit; 0 when bare. */
   coatingMin: z.number().nonnegative().max(240),

@@ -84,7 +84,7 @@ export const ShipToSchema = z.object({
     'postcode has characters a postcode never has',
   ),
   country: z
-    .string('country is required')
+    .string('Choose a country.')
     .trim()
     .toUpperCase()
     .refine(isValidCountryCode, 'country must be chosen from the list'),
@@ -99,7 +99,7 @@ export const MAX_ORDER_LINES = 30;
 
 /** One cart line as the browser sends it: only the SKU and how many; prices are looked up on the server. */
 export const CartItemSchema = z.object({
-  sku: z.string('SKU is required').trim().min(1, 'SKU is required').max(80),
+  sku: z.string('Enter a SKU.').trim().min(1, 'Enter a SKU.').max(80),
   quantity: z
     .number('quantity must be a whole number')
     .int('quantity must be a whole number')
@@ -111,7 +111,7 @@ export type CartItem = z.infer<typeof CartItemSchema>;
 
 /** E-mail of a customer. */
 export const CustomerEmailSchema = z
-  .string('e-mail is required')
+  .string('Enter an e-mail address.')
   .trim()
   .toLowerCase()
   .max(254, 'e-mail is at most 254 characters')
@@ -122,7 +122,7 @@ export const CheckoutRequestSchema = z.object({
   email: CustomerEmailSchema,
   shipTo: ShipToSchema,
   items: z
-    .array(CartItemSchema, 'items is required')
+    .array(CartItemSchema, 'Add at least one product.')
     .min(1, 'the cart is empty')
     .max(MAX_ORDER_LINES, `at most ${MAX_ORDER_LINES} lines in one order`),
 });

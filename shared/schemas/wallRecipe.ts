@@ -32,8 +32,8 @@ export const PrintRecipeSchema = z.preprocess(
     perimeters: z
       .number()
       .int()
-      .min(1, 'at least 1 perimeter')
-      .max(20, 'at most 20 perimeters')
+      .min(1, 'Use at least 1 perimeter.')
+      .max(20, 'Use at most 20 perimeters.')
       .nullable()
       .default(null),
     infillPct: z.number().min(0, 'infill must be 0–100 %').max(100, 'infill must be 0–100 %').nullable().default(null),

@@ -111,6 +111,46 @@ export function useFamilyForm() {
       new Map(production.materials.map((material) => [material.id, material])),
     ).problems;
   });
+  /**
+   * Problems that belong to one axis (`axes.<n>…`), from the shared spec check, the SKU clash check and the server,
+   * shown on that axis's card rather than in the side panel.
+   */
+  const axisFieldProblems = computed(() => {
+    const all = [
+      ...specProblems.value,
+      ...skuClashes.value,
+      ...Object.entries(fieldErrors.value).map(([path, text]) => ({ path, message: text })),
+    ].filter((problem) => /^axes\.\d+/.test(problem.path));
+    return all.filter(
+      (problem, index) =>
+        all.findIndex((other) => other.message === problem.message && other.path === problem.path) === index,
+    );
+  });
+  /** Spec problems with no field of their own on the screen (the side panel lists them). */
+  const otherSpecProblems = computed(() => specProblems.value.filter((problem) => !/^axes\.\d+/.test(problem.path)));
+
+  /**
+   * A server problem is about the input as it was sent: once the person changes that field, it no longer applies
+   * and leaves the screen (so an old message never stands beside new input).
+   */
+  function forgetFieldErrors(prefix: string): void {
+    const kept = Object.entries(fieldErrors.value).filter(
+      ([path]) => path !== prefix && !path.startsWith(`${prefix}.`),
+    );
+    if (kept.length !== Object.keys(fieldErrors.value).length) {
+      fieldErrors.value = Object.fromEntries(kept);
+      if (!kept.length) saveError.value = null;
+    }
+  }
+  watch(name, () => forgetFieldErrors('name'));
+  watch(code, () => forgetFieldErrors('code'));
+  watch(description, () => forgetFieldErrors('description'));
+  watch(axes, () => forgetFieldErrors('axes'), { deep: true });
+  watch(baseParams, () => forgetFieldErrors('baseParams'), { deep: true });
+  watch(supportBudgetCm3, () => forgetFieldErrors('supportBudgetMm3'));
+  watch(printerId, () => forgetFieldErrors('printerId'));
+  watch(materialId, () => forgetFieldErrors('materialId'));
+
   const canSave = computed(
     () =>
       !!name.value.trim() &&
@@ -223,7 +263,8 @@ export function useFamilyForm() {
     } catch (err) {
       if (err instanceof ApiError) {
         fieldErrors.value = err.fieldErrors;
-        saveError.value = err.message;
+        // The problem is shown at its field; the side panel only points there.
+        saveError.value = Object.keys(err.fieldErrors).length ? 'The marked field says what to change.' : err.message;
       } else saveError.value = err instanceof Error ? err.message : String(err);
     } finally {
       saving.value = false;
@@ -264,6 +305,8 @@ export function useFamilyForm() {
     tooMany,
     codeOk,
     skuClashes,
+    axisFieldProblems,
+    otherSpecProblems,
     skuExample,
     specProblems,
     canSave,

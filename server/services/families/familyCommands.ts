@@ -9,7 +9,7 @@ import type { Family } from '../../../shared/schemas/family';
 import { findTemplate, parseParams } from '../../../templates/index';
 import type { Queryable } from '../../db/client';
 import { familyAcknowledgements, familyRevisions, familyVariants, families } from '../../db/schema';
-import { conflict } from '../../http/HttpError';
+import { HttpError } from '../../http/HttpError';
 import { familyJobs } from '../../jobs/FamilyJobRunner';
 import { recordAudit } from '../audit';
 import { loadMaterials, loadPrinters } from '../familyProduction';
@@ -54,7 +54,11 @@ export async function createFamily(ctx: FamilyContext, person: Person, body: Fam
   const { templateVersion } = checkFamilySpec(spec, await loadPrinters(ctx.db), await loadMaterials(ctx.db));
   const id = await ctx.db.transaction(async (tx) => {
     const [taken] = await tx.select({ id: families.id }).from(families).where(eq(families.code, body.code));
-    if (taken) throw conflict('code_taken', `code: another family already uses the code ${body.code}`);
+    if (taken) {
+      // Answered at the field: the client shows `details` beside the SKU code input.
+      const message = `Another family already uses the code ${body.code}: choose another.`;
+      throw new HttpError(409, 'code_taken', message, [{ in: 'body', path: 'code', message }]);
+    }
     const [family] = await tx.insert(families).values({ code: body.code, ownerId: person.id }).returning();
     const [revision] = await tx
       .insert(familyRevisions)

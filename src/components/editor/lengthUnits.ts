@@ -1,6 +1,9 @@
 /** Millimetres in one inch (exact by definition). */
 export const MM_PER_INCH = 25.4;
 
+/** Decimals an inch figure is shown with: thousandths (0.001 in = 0.0254 mm, finer than a 0.1 mm print step). */
+export const INCH_DECIMALS = 3;
+
 /**
  * A length parameter's value as shown: millimetres, or inches when the designer chose inches.
  * @param valueMm - the value in millimetres
@@ -24,10 +27,27 @@ export function fromDisplayLength(shown: number, display: 'mm' | 'in'): number {
  * Formats a millimetre length for a label in the chosen display unit.
  * @param valueMm - the value in millimetres
  * @param display - how lengths are shown
- * @param mmDecimals - decimals for millimetres (inches get two more)
+ * @param mmDecimals - decimals for millimetres (inches always get {@link INCH_DECIMALS})
  */
 export function formatLength(valueMm: number, display: 'mm' | 'in', mmDecimals = 1): string {
   return display === 'in'
-    ? `${(valueMm / MM_PER_INCH).toFixed(mmDecimals + 2)} in`
+    ? `${(valueMm / MM_PER_INCH).toFixed(INCH_DECIMALS)} in`
     : `${valueMm.toFixed(mmDecimals)} mm`;
+}
+
+/** A length written in millimetres inside a sentence: `32 mm`, `28–32 mm`, `0.6 mm` (not mm² or mm³). */
+const MM_IN_TEXT = /(\d+(?:\.\d+)?)(?:\s*[–-]\s*(\d+(?:\.\d+)?))?\s?mm(?![²³\w])/g;
+
+/**
+ * A sentence (help text, a caution) with every millimetre length in it written in the chosen display unit, so a
+ * screen in inches never mixes in millimetres: `over about 180 mm` → `over about 7.087 in`.
+ * @param text - the sentence, lengths in millimetres
+ * @param display - how lengths are shown
+ */
+export function lengthsInText(text: string, display: 'mm' | 'in'): string {
+  if (display === 'mm') return text;
+  const inches = (mm: string) => (Number(mm) / MM_PER_INCH).toFixed(INCH_DECIMALS);
+  return text.replace(MM_IN_TEXT, (_whole, from: string, to: string | undefined) =>
+    to === undefined ? `${inches(from)} in` : `${inches(from)}–${inches(to)} in`,
+  );
 }

@@ -3,6 +3,8 @@
  * Millimetres inside; the units are written next to the number.
  */
 
+import { formatCm3 } from '../../../shared/families/formatCm3';
+
 /**
  * Money from integer cents, e.g. `$12.40`.
  * @param cents - amount in cents
@@ -13,11 +15,12 @@ export function formatCents(cents: number, currency = 'USD'): string {
 }
 
 /**
- * A volume in cm³ from mm³, one decimal (`12.5 cm³`); small volumes keep mm³.
+ * A volume in cm³ from mm³ (`12.5 cm³`, `0.08 cm³`): always cm³, the unit the support budget is set in, so a
+ * volume and its budget read in one unit.
  * @param volumeMm3 - volume in cubic millimetres
  */
 export function formatVolumeMm3(volumeMm3: number): string {
-  return volumeMm3 < 1000 ? `${Math.round(volumeMm3)} mm³` : `${(volumeMm3 / 1000).toFixed(1)} cm³`;
+  return formatCm3(volumeMm3);
 }
 
 /**
