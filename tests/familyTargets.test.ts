@@ -35,7 +35,7 @@ describe('checkTargets (pure)', () => {
     expect(by.insulation!.met).toBe(false);
     expect(by.insulation!.overBy).toBeCloseTo(0.1727 - 0.15, 3);
     expect(describeTargetCheck(by['unit-cost']!, 'EUR')).toBe(
-      'unit cost 30.80 EUR is 2.80 EUR (10 %) over the 28.00 EUR target',
+      'unit cost €30.80 is €2.80 (10 %) over the €28.00 target',
     );
     // unset targets are not checked
     const none = checkTargets(
@@ -123,8 +123,8 @@ describe('checkTargets (pure)', () => {
     expect(misses).toHaveLength(1);
     expect(misses[0]!.skus).toEqual(['FH-T-28', 'FH-T-32']);
     expect(misses[0]!.message).toBe(
-      'unit cost misses the target in 2 variants: worst FH-T-32, unit cost 30.80 EUR is 2.80 EUR (10 %) over the ' +
-        '28.00 EUR target; wall thickness moves it most (+0.5 mm adds 1.15 EUR)',
+      'unit cost misses the target in 2 variants: worst FH-T-32, unit cost €30.80 is €2.80 (10 %) over the ' +
+        '€28.00 target; wall thickness moves it most (+0.5 mm adds €1.15)',
     );
   });
 });

@@ -1,5 +1,5 @@
 /** The local payment fake's hosted payment page: our own plain design, usable with the keyboard and on a phone. */
-import { formatMinor } from '../../shared/shop/formatMinor';
+import { formatMoney } from '../../shared/format';
 
 /** What the page shows. */
 export interface FakePaymentPageInput {
@@ -26,7 +26,7 @@ function escapeHtml(text: string): string {
  * @param input - the session and any message
  */
 export function fakePaymentPage(input: FakePaymentPageInput): string {
-  const money = (minor: number) => escapeHtml(formatMinor(minor, input.currency.toUpperCase()));
+  const money = (minor: number) => escapeHtml(formatMoney(minor, input.currency.toUpperCase()));
   const rows = input.lines
     .map((l) => `<tr><td>${l.quantity} × ${escapeHtml(l.name)}</td><td class="n">${money(l.amountMinor)}</td></tr>`)
     .join('');

@@ -1,7 +1,7 @@
 /** Draws a three-view orthographic drawing with overall dimensions into a box on a pdfkit page. */
 import type { OrthographicDrawing, OrthographicView } from '../../shared/drawing/orthographicDrawing';
 import { FONT } from './pdfFonts';
-import { inches } from './formatMeasure';
+import { inches } from '../../shared/format';
 
 /** Drawing scales offered, largest first (1:N). */
 const SCALES = [1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10];

@@ -3,11 +3,11 @@
  * No production cost, margin or farm plan: those stay on the studio's own quote screen.
  */
 import type { Quote } from '../../shared/schemas/quote';
-import { money } from './formatMeasure';
 import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectionHeading } from './pdfPageFrame';
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfTable } from './pdfTable';
 import { pdfToBuffer } from './pdfToBuffer';
+import { formatMoney } from '../../shared/format';
 
 const LINE_COLUMNS = [100, 221, 50, 70, 70];
 /** Lowest y a table row may start at before the goods continue on a new page. */
@@ -49,7 +49,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
       doc.y + 2,
     );
 
-  const m = (cents: number) => money(cents, quote.currency);
+  const m = (cents: number) => formatMoney(cents, quote.currency);
   let y = sectionHeading(doc, 'Goods', x, doc.y + 16, CONTENT_WIDTH);
   const head = ['SKU', 'Product', 'Quantity', 'Unit price', 'Line total'];
   const rows = quote.lines.map((line) => [

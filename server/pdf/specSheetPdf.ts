@@ -2,11 +2,11 @@
 import type { OrthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import type { DimWeight, ShippingBox } from '../../shared/schemas/shipping';
 import { drawOrthographicViews } from './drawOrthographicViews';
-import { celsiusFahrenheit, massGLb, mmIn, mmInTriple } from './formatMeasure';
 import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectionHeading } from './pdfPageFrame';
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfToBuffer } from './pdfToBuffer';
 import { pdfTable } from './pdfTable';
+import { formatCelsiusFahrenheit, formatMassGLb, formatMmIn, formatMmInTriple } from '../../shared/format';
 
 /** One species the variant suits, with a reference into `sources`. */
 export interface SpecSheetSpecies {
@@ -128,7 +128,7 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
     .fillColor(INK.muted)
     .text('ENTRY HOLE', PAGE.width - PAGE.margin - 134, 55, { lineBreak: false, characterSpacing: 0.8 });
   doc.font(FONT.bodyBold).fontSize(12).fillColor(INK.text);
-  doc.text(mmIn(s.entryHoleDiameterMm), PAGE.width - PAGE.margin - 134, 66, { width: 130, lineBreak: false });
+  doc.text(formatMmIn(s.entryHoleDiameterMm), PAGE.width - PAGE.margin - 134, 66, { width: 130, lineBreak: false });
 
   const top = afterTitle + 36;
   const pictureW = 200;
@@ -148,23 +148,23 @@ function productPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   y = keyValueRows(
     doc,
     [
-      ['Entry hole', `${mmIn(s.entryHoleDiameterMm)} diameter`],
-      ['Hole above floor', `${mmIn(s.holeAboveFloorMm)} to the lower edge of the hole`],
-      ['Overall size (W × D × H)', mmInTriple([o.widthMm, o.depthMm, o.heightMm])],
-      ['Inside floor', mmInTriple([s.floorWidthMm, s.floorDepthMm])],
-      ['Inside height', mmIn(s.cavityDepthMm)],
-      ['Wall thickness', mmIn(s.wallThicknessMm)],
+      ['Entry hole', `${formatMmIn(s.entryHoleDiameterMm)} diameter`],
+      ['Hole above floor', `${formatMmIn(s.holeAboveFloorMm)} to the lower edge of the hole`],
+      ['Overall size (W × D × H)', formatMmInTriple([o.widthMm, o.depthMm, o.heightMm])],
+      ['Inside floor', formatMmInTriple([s.floorWidthMm, s.floorDepthMm])],
+      ['Inside height', formatMmIn(s.cavityDepthMm)],
+      ['Wall thickness', formatMmIn(s.wallThicknessMm)],
       ['Material and colour', `${s.material}, ${s.colour.name} (printed, material extrusion)`],
       ...(s.outdoor
         ? ([
             [
               'In full sun, roof / wall',
-              `${celsiusFahrenheit(s.outdoor.roofC)} / ${celsiusFahrenheit(s.outdoor.wallC)} in ${s.colour.name.toLowerCase()} (estimate, ${s.outdoor.airC} °C air)`,
+              `${formatCelsiusFahrenheit(s.outdoor.roofC)} / ${formatCelsiusFahrenheit(s.outdoor.wallC)} in ${s.colour.name.toLowerCase()} (estimate, ${s.outdoor.airC} °C air)`,
             ],
-            ['Heat deflection', `${celsiusFahrenheit(s.outdoor.heatDeflectionC, 0)}, ${s.material} at 0.45 MPa`],
+            ['Heat deflection', `${formatCelsiusFahrenheit(s.outdoor.heatDeflectionC, 0)}, ${s.material} at 0.45 MPa`],
           ] as Array<[string, string]>)
         : []),
-      ['Mass', massGLb(s.massG)],
+      ['Mass', formatMassGLb(s.massG)],
       ['Back fits', s.backFit],
       ...(s.priceText ? ([['Price', s.priceText]] as Array<[string, string]>) : []),
     ],
@@ -233,11 +233,11 @@ function detailsPage(doc: PDFKit.PDFDocument, s: SpecSheetInput): void {
   y = keyValueRows(
     doc,
     [
-      ['Box, outside (L × W × H)', mmInTriple(s.box.outerMm)],
-      ['Box, inside', mmInTriple(s.box.innerMm)],
+      ['Box, outside (L × W × H)', formatMmInTriple(s.box.outerMm)],
+      ['Box, inside', formatMmInTriple(s.box.innerMm)],
       [
         'Actual weight',
-        `${massGLb(s.box.actualMassG)}: product ${massGLb(s.massG)} + carton and fill ${massGLb(s.box.packagingMassG)}`,
+        `${formatMassGLb(s.box.actualMassG)}: product ${formatMassGLb(s.massG)} + carton and fill ${formatMassGLb(s.box.packagingMassG)}`,
       ],
     ],
     x,

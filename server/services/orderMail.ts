@@ -1,9 +1,9 @@
 /** The customer's mails about an order: confirmation with the private link, shipped with tracking, refunded. */
 import { formatOrderNumber, type OrderState } from '../../shared/schemas/order';
-import { formatMinor } from '../../shared/shop/formatMinor';
 import type { OrderLineRow, OrderRow } from '../db/schema';
 import type { OutgoingMail } from '../mail/queueMail';
 import { STUDIO_NAME } from './specSheet';
+import { formatMoney } from '../../shared/format';
 
 /**
  * The private address of an order's page for its customer.
@@ -22,7 +22,7 @@ export function customerOrderUrl(row: Pick<OrderRow, 'siteOrigin' | 'customerTok
 export function orderMail(row: OrderRow, state: OrderState, lines: OrderLineRow[]): OutgoingMail | null {
   const number = formatOrderNumber(row.number);
   const link = customerOrderUrl(row);
-  const money = (minor: number) => formatMinor(minor, row.currency);
+  const money = (minor: number) => formatMoney(minor, row.currency);
   const footer = ['', `Your order page (keep this link private; it needs no account): ${link}`, '', `${STUDIO_NAME}`];
   if (state === 'paid') {
     return {

@@ -1,7 +1,7 @@
 /** Orders as CSV for operations: one row per order line, text cells neutralised against formula injection. */
 import type { Order } from '../../shared/schemas/order';
-import { currencyDigits } from '../../shared/shop/formatMinor';
 import { csvText, type CsvCell } from '../csv/csvText';
+import { currencyDigits } from '../../shared/format';
 
 /** Column titles, in order. */
 export const ORDERS_CSV_COLUMNS = [

@@ -4,6 +4,7 @@ import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { PriceListRow } from '../../shared/schemas/sales';
 import { csvText } from '../csv/csvText';
 import { productName, STUDIO_NAME } from './specSheet';
+import { MM_PER_INCH } from '../../shared/format';
 
 /** Column titles of the CSV and the sheet, in order, with units in the titles. */
 export const PRICE_LIST_COLUMNS = [
@@ -51,7 +52,7 @@ function cells(row: PriceListRow): Array<string | number> {
     row.material,
     row.colour,
     round(row.entryHoleDiameterMm, 1),
-    round(row.entryHoleDiameterMm / 25.4, 2),
+    round(row.entryHoleDiameterMm / MM_PER_INCH, 2),
     Math.round(row.massG),
     row.currency,
     round(row.unitPriceCents / 100, 2),

@@ -27,6 +27,7 @@ import { listCatalogueVariants } from './catalogue';
 import { cachedCatalogueValue } from './catalogueCache';
 import { getSalesSettings } from './salesSettings';
 import { backFit, productName, variantCautions } from './specSheet';
+import { inches } from '../../shared/format';
 
 /**
  * A family's address in the shop: its name in lower case with hyphens.
@@ -165,8 +166,7 @@ function axisLabelOf(key: string): string {
 function valueLabel(key: string, value: unknown, colourName?: string): string {
   if (colourName) return colourName;
   if (typeof value === 'boolean') return value ? 'Yes' : 'No';
-  if (typeof value === 'number')
-    return key.endsWith('Mm') ? `${value} mm (${(value / 25.4).toFixed(2)} in)` : String(value);
+  if (typeof value === 'number') return key.endsWith('Mm') ? `${value} mm (${inches(value)} in)` : String(value);
   const text = String(value).replace(/-/g, ' ');
   return text.charAt(0).toUpperCase() + text.slice(1);
 }

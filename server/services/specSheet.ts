@@ -12,10 +12,10 @@ import { assessOutdoor } from '../../shared/thermal/assessOutdoor';
 import type { SalesSettings } from '../../shared/schemas/sales';
 import { dimensionalWeight } from '../../shared/shipping/dimensionalWeight';
 import { shippingBox } from '../../shared/shipping/shippingBox';
-import { celsiusFahrenheit, mmIn, money } from '../pdf/formatMeasure';
 import { pdfText } from '../pdf/pdfFonts';
 import { renderSpecSheetsPdf, type SpecSheetCaution, type SpecSheetInput } from '../pdf/specSheetPdf';
 import { productMesh } from './specSheetMesh';
+import { formatCelsiusFahrenheit, formatMmIn, formatMoney } from '../../shared/format';
 
 /** Name of the demo studio on every document. */
 export const STUDIO_NAME = 'Fernhollow Studio';
@@ -109,7 +109,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
       : undefined,
     massG: variant.report.massG,
     backFit: backFit(variant.templateId, variant.params, o.widthMm),
-    priceText: `${money(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
+    priceText: `${formatMoney(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
     species,
     sources: sources.map(pdfText),
     box,
@@ -188,12 +188,12 @@ export function backFit(templateId: string, params: Record<string, unknown>, wid
   }
   if (typeof params.mountRadiusMm === 'number' && params.flatBack !== true) {
     return (
-      `Concave back shaped for a trunk or pole of ${mmIn(2 * params.mountRadiusMm)} diameter. ` +
+      `Concave back shaped for a trunk or pole of ${formatMmIn(2 * params.mountRadiusMm)} diameter. ` +
       'On a thicker trunk it bears on its two side edges, on a thinner one along its centre line: fix with a strap or screws through the hanging hole.'
     );
   }
   return (
-    `Flat back, ${mmIn(widthMm)} wide overall: flush on a flat post, board or wall. ` +
+    `Flat back, ${formatMmIn(widthMm)} wide overall: flush on a flat post, board or wall. ` +
     'On a round pole or trunk it touches along one line: fix with a strap or a bracket.'
   );
 }
@@ -220,9 +220,9 @@ function outdoorOf(
 /** The sun-heat sentence of the heat caution, naming the surfaces above or near the heat-deflection temperature. */
 function sunHeatText(o: OutdoorAssessment, materialName: string, colourName: string): string {
   const figures =
-    `In full sun on a ${o.airC} °C day this ${colourName.toLowerCase()} box reaches about ${celsiusFahrenheit(o.roof.solAirC)} ` +
-    `on the roof and ${celsiusFahrenheit(o.wall.solAirC)} on the walls; ${materialName} deforms under load from ` +
-    `${celsiusFahrenheit(o.heatDeflectionC, 0)}. `;
+    `In full sun on a ${o.airC} °C day this ${colourName.toLowerCase()} box reaches about ${formatCelsiusFahrenheit(o.roof.solAirC)} ` +
+    `on the roof and ${formatCelsiusFahrenheit(o.wall.solAirC)} on the walls; ${materialName} deforms under load from ` +
+    `${formatCelsiusFahrenheit(o.heatDeflectionC, 0)}. `;
   const over = (['roof', 'wall'] as const).filter((name) => o[name].verdict === 'fail');
   const near = (['roof', 'wall'] as const).filter((name) => o[name].verdict === 'caution');
   const nearText =

@@ -1,6 +1,7 @@
 import type { ProductionTargets, TargetCheck, TargetDriver, TargetFigures, TargetKey } from '../schemas/wallRecipe';
 import { CONVECTION_CELL_MM } from '../thermal/wallResistance';
 import { insulationTargetRM2KW } from './insulationTarget';
+import { formatMoney } from '../format';
 
 /** Labels of the four targets, for bars and messages. */
 export const TARGET_LABELS: Record<TargetKey, string> = {
@@ -138,8 +139,8 @@ export async function findTargetDrivers(
 }
 
 /**
- * A check in words for the gate and the editor, e.g. "unit cost 31.20 EUR is 3.20 EUR (11 %) over the 28.00 EUR
- * target; wall thickness moves it most (+0.5 mm adds 1.15 EUR)".
+ * A check in words for the gate and the editor, e.g. "unit cost €31.20 is €3.20 (11 %) over the €28.00
+ * target; wall thickness moves it most (+0.5 mm adds €1.15)".
  * @param check - a target check
  * @param currency - currency of the cents values
  */
@@ -174,7 +175,7 @@ export function describeTargetCheck(check: TargetCheck, currency: string): strin
 export function formatTargetValue(key: TargetKey, value: number, currency: string): string {
   switch (key) {
     case 'unit-cost':
-      return `${(value / 100).toFixed(2)} ${currency}`;
+      return formatMoney(value, currency);
     case 'print-hours':
       return `${value.toFixed(1)} h`;
     case 'mass':

@@ -1,9 +1,8 @@
 import type { BoxDimensionsMm, DimDivisor, DimWeight } from '../schemas/shipping';
 
-/** Millimetres per inch (exact). */
-export const MM_PER_INCH = 25.4;
-/** Grams per avoirdupois pound (exact). */
-export const G_PER_LB = 453.59237;
+import { G_PER_LB, MM_PER_INCH } from '../format/units';
+
+export { G_PER_LB, MM_PER_INCH };
 
 /**
  * Dimensional and billable weight of a parcel under one carrier divisor, following the published UPS rule

@@ -9,6 +9,7 @@ import { parseMeshFile } from '../../../shared/mesh/parseMeshFile';
 import { analyzeMesh } from '../../../shared/analysis/analyzeMesh';
 import { AnalysisRequestSchema, type AnalysisReport } from '../../../shared/schemas/analysis';
 import { EXIT_CODE, parseCliArgs } from '../parseCliArgs';
+import { formatMinutes, formatMoney } from '../../../shared/format';
 import {
   DEFAULT_MATERIALS,
   DEFAULT_PRINTERS,
@@ -114,7 +115,6 @@ export async function run(argv: string[]): Promise<number> {
 const mm = (v: number, digits = 1): string => `${v.toFixed(digits)} mm`;
 const cm3 = (v: number): string => `${(v / 1000).toFixed(1)} cm³`;
 const cm2 = (v: number): string => `${(v / 100).toFixed(1)} cm²`;
-const money = (cents: number, currency: string): string => `${(cents / 100).toFixed(2)} ${currency}`;
 const celsiusFahrenheit = (c: number): string => `${c.toFixed(1)} °C (${((c * 9) / 5 + 32).toFixed(0)} °F)`;
 const VERDICT_WORDS = { ok: 'ok', caution: 'close to the limit', fail: 'above the limit' } as const;
 
@@ -173,17 +173,17 @@ export function formatReport(r: AnalysisReport, name: string): string {
     ['Material', r.materialId],
     ['Mass', `${p.massG.toFixed(0)} g`],
     ['Filament', `${p.filamentLengthM.toFixed(1)} m`],
-    ['Print time', `${Math.floor(p.printTimeMin / 60)} h ${Math.round(p.printTimeMin % 60)} min`],
+    ['Print time', formatMinutes(p.printTimeMin)],
     ['Energy', `${p.energyKwh.toFixed(2)} kWh`],
-    ['Cost per unit', money(p.cost.totalCents, p.currency)],
-    ['  material', money(p.cost.materialCents, p.currency)],
-    ['  machine time', money(p.cost.machineTimeCents, p.currency)],
-    ['  energy', money(p.cost.energyCents, p.currency)],
-    ['  support removal', money(p.cost.supportLabourCents, p.currency)],
-    ['  handling', money(p.cost.handlingLabourCents, p.currency)],
-    ['  coating and packing', money(p.cost.postProcessingCents, p.currency)],
-    ['  packaging', money(p.cost.packagingCents, p.currency)],
-    ['  failure allowance', money(p.cost.failureAllowanceCents, p.currency)],
+    ['Cost per unit', formatMoney(p.cost.totalCents, p.currency)],
+    ['  material', formatMoney(p.cost.materialCents, p.currency)],
+    ['  machine time', formatMoney(p.cost.machineTimeCents, p.currency)],
+    ['  energy', formatMoney(p.cost.energyCents, p.currency)],
+    ['  support removal', formatMoney(p.cost.supportLabourCents, p.currency)],
+    ['  handling', formatMoney(p.cost.handlingLabourCents, p.currency)],
+    ['  coating and packing', formatMoney(p.cost.postProcessingCents, p.currency)],
+    ['  packaging', formatMoney(p.cost.packagingCents, p.currency)],
+    ['  failure allowance', formatMoney(p.cost.failureAllowanceCents, p.currency)],
     ['Outdoor colour', `${r.outdoor.colourId} (solar absorptance ${r.outdoor.absorptance.toFixed(2)})`],
     ['Heat deflection', celsiusFahrenheit(r.outdoor.heatDeflectionC)],
     [`Roof in full sun`, `${celsiusFahrenheit(r.outdoor.roof.solAirC)}, ${VERDICT_WORDS[r.outdoor.roof.verdict]}`],
