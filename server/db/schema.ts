@@ -5,6 +5,7 @@
  * module (e.g. `people` from ./tables/people), never from here, so that no import cycle forms.
  */
 import { index, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import type { CostRates, PrintSettings } from '../../shared/schemas/production';
 import { newId } from './newId';
 import { people } from './tables/people';
 
@@ -74,6 +75,19 @@ export const materials = pgTable('materials', {
   id: text('id').primaryKey(),
   name: text('name').notNull(),
   data: jsonb('data').$type<Record<string, unknown>>().notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * The studio's print settings and cost rates (one row, id `studio`), validated by shared/schemas/production. The
+ * built-in defaults of shared/production seed it; every reader takes them from here.
+ */
+export const productionSettings = pgTable('production_settings', {
+  id: text('id').primaryKey(),
+  settings: jsonb('settings').$type<PrintSettings>().notNull(),
+  rates: jsonb('rates').$type<CostRates>().notNull(),
+  updatedById: text('updated_by_id').references(() => people.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });
