@@ -10,6 +10,10 @@ import { renderSpecSheets } from '../server/services/specSheet';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
 import { priceListCsv, priceListRows, priceListXlsx } from '../server/services/priceList';
 import { catalogueVariantFixture } from '../tests/salesFixtures';
+import { DEFAULT_MATERIALS } from '../shared/production/defaults';
+
+/** The seed materials, as a new database holds them. */
+const MATERIALS = new Map(DEFAULT_MATERIALS.map((m) => [m.id, m]));
 import { TEMPLATES } from '../templates/index';
 
 async function timeMs<T>(fn: () => Promise<T> | T): Promise<{ ms: number; value: T }> {
@@ -27,7 +31,13 @@ export default async function bench(): Promise<void> {
     const drawing = await timeMs(() => orthographicDrawing(mesh));
     const shaded = await timeMs(() => shadedViewSvg(mesh, { colourHex: '#d8c8a4' }));
     const variant = await catalogueVariantFixture({ sku: `FH-BENCH-${template.id}`, templateId: template.id });
-    const pdf = await timeMs(() => renderSpecSheets([variant], { settings: DEFAULT_SALES_SETTINGS }));
+    const pdf = await timeMs(() =>
+      renderSpecSheets([variant], {
+        settings: DEFAULT_SALES_SETTINGS,
+        materials: MATERIALS,
+        studioName: 'Fernhollow Studio',
+      }),
+    );
     const lines =
       drawing.value.front.visible.length / 4 +
       drawing.value.side.visible.length / 4 +
@@ -40,9 +50,9 @@ export default async function bench(): Promise<void> {
   }
   const one = await catalogueVariantFixture({ sku: 'FH-BENCH-1', templateId: TEMPLATES[0].id });
   const variants = Array.from({ length: 500 }, (_, i) => ({ ...one, sku: `FH-BENCH-${i}` }));
-  const rows = priceListRows(variants);
+  const rows = priceListRows(variants, MATERIALS);
   const csv = await timeMs(() => priceListCsv(rows));
-  const xlsx = await timeMs(() => priceListXlsx(rows));
+  const xlsx = await timeMs(() => priceListXlsx(rows, 'Fernhollow Studio'));
   console.log(
     `price list 500 rows: CSV ${csv.ms.toFixed(1)} ms (${(csv.value.length / 1024).toFixed(0)} KiB), XLSX ${xlsx.ms.toFixed(0)} ms (${(xlsx.value.length / 1024).toFixed(0)} KiB)`,
   );

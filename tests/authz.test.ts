@@ -23,6 +23,7 @@ import {
 } from './familiesFixtures';
 import { listRoutes } from './setup/listRoutes';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { box, geomToMesh, toBinaryStl } from './meshFixtures';
@@ -333,6 +334,30 @@ const ROUTES: AuthzRow[] = [
   { method: 'get', route: '/api/quotes/:id', path: salesQuotePath, allowed: ['sales', 'catalogue_manager'] },
   { method: 'get', route: '/api/settings/sales', allowed: ['sales', 'catalogue_manager', 'admin'] },
   { method: 'put', route: '/api/settings/sales', allowed: ['admin'], body: DEFAULT_SALES_SETTINGS },
+  // Studio settings (admin): the studio's name, print settings and rates, printers, materials with their colours.
+  { method: 'get', route: '/api/settings/studio', allowed: ['admin'] },
+  { method: 'put', route: '/api/settings/studio', allowed: ['admin'], body: { name: 'Fernhollow Studio' } },
+  { method: 'get', route: '/api/settings/production', allowed: ['admin'] },
+  {
+    method: 'put',
+    route: '/api/settings/production',
+    allowed: ['admin'],
+    body: { settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES },
+  },
+  {
+    method: 'put',
+    route: '/api/settings/printers/:id',
+    path: () => `/api/settings/printers/${DEFAULT_PRINTERS[0].id}`,
+    allowed: ['admin'],
+    body: DEFAULT_PRINTERS[0],
+  },
+  {
+    method: 'put',
+    route: '/api/settings/materials/:id',
+    path: () => `/api/settings/materials/${DEFAULT_MATERIALS[0].id}`,
+    allowed: ['admin'],
+    body: DEFAULT_MATERIALS[0],
+  },
   // Production catalogue: the design editor's printers, materials, settings and rates (anyone signed in).
   { method: 'get', route: '/api/production', allowed: 'signed-in' },
   // Print farm: notices (public, signed: an unsigned call is 400 for everyone), exceptions (operations), demand and

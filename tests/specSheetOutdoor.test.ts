@@ -11,11 +11,13 @@ import { specSheetInput } from '../server/services/specSheet';
 import { catalogueVariantFixture } from './salesFixtures';
 
 const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
+/** The seed materials, as a new database holds them, and a studio name. */
+const documents = { materials: new Map(DEFAULT_MATERIALS.map((m) => [m.id, m])), studioName: 'Fernhollow Studio' };
 
 describe('spec sheet sun heat', () => {
   it('prefers the stored outdoor assessment and falls back to assessing the colour', async () => {
     const variant = await catalogueVariantFixture({ sku: 'FH-TSG-28-SAND', templateId: 'gable-box', colour: 'sand' });
-    const fresh = await specSheetInput(variant, { settings: DEFAULT_SALES_SETTINGS });
+    const fresh = await specSheetInput(variant, { settings: DEFAULT_SALES_SETTINGS, ...documents });
     // source: ASHRAE sol-air formula, sand α 0.40 (estimate in shared/production/defaults.ts), 30 °C air:
     // roof 30 + 0.40·1000/17 − 3.9 = 49.6 °C, wall 30 + 0.40·600/17 = 44.1 °C; PLA HDT 55 °C (NatureWorks Ingeo 2003D data sheet)
     expect(fresh.outdoor?.roofC).toBeCloseTo(30 + 400 / 17 - 3.9, 6);
@@ -26,7 +28,7 @@ describe('spec sheet sun heat', () => {
     const stored = assessOutdoor({ material: pla, colourId: 'sand', airC: 35 });
     const withStored = await specSheetInput(
       { ...variant, report: { ...variant.report, outdoor: stored } },
-      { settings: DEFAULT_SALES_SETTINGS },
+      { settings: DEFAULT_SALES_SETTINGS, ...documents },
     );
     // source: ASHRAE sol-air formula at 35 °C air: roof 35 + 0.40·1000/17 − 3.9 = 54.6 °C
     expect(withStored.outdoor?.airC).toBe(35);

@@ -1,11 +1,15 @@
-/** Default printer profiles and materials every new database starts with (admins edit them later). */
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS } from '../../shared/production/defaults';
+/**
+ * Default printer profiles, materials, print settings and cost rates every new database starts with (admins edit
+ * them on the settings screen). These defaults are read nowhere else: everything else reads the database.
+ */
+import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Queryable } from './client';
-import { materials, printerProfiles } from './schema';
+import { materials, printerProfiles, productionSettings } from './schema';
 import { registerSeedStep } from './seedRegistry';
 
 /**
- * Inserts DEFAULT_PRINTERS and DEFAULT_MATERIALS (shared/production/defaults.ts), keeping rows that already exist.
+ * Inserts DEFAULT_PRINTERS, DEFAULT_MATERIALS and the default print settings and rates (shared/production/defaults.ts),
+ * keeping rows that already exist.
  * @param db - database
  * @returns how many printers and materials were added
  */
@@ -20,6 +24,10 @@ export async function seedProduction(db: Queryable): Promise<{ printers: number;
     .values(DEFAULT_MATERIALS.map((material) => ({ id: material.id, name: material.name, data: { ...material } })))
     .onConflictDoNothing()
     .returning({ id: materials.id });
+  await db
+    .insert(productionSettings)
+    .values({ id: 'studio', settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES })
+    .onConflictDoNothing();
   return { printers: addedPrinters.length, materials: addedMaterials.length };
 }
 

@@ -6,15 +6,9 @@ import type { AppContext } from '../context';
 import { requireRole } from '../auth/requireRole';
 import { HttpError, badRequest, fieldProblem } from '../http/HttpError';
 import { parsedBody, validate } from '../http/validate';
-import {
-  ANALYSIS_MAX_UPLOAD_BYTES,
-  analysisOptions,
-  analyzeUpload,
-  defaultCatalogue,
-  type AnalysisCatalogue,
-} from '../services/analysis';
+import { ANALYSIS_MAX_UPLOAD_BYTES, analysisCatalogue, analysisOptions, analyzeUpload } from '../services/analysis';
 import { AnalysisWorker } from '../services/analysisWorker';
-import { loadMaterials, loadPrinters } from '../services/familyProduction';
+import { loadProductionCatalogue } from '../services/productionCatalogue';
 
 /** Multipart upload of one mesh file in memory; a file over the limit is a bad mesh (400), like any other. */
 const meshUpload: RequestHandler = (req, res, next) => {
@@ -55,12 +49,7 @@ export function analysesRouter(ctx: AppContext): Router {
   router.post('/', requireRole('designer'), meshUpload, validate({ body: AnalysisRequestSchema }), async (req, res) => {
     if (!req.file) throw fieldProblem('file', 'Attach the STL or 3MF file to check.');
     const request = parsedBody<AnalysisRequest>(res);
-    const [printers, materials] = await Promise.all([loadPrinters(ctx.db), loadMaterials(ctx.db)]);
-    const defaults = defaultCatalogue();
-    const catalogue: AnalysisCatalogue = {
-      printers: printers.size ? printers : defaults.printers,
-      materials: materials.size ? materials : defaults.materials,
-    };
+    const catalogue = analysisCatalogue(await loadProductionCatalogue(ctx.db));
     const options = analysisOptions(request, catalogue);
     const bytes = new Uint8Array(req.file.buffer.buffer, req.file.buffer.byteOffset, req.file.buffer.byteLength);
     res.json(await analyzeUpload(worker, bytes, req.file.originalname, options));

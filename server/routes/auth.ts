@@ -17,6 +17,7 @@ import { parsedBody, validate } from '../http/validate';
 import { findPersonByEmail, setPassword, toPerson } from '../services/people';
 import { eq } from 'drizzle-orm';
 import { people } from '../db/schema';
+import { getStudioName } from '../services/studio';
 
 /** The same answer for an unknown e-mail and a wrong password, so the form does not reveal who has an account. */
 const invalidCredentials = (): HttpError =>
@@ -47,7 +48,7 @@ export function authRouter(ctx: AppContext): Router {
     if (res.locals.sessionId) await ctx.lucia.invalidateSession(res.locals.sessionId as string);
     const session = await ctx.lucia.createSession(row.id, {});
     setSessionCookie(ctx, req, res, session.id);
-    const body: Me = { person: toPerson(row) };
+    const body: Me = { person: toPerson(row), studioName: await getStudioName(ctx.db) };
     res.json(body);
   });
 
@@ -73,8 +74,8 @@ export function authRouter(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  router.get('/me', requireAuth, (_req, res) => {
-    const body: Me = { person: signedInPerson(res) };
+  router.get('/me', requireAuth, async (_req, res) => {
+    const body: Me = { person: signedInPerson(res), studioName: await getStudioName(ctx.db) };
     res.json(body);
   });
 

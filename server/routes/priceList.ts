@@ -5,6 +5,8 @@ import { requireRole } from '../auth/requireRole';
 import { sendAttachment } from '../pdf/sendAttachment';
 import { listCatalogueVariants } from '../services/catalogue';
 import { priceListCsv, priceListRows, priceListXlsx } from '../services/priceList';
+import { loadMaterials } from '../services/familyProduction';
+import { getStudioName } from '../services/studio';
 
 /**
  * Builds the price-list router (mounted at `/api`; each route checks its roles).
@@ -13,7 +15,7 @@ import { priceListCsv, priceListRows, priceListXlsx } from '../services/priceLis
 export function priceListRouter(ctx: AppContext): Router {
   const router = Router();
   const sellers = requireRole('sales', 'catalogue_manager');
-  const rows = async () => priceListRows(await listCatalogueVariants(ctx));
+  const rows = async () => priceListRows(await listCatalogueVariants(ctx), await loadMaterials(ctx.db));
   const stamp = () => new Date().toISOString().slice(0, 10);
 
   router.get('/price-list.csv', sellers, async (_req, res) => {
@@ -23,7 +25,7 @@ export function priceListRouter(ctx: AppContext): Router {
   router.get('/price-list.xlsx', sellers, async (_req, res) => {
     sendAttachment(
       res,
-      await priceListXlsx(await rows()),
+      await priceListXlsx(await rows(), await getStudioName(ctx.db)),
       'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
       `price-list-${stamp()}.xlsx`,
     );

@@ -24,7 +24,7 @@ import { listCatalogueVariants } from '../services/catalogue';
 import { computeQuote, type QuoteFigures } from '../services/quote';
 import { findQuote, insertQuote, listQuotes, replaceQuote, setQuoteStatus } from '../services/quoteRecords';
 import { getSalesSettings } from '../services/salesSettings';
-import { STUDIO_NAME } from '../services/specSheet';
+import { getStudioName } from '../services/studio';
 
 /**
  * Builds the quotes router (mounted at `/api/quotes`); sales and catalogue managers only.
@@ -64,7 +64,12 @@ export function quotesRouter(ctx: AppContext): Router {
   // Before `/:id`, so `<id>.pdf` is not read as an id.
   router.get('/:id.pdf', sellers, idParams, async (_req, res) => {
     const quote = await existing(parsedParams<{ id: string }>(res).id);
-    sendAttachment(res, await renderQuotePdf(quote, STUDIO_NAME), 'application/pdf', `quote-${quote.reference}.pdf`);
+    sendAttachment(
+      res,
+      await renderQuotePdf(quote, await getStudioName(ctx.db)),
+      'application/pdf',
+      `quote-${quote.reference}.pdf`,
+    );
   });
 
   router.get('/:id', sellers, idParams, async (_req, res) => {

@@ -1,25 +1,36 @@
 /** Analysis of uploaded mesh files: pick the printer and material, then parse and analyse in a worker thread. */
 import type { AnalyzeMeshOptions } from '../../shared/analysis/analyzeMesh';
 import type { AnalysisReport, AnalysisRequest } from '../../shared/schemas/analysis';
-import type { Material, PrinterProfile } from '../../shared/schemas/production';
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
+import type { CostRates, Material, PrinterProfile, PrintSettings } from '../../shared/schemas/production';
 import { HttpError, badRequest } from '../http/HttpError';
 import { AnalysisError, type AnalysisWorker } from './analysisWorker';
 
 /** Largest upload the API analyses (about 1.3 M triangles of binary STL): keeps one request to a few seconds. */
 export const ANALYSIS_MAX_UPLOAD_BYTES = 64 * 1024 * 1024;
 
-/** Printers and materials to choose from, by id. */
+/** Printers and materials to choose from, by id, with the print settings and cost rates to estimate with. */
 export interface AnalysisCatalogue {
   printers: Map<string, PrinterProfile>;
   materials: Map<string, Material>;
+  settings: PrintSettings;
+  rates: CostRates;
 }
 
-/** The built-in printers and materials (used when the database holds none). */
-export function defaultCatalogue(): AnalysisCatalogue {
+/**
+ * The analysis catalogue from the production catalogue's lists.
+ * @param catalogue - printers, materials, settings and rates (from the database, or the built-in defaults in the CLI)
+ */
+export function analysisCatalogue(catalogue: {
+  printers: readonly PrinterProfile[];
+  materials: readonly Material[];
+  settings: PrintSettings;
+  rates: CostRates;
+}): AnalysisCatalogue {
   return {
-    printers: new Map(DEFAULT_PRINTERS.map((p) => [p.id, p])),
-    materials: new Map(DEFAULT_MATERIALS.map((m) => [m.id, m])),
+    printers: new Map(catalogue.printers.map((p) => [p.id, p])),
+    materials: new Map(catalogue.materials.map((m) => [m.id, m])),
+    settings: catalogue.settings,
+    rates: catalogue.rates,
   };
 }
 
@@ -43,8 +54,8 @@ export function analysisOptions(request: AnalysisRequest, catalogue: AnalysisCat
     material,
     colourId: request.colourId,
     settings:
-      request.infillPct === undefined ? DEFAULT_SETTINGS : { ...DEFAULT_SETTINGS, infillPct: request.infillPct },
-    rates: DEFAULT_RATES,
+      request.infillPct === undefined ? catalogue.settings : { ...catalogue.settings, infillPct: request.infillPct },
+    rates: catalogue.rates,
     overhangDeg: request.overhangDeg,
   };
 }

@@ -1,6 +1,5 @@
 import { z } from 'zod';
 import type { Design3mfChoice } from '../../shared/mesh/design3mf';
-import { DEFAULT_MATERIALS, DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import type { Material, PrinterProfile } from '../../shared/schemas/production';
 import { findTemplate } from '../../templates/index';
 import { parseParams } from '../../templates/lib/parseParams';
@@ -28,7 +27,7 @@ function paramError(field: string, message: string): HttpError {
   return badRequest(message, [{ in: 'body', path, message }]);
 }
 
-/** Printers and materials an export may name (from the database, or the defaults when it holds none). */
+/** Printers and materials an export may name (the studio's, from the database). */
 export interface ExportCatalogue {
   printers: ReadonlyMap<string, PrinterProfile>;
   materials: ReadonlyMap<string, Material>;
@@ -41,8 +40,7 @@ export interface ExportCatalogue {
  * @param catalogue - printers and materials to choose from
  */
 export function exportPlate(request: ExportRequest, catalogue: ExportCatalogue): Design3mfChoice {
-  const printers = catalogue.printers.size ? catalogue.printers : new Map(DEFAULT_PRINTERS.map((p) => [p.id, p]));
-  const materials = catalogue.materials.size ? catalogue.materials : new Map(DEFAULT_MATERIALS.map((m) => [m.id, m]));
+  const { printers, materials } = catalogue;
   const printer = request.printerId ? printers.get(request.printerId) : printers.values().next().value;
   if (!printer) throw paramError('printerId', "That printer is not one of the studio's printers.");
   const { x, y, z } = printer.buildVolumeMm;
@@ -83,7 +81,7 @@ export async function exportDesign(
       request.params,
       request.format,
       undefined,
-      exportPlate(request, catalogue),
+      request.format === '3mf' ? exportPlate(request, catalogue) : undefined,
     );
   } catch (err) {
     if (!(err instanceof ExportError)) throw err;

@@ -2,7 +2,6 @@
 import { formatOrderNumber, type OrderState } from '../../shared/schemas/order';
 import type { OrderLineRow, OrderRow } from '../db/schema';
 import type { OutgoingMail } from '../mail/queueMail';
-import { STUDIO_NAME } from './specSheet';
 import { formatMoney } from '../../shared/format';
 
 /**
@@ -18,12 +17,18 @@ export function customerOrderUrl(row: Pick<OrderRow, 'siteOrigin' | 'customerTok
  * @param row - the order after the change
  * @param state - the state entered
  * @param lines - its lines
+ * @param studioName - the studio, signing the mail
  */
-export function orderMail(row: OrderRow, state: OrderState, lines: OrderLineRow[]): OutgoingMail | null {
+export function orderMail(
+  row: OrderRow,
+  state: OrderState,
+  lines: OrderLineRow[],
+  studioName: string,
+): OutgoingMail | null {
   const number = formatOrderNumber(row.number);
   const link = customerOrderUrl(row);
   const money = (minor: number) => formatMoney(minor, row.currency);
-  const footer = ['', `Your order page (keep this link private; it needs no account): ${link}`, '', `${STUDIO_NAME}`];
+  const footer = ['', `Your order page (keep this link private; it needs no account): ${link}`, '', studioName];
   if (state === 'paid') {
     return {
       to: [row.email],

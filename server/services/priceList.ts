@@ -1,9 +1,9 @@
 /** The price list of published variants, as rows, as CSV (RFC 4180) and as an .xlsx workbook. */
-import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { PriceListRow } from '../../shared/schemas/sales';
 import { csvText } from '../csv/csvText';
-import { productName, STUDIO_NAME } from './specSheet';
+import { productName } from './specSheet';
+import type { Material } from '../../shared/schemas/production';
 import { MM_PER_INCH } from '../../shared/format';
 
 /** Column titles of the CSV and the sheet, in order, with units in the titles. */
@@ -24,10 +24,11 @@ export const PRICE_LIST_COLUMNS = [
  * One price-list row per variant. Shipping boxes are on each spec sheet, not here: they need the assembled body,
  * which is built from the template (about a second a variant), while the list must stay quick for hundreds of rows.
  * @param variants - published variants
+ * @param materials - the studio's materials by id (for material and colour names)
  */
-export function priceListRows(variants: CatalogueVariant[]): PriceListRow[] {
+export function priceListRows(variants: CatalogueVariant[], materials: ReadonlyMap<string, Material>): PriceListRow[] {
   return variants.map((variant) => {
-    const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+    const material = materials.get(variant.attributes.material);
     const colour = material?.colours.find((c) => c.id === variant.attributes.colour);
     return {
       sku: variant.sku,
@@ -75,13 +76,14 @@ export function priceListCsv(rows: PriceListRow[]): string {
 /**
  * The price list as an .xlsx workbook (exceljs): a frozen bold header with a filter, and number formats.
  * @param rows - price-list rows
+ * @param studioName - the studio, named as the workbook's author
  * @param issuedOn - date shown in the sheet's title row
  */
-export async function priceListXlsx(rows: PriceListRow[], issuedOn = new Date()): Promise<Buffer> {
+export async function priceListXlsx(rows: PriceListRow[], studioName: string, issuedOn = new Date()): Promise<Buffer> {
   // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
   const { default: ExcelJS } = await import('exceljs');
   const workbook = new ExcelJS.Workbook();
-  workbook.creator = STUDIO_NAME;
+  workbook.creator = studioName;
   workbook.created = issuedOn;
   const sheet = workbook.addWorksheet('Price list', { views: [{ state: 'frozen', ySplit: 1 }] });
   sheet.columns = PRICE_LIST_COLUMNS.map((title) => ({

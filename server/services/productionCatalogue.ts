@@ -1,23 +1,126 @@
-/** The production catalogue the design editor reads: printers and materials from the database, settings and rates. */
+/**
+ * The production catalogue: printers, materials (with their colours), print settings and cost rates, all from the
+ * database. The built-in defaults of shared/production only seed it (server/db/seedProduction.ts); until a studio
+ * saves its own print settings and rates, the seeded defaults stand in for the missing row.
+ */
+import { eq } from 'drizzle-orm';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
-import { ProductionCatalogueSchema, type ProductionCatalogue } from '../../shared/schemas/production';
-import type { Queryable } from '../db/client';
+import {
+  ProductionCatalogueSchema,
+  type Material,
+  type PrinterProfile,
+  type ProductionCatalogue,
+} from '../../shared/schemas/production';
+import type { ProductionSettings, StoredProductionSettings } from '../../shared/schemas/studioSettings';
+import type { Db, Queryable } from '../db/client';
+import { materials, printerProfiles, productionSettings } from '../db/schema';
+import { recordAudit } from './audit';
+import { catalogueChanged } from './catalogueCache';
 import { loadMaterials, loadPrinters } from './familyProduction';
+
+const ROW_ID = 'studio';
+
+/**
+ * The studio's print settings and cost rates, or the built-in defaults while none are saved.
+ * @param db - database
+ */
+export async function loadProductionSettings(db: Queryable): Promise<StoredProductionSettings> {
+  const [row] = await db.select().from(productionSettings).where(eq(productionSettings.id, ROW_ID));
+  if (!row) return { settings: DEFAULT_SETTINGS, rates: DEFAULT_RATES, updatedAt: null };
+  return { settings: row.settings, rates: row.rates, updatedAt: row.updatedAt.toISOString() };
+}
+
+/**
+ * Saves the print settings and cost rates (validated by the route).
+ * @param db - database
+ * @param input - settings and rates
+ * @param actorId - who saved them (null for seeding)
+ */
+export async function saveProductionSettings(
+  db: Queryable,
+  input: ProductionSettings,
+  actorId: string | null,
+): Promise<StoredProductionSettings> {
+  const now = new Date();
+  const values = { settings: input.settings, rates: input.rates, updatedById: actorId, updatedAt: now };
+  const [row] = await db
+    .insert(productionSettings)
+    .values({ id: ROW_ID, ...values })
+    .onConflictDoUpdate({ target: productionSettings.id, set: values })
+    .returning();
+  if (actorId) await recordAudit(db, { actorId, action: 'production.settings_saved', subject: 'production:settings' });
+  return { settings: row.settings, rates: row.rates, updatedAt: row.updatedAt.toISOString() };
+}
 
 /**
  * Every printer profile (sorted by name) and material (cheapest first, so a picker's first entry is the everyday
- * one), rows checked by the shared schemas, with the default print settings and cost rates: the database has no
- * table for those yet, so the defaults of shared/production apply.
+ * one), rows checked by the shared schemas, with the studio's print settings and cost rates.
  * @param db - database
  * @returns the catalogue, parsed with {@link ProductionCatalogueSchema}
  */
 export async function loadProductionCatalogue(db: Queryable): Promise<ProductionCatalogue> {
   const byName = (a: { name: string }, b: { name: string }) => a.name.localeCompare(b.name);
-  const [printers, materials] = await Promise.all([loadPrinters(db), loadMaterials(db)]);
+  const [printers, materialsById, stored] = await Promise.all([
+    loadPrinters(db),
+    loadMaterials(db),
+    loadProductionSettings(db),
+  ]);
   return ProductionCatalogueSchema.parse({
     printers: [...printers.values()].sort(byName),
-    materials: [...materials.values()].sort((a, b) => a.priceCentsPerKg - b.priceCentsPerKg || byName(a, b)),
-    settings: DEFAULT_SETTINGS,
-    rates: DEFAULT_RATES,
+    materials: [...materialsById.values()].sort((a, b) => a.priceCentsPerKg - b.priceCentsPerKg || byName(a, b)),
+    settings: stored.settings,
+    rates: stored.rates,
   });
+}
+
+/**
+ * Adds or replaces one printer profile.
+ * @param db - database
+ * @param printer - the profile (validated by the route)
+ * @param actorId - who saved it
+ * @returns whether the printer is new
+ */
+export async function savePrinter(db: Db, printer: PrinterProfile, actorId: string): Promise<{ created: boolean }> {
+  const [existing] = await db
+    .select({ id: printerProfiles.id })
+    .from(printerProfiles)
+    .where(eq(printerProfiles.id, printer.id));
+  const now = new Date();
+  await db
+    .insert(printerProfiles)
+    .values({ id: printer.id, name: printer.name, data: { ...printer } })
+    .onConflictDoUpdate({
+      target: printerProfiles.id,
+      set: { name: printer.name, data: { ...printer }, updatedAt: now },
+    });
+  await recordAudit(db, {
+    actorId,
+    action: existing ? 'printer.changed' : 'printer.added',
+    subject: `printer:${printer.id}`,
+  });
+  return { created: !existing };
+}
+
+/**
+ * Adds or replaces one material with its colours.
+ * @param db - database
+ * @param material - the material (validated by the route)
+ * @param actorId - who saved it
+ * @returns whether the material is new
+ */
+export async function saveMaterial(db: Db, material: Material, actorId: string): Promise<{ created: boolean }> {
+  const [existing] = await db.select({ id: materials.id }).from(materials).where(eq(materials.id, material.id));
+  const now = new Date();
+  await db
+    .insert(materials)
+    .values({ id: material.id, name: material.name, data: { ...material } })
+    .onConflictDoUpdate({ target: materials.id, set: { name: material.name, data: { ...material }, updatedAt: now } });
+  await recordAudit(db, {
+    actorId,
+    action: existing ? 'material.changed' : 'material.added',
+    subject: `material:${material.id}`,
+  });
+  // Material and colour names show in the shop and on documents.
+  catalogueChanged(db);
+  return { created: !existing };
 }

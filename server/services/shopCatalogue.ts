@@ -4,10 +4,11 @@
  */
 import { assembledSizeMm } from '../../shared/analysis/plateRule';
 import { assessBirdFit } from '../../shared/birdfit/assessBirdFit';
-import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { Photo } from '../../shared/schemas/photo';
 import type { SalesSettings } from '../../shared/schemas/sales';
+import type { Material } from '../../shared/schemas/production';
+import { loadMaterials } from './familyProduction';
 import type { Region } from '../../shared/schemas/birdfit';
 import type {
   ShopAxis,
@@ -44,17 +45,22 @@ export function productSlug(name: string): string {
   );
 }
 
+/** Published variants by product, the sales settings and the studio's materials (for colour and material names). */
+interface Sellable {
+  groups: Map<string, CatalogueVariant[]>;
+  settings: SalesSettings;
+  materials: ReadonlyMap<string, Material>;
+}
+
 /**
  * Published variants in the shop currency, grouped by product slug, with the settings; kept until the catalogue or
  * the settings change (read-only).
  */
-function sellable(ctx: AppContext): Promise<{ groups: Map<string, CatalogueVariant[]>; settings: SalesSettings }> {
+function sellable(ctx: AppContext): Promise<Sellable> {
   return cachedCatalogueValue(ctx, 'shop-sellable', () => loadSellable(ctx));
 }
 
-async function loadSellable(
-  ctx: AppContext,
-): Promise<{ groups: Map<string, CatalogueVariant[]>; settings: SalesSettings }> {
+async function loadSellable(ctx: AppContext): Promise<Sellable> {
   const { settings } = await getSalesSettings(ctx.db);
   const groups = new Map<string, CatalogueVariant[]>();
   for (const variant of await listCatalogueVariants(ctx)) {
@@ -62,7 +68,7 @@ async function loadSellable(
     const slug = productSlug(variant.family.name);
     groups.set(slug, [...(groups.get(slug) ?? []), variant]);
   }
-  return { groups, settings };
+  return { groups, settings, materials: await loadMaterials(ctx.db) };
 }
 
 function priceDisplay(settings: SalesSettings): ShopPriceDisplay {
@@ -73,9 +79,12 @@ function priceDisplay(settings: SalesSettings): ShopPriceDisplay {
   };
 }
 
-function colourOf(variant: CatalogueVariant): { id: string; name: string; hex: string } | null {
+function colourOf(
+  variant: CatalogueVariant,
+  materials: ReadonlyMap<string, Material>,
+): { id: string; name: string; hex: string } | null {
   if (!variant.attributes.colour) return null;
-  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const material = materials.get(variant.attributes.material);
   const colour = material?.colours.find((c) => c.id === variant.attributes.colour);
   return {
     id: variant.attributes.colour,
@@ -122,14 +131,18 @@ function sizeOf(variant: CatalogueVariant): Pick<ShopVariant, 'sizeMm' | 'sizeKi
   return { sizeMm: assembledSizeMm(parts, variant.report.bboxSizeMm), sizeKind: 'assembled', partCount };
 }
 
-function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): ShopVariant {
+function toShopVariant(
+  variant: CatalogueVariant,
+  settings: SalesSettings,
+  materials: ReadonlyMap<string, Material>,
+): ShopVariant {
   const size = sizeOf(variant);
-  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const material = materials.get(variant.attributes.material);
   return {
     sku: variant.sku,
     productName: productName(variant),
     axisValues: variant.axisValues,
-    colour: colourOf(variant),
+    colour: colourOf(variant, materials),
     material: material?.name ?? variant.attributes.material,
     priceMinor: shopUnitPrice(variant.priceCents, settings.shop.vatRatePct),
     entryHoleMm: variant.report.facts.entryHoleDiameterMm,
@@ -139,7 +152,7 @@ function toShopVariant(variant: CatalogueVariant, settings: SalesSettings): Shop
     suits: suitsOf(variant),
     regionCautions: regionCautionsOf(variant),
     mounting: backFit(variant.templateId, variant.params, size.sizeMm[0]),
-    cautions: variantCautions(variant).map(({ title, text }) => ({ title, text })),
+    cautions: variantCautions(variant, materials).map(({ title, text }) => ({ title, text })),
     meshSha256: variant.sha256 ?? '',
   };
 }
@@ -172,14 +185,14 @@ function valueLabel(key: string, value: unknown, colourName?: string): string {
 }
 
 /** The axes of a product from its variants' axis values (only values some published variant has). */
-function axesOf(variants: CatalogueVariant[]): ShopAxis[] {
+function axesOf(variants: CatalogueVariant[], materials: ReadonlyMap<string, Material>): ShopAxis[] {
   const keys = [...new Set(variants.flatMap((v) => Object.keys(v.axisValues)))];
   return keys.map((key) => {
     const seen = new Map<string, ShopAxis['values'][number]>();
     for (const variant of variants) {
       const value = variant.axisValues[key];
       if (value === undefined || seen.has(JSON.stringify(value))) continue;
-      const colour = key === 'colour' ? colourOf(variant) : null;
+      const colour = key === 'colour' ? colourOf(variant, materials) : null;
       seen.set(JSON.stringify(value), {
         value,
         label: valueLabel(key, value, colour?.name),
@@ -198,11 +211,16 @@ function uniqueBirds(birds: ShopBird[]): ShopBird[] {
   return [...seen.values()].sort((a, b) => a.region.localeCompare(b.region) || a.name.localeCompare(b.name));
 }
 
-function summaryOf(slug: string, variants: CatalogueVariant[], settings: SalesSettings): ShopProductSummary {
+function summaryOf(
+  slug: string,
+  variants: CatalogueVariant[],
+  settings: SalesSettings,
+  materials: ReadonlyMap<string, Material>,
+): ShopProductSummary {
   const first = variants[0];
   const colours = new Map<string, { id: string; name: string; hex: string }>();
   for (const v of variants) {
-    const c = colourOf(v);
+    const c = colourOf(v, materials);
     if (c) colours.set(c.id, c);
   }
   return {
@@ -225,8 +243,8 @@ function summaryOf(slug: string, variants: CatalogueVariant[], settings: SalesSe
  * @param query - filters
  */
 export async function listShopProducts(ctx: AppContext, query: ShopProductQuery = {}): Promise<ShopProductList> {
-  const { groups, settings } = await sellable(ctx);
-  const all = [...groups.entries()].map(([slug, variants]) => summaryOf(slug, variants, settings));
+  const { groups, settings, materials } = await sellable(ctx);
+  const all = [...groups.entries()].map(([slug, variants]) => summaryOf(slug, variants, settings, materials));
   const colours = new Map(all.flatMap((p) => p.colours).map((c) => [c.id, c]));
   return {
     products: all.filter(
@@ -245,10 +263,10 @@ export async function listShopProducts(ctx: AppContext, query: ShopProductQuery 
  * @param slug - the product's address
  */
 export async function getShopProduct(ctx: AppContext, slug: string): Promise<ShopProduct | undefined> {
-  const { groups, settings } = await sellable(ctx);
+  const { groups, settings, materials } = await sellable(ctx);
   const variants = groups.get(slug);
   if (!variants) return undefined;
-  const summary = summaryOf(slug, variants, settings);
+  const summary = summaryOf(slug, variants, settings, materials);
   return {
     slug: summary.slug,
     name: summary.name,
@@ -259,8 +277,8 @@ export async function getShopProduct(ctx: AppContext, slug: string): Promise<Sho
     suits: summary.suits,
     cautionRegions: summary.cautionRegions,
     variantCount: summary.variantCount,
-    axes: axesOf(variants),
-    variants: variants.map((v) => toShopVariant(v, settings)),
+    axes: axesOf(variants, materials),
+    variants: variants.map((v) => toShopVariant(v, settings, materials)),
     photos: variants[0].photos.map(shopPhoto),
     prices: priceDisplay(settings),
   };

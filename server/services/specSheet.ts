@@ -4,7 +4,6 @@ import { studioReason } from '../../shared/families/publishPolicy';
 import { SPECIES } from '../../shared/birdfit/species';
 import { orthographicDrawing } from '../../shared/drawing/orthographicDrawing';
 import { shadedViewSvg } from '../../shared/drawing/shadedViewSvg';
-import { DEFAULT_MATERIALS } from '../../shared/production/defaults';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
 import type { OutdoorAssessment } from '../../shared/schemas/outdoor';
 import type { Material } from '../../shared/schemas/production';
@@ -17,12 +16,13 @@ import { renderSpecSheetsPdf, type SpecSheetCaution, type SpecSheetInput } from 
 import { productMesh } from './specSheetMesh';
 import { formatCelsiusFahrenheit, formatMmIn, formatMoney } from '../../shared/format';
 
-/** Name of the demo studio on every document. */
-export const STUDIO_NAME = 'Fernhollow Studio';
-
 /** Options of {@link specSheetInput}. */
 export interface SpecSheetOptions {
   settings: SalesSettings;
+  /** The studio's materials by id (from the database), for material and colour names and the sun-heat check. */
+  materials: ReadonlyMap<string, Material>;
+  /** The studio's name, printed on every page. */
+  studioName: string;
   /** Date printed on the sheet (default now). */
   issuedOn?: Date;
   /** A photo of the sample print (any format sharp reads); a rendered view is used when absent. */
@@ -41,7 +41,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
   const product = await productMesh(variant.templateId, variant.params);
   const drawing = orthographicDrawing(product.mesh);
   const facts = variant.report.facts;
-  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+  const material = options.materials.get(variant.attributes.material);
   const colour = material?.colours.find((c) => c.id === variant.attributes.colour) ??
     material?.colours[0] ?? { id: 'natural', name: 'Natural', hex: '#e8e2d0', solarAbsorptance: 0.35 };
   const outdoor = outdoorOf(variant, material, colour.id);
@@ -82,7 +82,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
   });
 
   return {
-    studioName: STUDIO_NAME,
+    studioName: options.studioName,
     sku: variant.sku,
     productName: productName(variant),
     familyName: variant.family.name,
@@ -331,9 +331,13 @@ function warningTitle(code: string): string {
 /**
  * The cautions of a variant's spec sheet without building its mesh (the shop's product page shows them).
  * @param variant - a published catalogue variant
+ * @param materials - the studio's materials by id
  */
-export function variantCautions(variant: CatalogueVariant): SpecSheetCaution[] {
-  const material = DEFAULT_MATERIALS.find((m) => m.id === variant.attributes.material);
+export function variantCautions(
+  variant: CatalogueVariant,
+  materials: ReadonlyMap<string, Material>,
+): SpecSheetCaution[] {
+  const material = materials.get(variant.attributes.material);
   const colour = material?.colours.find((c) => c.id === variant.attributes.colour) ?? material?.colours[0];
   const outdoor = colour ? outdoorOf(variant, material, colour.id) : null;
   const fit = assessBirdFit(variant.report.facts);

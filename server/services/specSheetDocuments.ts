@@ -1,7 +1,7 @@
 /**
  * Spec sheets kept as generated documents in the file store (`documents/spec-sheets/<hash>.pdf`, the local folder
- * or the S3 bucket): a sheet is rendered once for what it shows (the variants, the sales settings, the sample photo
- * and the issue day) and then streamed from the store by whichever API process is asked, for staff and the shop
+ * or the S3 bucket): a sheet is rendered once for what it shows (the variants, the sales settings, the studio's name
+ * and materials, the sample photo and the issue day) and then streamed from the store by whichever API process is asked, for staff and the shop
  * alike. Anything the sheet shows changes the hash, so a changed variant or setting gets a new document.
  */
 import { createHash } from 'node:crypto';
@@ -13,6 +13,7 @@ import { fileKey, type StoredFile } from '../storage/FileStore';
 import { readPhoto } from './photoService';
 import { getSalesSettings } from './salesSettings';
 import { renderSpecSheets } from './specSheet';
+import { documentFacts } from './studio';
 
 /** Raise when the sheet's layout changes, so documents stored by an earlier version are not served again. */
 export const SPEC_SHEET_LAYOUT_VERSION = 2;
@@ -30,14 +31,23 @@ export async function openSpecSheet(
   issuedOn: Date = new Date(),
 ): Promise<StoredFile> {
   const { settings } = await getSalesSettings(ctx.db);
+  const { studioName, materials } = await documentFacts(ctx.db);
   const day = issuedOn.toISOString().slice(0, 10);
+  // Only the materials the variants use are part of what the sheet shows.
+  const used = [...new Set(variants.map((v) => v.attributes.material))].sort().map((id) => materials.get(id) ?? id);
   const hash = createHash('sha256')
-    .update(JSON.stringify({ layout: SPEC_SHEET_LAYOUT_VERSION, day, settings, variants }))
+    .update(JSON.stringify({ layout: SPEC_SHEET_LAYOUT_VERSION, day, settings, studioName, used, variants }))
     .digest('hex');
   const key = fileKey('documents', `spec-sheets/${hash}.pdf`);
   const stored = await ctx.files.open(key);
   if (stored) return stored;
-  const pdf = await renderSpecSheets(variants, { settings, issuedOn, photo: await samplePhoto(ctx, variants[0]) });
+  const pdf = await renderSpecSheets(variants, {
+    settings,
+    studioName,
+    materials,
+    issuedOn,
+    photo: await samplePhoto(ctx, variants[0]),
+  });
   await ctx.files.put(key, pdf, 'application/pdf');
   return { body: Readable.from([pdf]), sizeBytes: pdf.length, contentType: 'application/pdf' };
 }

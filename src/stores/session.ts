@@ -7,6 +7,8 @@ import { ApiError } from '../api/client';
 /** The signed-in person and their roles; loads `/api/auth/me` once per page load. */
 export const useSessionStore = defineStore('session', () => {
   const person = ref<Person | null>(null);
+  /** The studio's name (from the database), shown in the app's header. */
+  const studioName = ref('');
   let loading: Promise<void> | null = null;
   const loaded = ref(false);
 
@@ -27,6 +29,7 @@ export const useSessionStore = defineStore('session', () => {
       .fetchMe()
       .then((me) => {
         person.value = me.person;
+        studioName.value = me.studioName;
       })
       .catch((err: unknown) => {
         if (err instanceof ApiError && err.status === 401) person.value = null;
@@ -48,6 +51,7 @@ export const useSessionStore = defineStore('session', () => {
   async function signIn(credentials: SignIn): Promise<void> {
     const me = await authApi.signIn(credentials);
     person.value = me.person;
+    studioName.value = me.studioName;
     loading = Promise.resolve();
     loaded.value = true;
   }
@@ -68,5 +72,13 @@ export const useSessionStore = defineStore('session', () => {
     }
   }
 
-  return { person, roles, signedIn, loaded, hasRole, load, signIn, signOut, forget };
+  /**
+   * Shows a new studio name at once after an admin renamed the studio.
+   * @param name - the saved name
+   */
+  function setStudioName(name: string): void {
+    studioName.value = name;
+  }
+
+  return { person, studioName, setStudioName, roles, signedIn, loaded, hasRole, load, signIn, signOut, forget };
 });

@@ -24,10 +24,14 @@ const USAGE =
   'Usage: npm run cli -- analyze --in FILE [--up +z|-z|+x|-x|+y|-y|auto] [--printer ID] [--material ID] ' +
   '[--colour ID] [--infill PCT] [--overhang DEG] [--json]\n' +
   `Printers: ${DEFAULT_PRINTERS.map((p) => p.id).join(', ')}\nMaterials: ${DEFAULT_MATERIALS.map((m) => m.id).join(', ')}\n` +
-  `Colours: ${DEFAULT_MATERIALS[0]!.colours.map((c) => c.id).join(', ')}\n`;
+  `Colours: ${DEFAULT_MATERIALS[0]!.colours.map((c) => c.id).join(', ')}\n` +
+  "These are the built-in defaults a new database starts with; the studio's own apply to uploads on the server.\n";
 
 /**
  * Reads the file, analyses it with the built-in printers and materials and prints the report (a table, or JSON).
+ * The command needs no database and does not open one: a running server holds its PGlite data directory, so the CLI
+ * uses the built-in defaults of shared/production, the values a new database is seeded with. A studio's own printers,
+ * materials, settings and rates (edited on the admin settings screen) apply to uploads on the server.
  * @param argv - command-line arguments after the command name
  * @returns 0 on success, 1 for a file that is not a readable mesh, 2 for bad arguments
  */
