@@ -12,10 +12,13 @@ import '@fontsource/source-sans-3/700.css';
 import '@fontsource/jetbrains-mono/400.css';
 import '@fontsource/jetbrains-mono/600.css';
 import './styles/base.css';
+import { applyPaletteVariables } from './styles/palette';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/client';
 import { router } from './router';
 import { useSessionStore } from './stores/session';
+
+applyPaletteVariables(document.documentElement);
 
 const app = createApp(App);
 app.use(createPinia());

@@ -7,6 +7,7 @@ import IconFamilies from '../components/icons/IconFamilies.vue';
 import IconJobs from '../components/icons/IconJobs.vue';
 import IconMail from '../components/icons/IconMail.vue';
 import IconPeople from '../components/icons/IconPeople.vue';
+import IconSettings from '../components/icons/IconSettings.vue';
 import IconReview from '../components/icons/IconReview.vue';
 import IconQuotes from '../components/sales/IconQuotes.vue';
 import IconDemand from '../components/farm/IconDemand.vue';
@@ -114,6 +115,14 @@ export const AREAS: readonly Area[] = [
     path: '/admin/people',
     roles: ['admin'],
     icon: IconPeople,
+  },
+  {
+    id: 'settings',
+    label: 'Settings',
+    description: 'The studio name, printers, materials and colours, print settings, cost rates, packaging and farm.',
+    path: '/admin/settings',
+    roles: ['admin'],
+    icon: IconSettings,
   },
   {
     id: 'mail',

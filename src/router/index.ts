@@ -150,6 +150,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['operations', 'admin'], title: 'Farm exceptions' },
   },
   {
+    path: '/admin/settings',
+    name: 'admin-settings',
+    component: () => import('../views/AdminSettingsView.vue'),
+    meta: { roles: ['admin'], title: 'Studio settings' },
+  },
+  {
     path: '/admin/jobs',
     name: 'admin-jobs',
     component: () => import('../views/AdminJobsView.vue'),

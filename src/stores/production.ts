@@ -33,6 +33,15 @@ export const useProductionStore = defineStore('production', () => {
   }
 
   /**
+   * Loads the catalogue again (after an admin changed printers, materials, settings or rates).
+   * @returns when the fresh catalogue (or its error) is in the store
+   */
+  async function reload(): Promise<void> {
+    catalogue.value = null;
+    await ensureLoaded();
+  }
+
+  /**
    * A printer as people know it: its name, or the id until the catalogue has loaded (loading starts here).
    * @param id - a printer profile id
    */
@@ -41,5 +50,5 @@ export const useProductionStore = defineStore('production', () => {
     return printers.value.find((printer) => printer.id === id)?.name ?? id;
   }
 
-  return { catalogue, printers, materials, error, ensureLoaded, printerName };
+  return { catalogue, printers, materials, error, ensureLoaded, reload, printerName };
 });

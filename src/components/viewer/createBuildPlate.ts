@@ -13,6 +13,7 @@ import {
   PlaneGeometry,
   Vector3,
 } from 'three';
+import { PALETTE, paletteNumber } from '../../styles/palette';
 
 /** The printer's build volume in millimetres (x by y on the plate, z up). */
 export interface BuildVolumeMm {
@@ -34,7 +35,7 @@ export function createBuildPlate(volume: BuildVolumeMm): Group {
 
   const plate = new Mesh(
     new PlaneGeometry(widthMm, depthMm),
-    new MeshBasicMaterial({ color: new Color('#e9e4d8'), transparent: true, opacity: 0.85, depthWrite: false }),
+    new MeshBasicMaterial({ color: new Color(PALETTE.plate), transparent: true, opacity: 0.85, depthWrite: false }),
   );
   plate.position.z = -0.05;
   plate.renderOrder = -1;
@@ -49,19 +50,22 @@ export function createBuildPlate(volume: BuildVolumeMm): Group {
   const gridGeometry = new BufferGeometry();
   gridGeometry.setAttribute('position', new Float32BufferAttribute(gridPoints, 3));
   group.add(
-    new LineSegments(gridGeometry, new LineBasicMaterial({ color: '#c9c0ad', transparent: true, opacity: 0.7 })),
+    new LineSegments(
+      gridGeometry,
+      new LineBasicMaterial({ color: PALETTE.lineStrong, transparent: true, opacity: 0.7 }),
+    ),
   );
 
   const outline = new LineSegments(
     new EdgesGeometry(new PlaneGeometry(widthMm, depthMm)),
-    new LineBasicMaterial({ color: '#7b6f58' }),
+    new LineBasicMaterial({ color: PALETTE.plateEdge }),
   );
   outline.position.z = 0.02;
   group.add(outline);
 
   const volumeBox = new LineSegments(
     new EdgesGeometry(new BoxGeometry(widthMm, depthMm, heightMm)),
-    new LineBasicMaterial({ color: '#b9ae98', transparent: true, opacity: 0.35 }),
+    new LineBasicMaterial({ color: PALETTE.plateVolume, transparent: true, opacity: 0.35 }),
   );
   volumeBox.name = 'build-volume';
   volumeBox.position.z = heightMm / 2;
@@ -72,7 +76,7 @@ export function createBuildPlate(volume: BuildVolumeMm): Group {
     new Vector3(0, 0, 1),
     new Vector3(-widthMm / 2 + 12, -depthMm / 2 + 12, 0),
     arrowLengthMm,
-    0x3f6f5a,
+    paletteNumber('buildArrow'),
     arrowLengthMm * 0.18,
     arrowLengthMm * 0.1,
   );
