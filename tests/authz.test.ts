@@ -402,6 +402,7 @@ const ROUTES: AuthzRow[] = [
     body: PLAN_BODY,
   },
   // Shop: public. Orders: operations and admin.
+  { method: 'get', route: '/api/shop/studio', allowed: 'public' },
   { method: 'get', route: '/api/shop/products', allowed: 'public' },
   {
     method: 'get',

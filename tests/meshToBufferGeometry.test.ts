@@ -20,6 +20,7 @@ import {
   toDisplayLength,
 } from '../src/components/editor/lengthUnits';
 import type { IndexedMesh } from '../shared/schemas/mesh';
+import { applyPaletteVariables } from '../src/styles/palette';
 
 /** A 10 mm cube, counter-clockwise seen from outside. */
 function cube(): IndexedMesh {
@@ -110,10 +111,12 @@ describe('meshToBufferGeometry', () => {
   });
 
   it("the legend's swatch uses the same two colours as the drawing (common practice, no source)", () => {
-    const css = readFileSync(new URL('../src/styles/base.css', import.meta.url), 'utf8');
+    // The CSS variables are set from the palette at start-up (applyPaletteVariables).
+    const css = new Map<string, string>();
+    applyPaletteVariables({ style: { setProperty: (name, value) => css.set(name, value) } });
     const overlay = readFileSync(new URL('../src/components/editor/StageOverlay.vue', import.meta.url), 'utf8');
-    expect(css).toContain(`--nw-slate: ${OVERHANG_MILD_HEX};`);
-    expect(css).toContain(`--nw-rust: ${OVERHANG_STEEP_HEX};`);
+    expect(css.get('--nw-slate')).toBe(OVERHANG_MILD_HEX);
+    expect(css.get('--nw-rust')).toBe(OVERHANG_STEEP_HEX);
     expect(overlay).toMatch(/\.swatch--overhang \{[^}]*linear-gradient\(90deg, var\(--nw-slate\), var\(--nw-rust\)\)/);
   });
 

@@ -29,6 +29,8 @@ describe('studio name', () => {
     expect(saved.body).toEqual({ name: 'Wrenfield Nest Works' });
     expect((await designer.get('/api/auth/me')).body.studioName).toBe('Wrenfield Nest Works');
     expect((await admin.get('/api/settings/studio')).body.name).toBe('Wrenfield Nest Works');
+    const shop = await (await t.agent(null)).get('/api/shop/studio');
+    expect(shop.body).toEqual({ name: 'Wrenfield Nest Works' });
 
     const empty = await admin.put('/api/settings/studio').send({ name: '   ' });
     expect(empty.status).toBe(400);

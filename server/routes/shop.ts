@@ -30,6 +30,7 @@ import { openPhoto } from '../services/photoService';
 import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';
 import { openSpecSheet } from '../services/specSheetDocuments';
+import { getStudioName } from '../services/studio';
 import { productMesh } from '../services/specSheetMesh';
 import { sendStoredFile } from '../storage/sendStoredFile';
 
@@ -66,6 +67,12 @@ export function shopRouter(ctx: AppContext): Router {
         ),
       );
     },
+  });
+
+  // The studio's name for the shop's header (public; it changes rarely, so browsers may keep it a minute).
+  router.get('/studio', async (_req, res) => {
+    res.set('Cache-Control', 'public, max-age=60');
+    res.json({ name: await getStudioName(ctx.db) });
   });
 
   // Product answers are cached until the catalogue or the shop settings change, with an ETag and gzip.

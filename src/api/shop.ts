@@ -13,6 +13,12 @@ import {
   type ShopQuoteRequest,
 } from '../../shared/schemas/shop';
 import { api } from './client';
+import { z } from 'zod';
+
+/** The studio's name, for the shop's header. */
+export async function getShopStudioName(): Promise<string> {
+  return (await api('/shop/studio', { schema: z.object({ name: z.string() }) })).name;
+}
 
 /**
  * Products on sale, filtered by bird and colour.
