@@ -9,6 +9,10 @@ import { GateWarningCodeSchema, type GateWarning } from '../shared/schemas/gate'
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { variantCautions } from '../server/services/specSheet';
+import { DEFAULT_MATERIALS } from '../shared/production/defaults';
+
+/** The seed materials, as a new database holds them. */
+const MATERIALS = new Map(DEFAULT_MATERIALS.map((m) => [m.id, m]));
 import { acknowledgeAll, computeNow, createTestFamily, smallFamilyBody } from './familiesFixtures';
 import { catalogueVariantFixture } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
@@ -98,10 +102,10 @@ describe('the spec sheet states an acknowledged limit with the studio’s reason
         { code: 'thin-walls' as const, text: reason, by: { id: 'p', name: 'Maren' }, at: '2026-12-01T10:00:00Z' },
       ],
     };
-    const caution = variantCautions(acked).find((c) => c.title.startsWith('Acknowledged limit: thin walls'));
+    const caution = variantCautions(acked, MATERIALS).find((c) => c.title.startsWith('Acknowledged limit: thin walls'));
     expect(caution).toBeDefined();
     expect(caution!.text).toContain(studioReason(reason));
     // Without the acknowledgement the finding is a plain caution.
-    expect(variantCautions(variant).some((c) => c.title.startsWith('Acknowledged limit'))).toBe(false);
+    expect(variantCautions(variant, MATERIALS).some((c) => c.title.startsWith('Acknowledged limit'))).toBe(false);
   });
 });

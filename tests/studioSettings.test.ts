@@ -51,7 +51,7 @@ describe('print settings and cost rates', () => {
     expect(before.body.settings).toEqual(DEFAULT_SETTINGS);
     expect(before.body.rates).toEqual(DEFAULT_RATES);
 
-    const settings = { ...DEFAULT_SETTINGS, infillPct: 22, wallLoops: 3 };
+    const settings = { ...DEFAULT_SETTINGS, infillPct: 22, perimeters: 3 };
     const rates = { ...DEFAULT_RATES, labourCentsPerHour: 3100, marginPct: 35 };
     const saved = await admin.put('/api/settings/production').send({ settings, rates });
     expect(saved.status).toBe(200);

@@ -16,6 +16,8 @@ import { evaluateVariant } from '../server/jobs/evaluateVariant';
 import { variantCautions } from '../server/services/specSheet';
 
 const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
+/** The seed materials, as a new database holds them. */
+const MATERIALS = new Map(DEFAULT_MATERIALS.map((m) => [m.id, m]));
 const petg = DEFAULT_MATERIALS.find((m) => m.id === 'petg')!;
 const printer = DEFAULT_PRINTERS[0];
 
@@ -117,7 +119,7 @@ describe('the spec sheet says the same', () => {
   }, 60_000);
 
   it('names the material and quotes the stored wall figure', () => {
-    const caution = variantCautions(variant).find((c) => c.title === 'Thin walls');
+    const caution = variantCautions(variant, MATERIALS).find((c) => c.title === 'Thin walls');
     expect(caution).toBeDefined();
     expect(caution!.text).toMatch(/PETG/);
     expect(caution!.text).not.toMatch(/PLA/);

@@ -3,7 +3,7 @@ import type { NumberField } from './NumberFields.vue';
 
 /** Print settings. */
 export const PRINT_SETTING_FIELDS: readonly NumberField[] = [
-  { key: 'wallLoops', label: 'Perimeters', min: 1, max: 20 },
+  { key: 'perimeters', label: 'Perimeters', min: 1, max: 20 },
   { key: 'topLayers', label: 'Top layers', min: 0, max: 50 },
   { key: 'bottomLayers', label: 'Bottom layers', min: 0, max: 50 },
   { key: 'infillPct', label: 'Infill (%)', min: 0, max: 100 },
