@@ -12,13 +12,8 @@ import {
   overhangRgb,
   SURFACE_RGB,
 } from '../src/components/viewer/meshToBufferGeometry';
-import {
-  formatLength,
-  fromDisplayLength,
-  INCH_DECIMALS,
-  lengthsInText,
-  toDisplayLength,
-} from '../src/components/editor/lengthUnits';
+import { fromDisplayLength, INCH_DECIMALS, lengthsInText, toDisplayLength } from '../src/components/editor/lengthUnits';
+import { formatLength } from '../shared/format';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import { applyPaletteVariables } from '../src/styles/palette';
 
@@ -139,10 +134,10 @@ describe('length display', () => {
 });
 
 describe('lengths in inch mode', () => {
-  it('shows inches to the thousandth, not rounded to hundredths', () => {
-    // source: 1 in = 25.4 mm exactly (international inch, 1959); 32 mm = 1.2598… in
+  it('shows inches with two more decimals than the millimetres they stand for', () => {
+    // source: 1 in = 25.4 mm exactly (international inch, 1959); 32 mm = 1.2598… in, 0.6 mm = 0.0236… in
     expect(formatLength(32, 'in')).toBe('1.260 in');
-    expect(formatLength(0.6, 'in', 0)).toBe('0.024 in');
+    expect(formatLength(0.6, 'in', 0)).toBe('0.02 in');
     expect(INCH_DECIMALS).toBe(3);
   });
 

@@ -1,5 +1,8 @@
-/** Millimetres in one inch (exact by definition). */
-export const MM_PER_INCH = 25.4;
+/**
+ * Converting the editor's length fields between millimetres and inches. Lengths are written for people through
+ * shared/format (`formatLength`); this module keeps what is particular to the editor: field values and help texts.
+ */
+import { MM_PER_INCH } from '../../../shared/format';
 
 /** Decimals an inch figure is shown with: thousandths (0.001 in = 0.0254 mm, finer than a 0.1 mm print step). */
 export const INCH_DECIMALS = 3;
@@ -21,18 +24,6 @@ export function toDisplayLength(valueMm: number, display: 'mm' | 'in'): number {
 export function fromDisplayLength(shown: number, display: 'mm' | 'in'): number {
   const mm = display === 'in' ? shown * MM_PER_INCH : shown;
   return Math.round(mm * 100) / 100;
-}
-
-/**
- * Formats a millimetre length for a label in the chosen display unit.
- * @param valueMm - the value in millimetres
- * @param display - how lengths are shown
- * @param mmDecimals - decimals for millimetres (inches always get {@link INCH_DECIMALS})
- */
-export function formatLength(valueMm: number, display: 'mm' | 'in', mmDecimals = 1): string {
-  return display === 'in'
-    ? `${(valueMm / MM_PER_INCH).toFixed(INCH_DECIMALS)} in`
-    : `${valueMm.toFixed(mmDecimals)} mm`;
 }
 
 /** A length written in millimetres inside a sentence: `32 mm`, `28–32 mm`, `0.6 mm` (not mm² or mm³). */

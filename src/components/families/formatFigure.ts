@@ -1,18 +1,9 @@
 /**
- * Formats the figures family, review and catalogue screens show: money from cents, volumes, masses, durations.
- * Millimetres inside; the units are written next to the number.
+ * Formats the figures family, review and catalogue screens show that the shared format module does not: volumes,
+ * axis values and dates. Money, masses and durations come from shared/format.
  */
 
 import { formatCm3 } from '../../../shared/families/formatCm3';
-
-/**
- * Money from integer cents, e.g. `$12.40`.
- * @param cents - amount in cents
- * @param currency - ISO 4217 code
- */
-export function formatCents(cents: number, currency = 'USD'): string {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).format(cents / 100);
-}
 
 /**
  * A volume in cm³ from mm³ (`12.5 cm³`, `0.08 cm³`): always cm³, the unit the support budget is set in, so a
@@ -21,24 +12,6 @@ export function formatCents(cents: number, currency = 'USD'): string {
  */
 export function formatVolumeMm3(volumeMm3: number): string {
   return formatCm3(volumeMm3);
-}
-
-/**
- * A mass in grams, one decimal.
- * @param massG - mass in grams
- */
-export function formatMassG(massG: number): string {
-  return `${massG.toFixed(1)} g`;
-}
-
-/**
- * A duration from minutes as `3 h 25 min`.
- * @param minutes - duration in minutes
- */
-export function formatMinutes(minutes: number): string {
-  const rounded = Math.round(minutes);
-  const hours = Math.floor(rounded / 60);
-  return hours ? `${hours} h ${rounded % 60} min` : `${rounded} min`;
 }
 
 /**
