@@ -213,6 +213,7 @@ describe('default gable box: one answer on every demo printer', () => {
       },
       settings,
       new Date('2027-03-01T09:00:00Z'),
+      new Map([[printer.id, printer]]),
     );
     const line = quote.lines[0].farm;
     expect(line.plates).toBe(platesForOrder(expected, 43));

@@ -16,10 +16,12 @@ import { isQuoteEditable, quoteStatusOn, quoteTransitionRefusal } from '../share
 import { QuoteListResponseSchema, QuoteSchema, type QuoteInput } from '../shared/schemas/quote';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import type { SalesSettings } from '../shared/schemas/sales';
-import { computeQuote } from '../server/services/quote';
+import { computeQuote, variantPlateRule } from '../server/services/quote';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
 import { quotes } from '../server/db/schema';
-import { FIXTURE_SKUS } from './salesFixtures';
+import { demoPersonId } from '../server/db/seedDemo';
+import { DEFAULT_PRINTERS } from '../shared/production/defaults';
+import { FIXTURE_SKUS, publishFixtureFamily } from './salesFixtures';
 import { binaryBody, useSalesTestApp } from './setup/salesTestApp';
 
 const suite = useSalesTestApp();
@@ -115,6 +117,8 @@ describe('computeQuote', () => {
     return variant;
   };
   const today = new Date('2027-03-01T15:00:00Z');
+  /** The printers a new studio starts with (what the seed writes into its database). */
+  const printers = new Map(DEFAULT_PRINTERS.map((p) => [p.id, p]));
   const input = (lines: QuoteInput['lines'], deliveryDate = '2027-03-03'): QuoteInput => ({
     customerName: 'Wren & Co',
     deliveryDate,
@@ -126,7 +130,7 @@ describe('computeQuote', () => {
 
   it('16 units of a 60-minute print on 2 printers, 4 a plate: 4 plates, 2 per printer, 8 h, lead time 1 + 1 days', () => {
     const variants = new Map([['A-1', variantOf('A-1', 60, 5000, 2600)]]);
-    const quote = computeQuote(variants, input([{ sku: 'A-1', quantity: 16 }]), settings, today);
+    const quote = computeQuote(variants, input([{ sku: 'A-1', quantity: 16 }]), settings, today, printers);
     const [line] = quote.lines;
     // analytic: 16 / 4 = 4 plates; ceil(4 / 2) = 2 per printer; 2 × (4 × 60) min = 480 min = 1/3 day -> 1 day + 1 handling
     expect(line.farm.plates).toBe(4);
@@ -147,7 +151,13 @@ describe('computeQuote', () => {
     expect(quote.totalCents).toBe(72_000);
     expect(quote.validUntil).toBe('2027-03-31');
 
-    const tooSoon = computeQuote(variants, input([{ sku: 'A-1', quantity: 16 }], '2027-03-02'), settings, today);
+    const tooSoon = computeQuote(
+      variants,
+      input([{ sku: 'A-1', quantity: 16 }], '2027-03-02'),
+      settings,
+      today,
+      printers,
+    );
     expect(tooSoon.feasible).toBe(false);
   });
 
@@ -168,6 +178,7 @@ describe('computeQuote', () => {
       },
       settings,
       today,
+      printers,
     );
     // analytic, line B: ceil(7 / 4) = 2 plates, 1 per printer, 4 × 90 min = 360 min = 1/4 day.
     // Together: 1/3 + 1/4 = 7/12 day -> 1 day + 1 handling day.
@@ -196,6 +207,7 @@ describe('computeQuote', () => {
       input([{ sku: 'A-1', quantity: 16 }], '2027-12-01'),
       { ...settings, farm: { ...settings.farm, failureRatePct: 20 } },
       today,
+      printers,
     );
     expect(quote.lines[0].farm.plates).toBe(5); // ceil(16 / 3.2) = 5
     expect(quote.lines[0].farm.expectedGoodUnits).toBeGreaterThanOrEqual(16);
@@ -208,6 +220,7 @@ describe('computeQuote', () => {
       input([{ sku: variant.sku, quantity: 5 }], '2027-12-01'),
       { ...settings, farm: { ...settings.farm, copiesPerPlate: null } },
       today,
+      printers,
     );
     expect(quote.lines[0].farm.copiesPerPlate).toBe(Math.max(1, variant.report.copiesPerPlate));
     expect(quote.lines[0].discountPct).toBe(0);
@@ -215,7 +228,70 @@ describe('computeQuote', () => {
   });
 });
 
+/**
+ * A variant computed before its plate rule was stored with the report: a body of 120 × 120 × 200 mm and a floor plug
+ * of 100 × 100 × 10 mm, on the given printer.
+ * By hand, with 10 mm between parts: on a 180 × 180 mm plate body + gap + plug = 230 mm > 180 mm either way, so each
+ * part prints on plates of its own, one a plate (floor((180 + 10) / (120 + 10)) = 1, floor((180 + 10) / (100 + 10))
+ * = 1); on the 246 × 238 mm plate of the first seeded printer 230 mm ≤ 246 mm, so a set goes on one plate.
+ */
+function variantWithoutStoredRule(base: CatalogueVariant, sku: string, printerId: string): CatalogueVariant {
+  const variant = structuredClone(base);
+  variant.sku = sku;
+  variant.report.printerId = printerId;
+  variant.report.partSizesMm = [
+    [120, 120, 200],
+    [100, 100, 10],
+  ];
+  delete variant.report.plate;
+  return variant;
+}
+
+/** A printer profile with a 180 × 180 × 250 mm build volume (invented for the tests). */
+function compactPrinter(id: string) {
+  return { ...DEFAULT_PRINTERS[0], id, name: 'Hazel compact 0.6 mm', buildVolumeMm: { x: 180, y: 180, z: 250 } };
+}
+
+describe('variantPlateRule', () => {
+  it('works the rule out on the printer from the list it is given, not on the built-in printers', () => {
+    const seeded = DEFAULT_PRINTERS[0];
+    const variant = variantWithoutStoredRule(suite.fixture.variants[0], 'A-1', seeded.id);
+    // The seeded printer as shipped: both parts on one plate.
+    expect(variantPlateRule(variant, new Map([[seeded.id, seeded]]))?.layout).toBe('together');
+    // The same printer after an admin set a smaller build volume in the database: plates of their own.
+    const changed = { ...seeded, buildVolumeMm: { x: 180, y: 180, z: 250 } };
+    const rule = variantPlateRule(variant, new Map([[seeded.id, changed]]));
+    expect(rule?.layout).toBe('separate');
+    expect(rule?.platesPerUnit).toBe(2);
+    expect(rule?.text).toBe('2 plates per unit: body 1 per plate, floor plug 1 per plate');
+    // A printer only the database knows.
+    const added = compactPrinter('hazel-compact-06');
+    const onAdded = variantWithoutStoredRule(suite.fixture.variants[0], 'A-2', added.id);
+    expect(variantPlateRule(onAdded, new Map([[added.id, added]]))?.platesPerUnit).toBe(2);
+    // A printer the list does not hold: no rule (the stored copies per plate are used).
+    expect(variantPlateRule(onAdded, new Map([[seeded.id, seeded]]))).toBeNull();
+  });
+});
+
 describe('quotes API', () => {
+  it('plans the plates of a variant on a printer an admin added', async () => {
+    const admin = await suite.t.agent('admin');
+    const printer = compactPrinter('hazel-compact-quotes');
+    expect((await admin.put(`/api/settings/printers/${printer.id}`).send(printer)).status).toBe(201);
+    const variant = variantWithoutStoredRule(suite.fixture.variants[0], 'FH-TSC-32-SAND', printer.id);
+    variant.family.code = 'TSC';
+    await publishFixtureFamily(suite.t.ctx.db, [variant], await demoPersonId(suite.t.ctx.db, 'designer'));
+
+    const sales = await suite.t.agent('sales');
+    const created = await sales.post('/api/quotes').send(body({ lines: [{ sku: variant.sku, quantity: 3 }] }));
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const farm = QuoteSchema.parse(created.body).lines[0].farm;
+    // By hand (see variantWithoutStoredRule): the body and the plug each on plates of their own, one a plate.
+    expect(farm.platesPerUnit).toBe(2);
+    expect(farm.plateText).toBe('2 plates per unit: body 1 per plate, floor plug 1 per plate');
+    expect(farm.groups?.map((g) => g.unitsPerPlate)).toEqual([1, 1]);
+  });
+
   it('creates a quote with several lines, lists it and reads it back', async () => {
     const sales = await suite.t.agent('sales');
     const created = await sales.post('/api/quotes').send(

@@ -21,6 +21,7 @@ import { parsedBody, parsedParams, validate } from '../http/validate';
 import { renderQuotePdf } from '../pdf/quotePdf';
 import { sendAttachment } from '../pdf/sendAttachment';
 import { listCatalogueVariants } from '../services/catalogue';
+import { loadPrinters } from '../services/familyProduction';
 import { computeQuote, type QuoteFigures } from '../services/quote';
 import { findQuote, insertQuote, listQuotes, replaceQuote, setQuoteStatus } from '../services/quoteRecords';
 import { getSalesSettings } from '../services/salesSettings';
@@ -41,8 +42,8 @@ export function quotesRouter(ctx: AppContext): Router {
     const variants = new Map<string, CatalogueVariant>(
       (await listCatalogueVariants(ctx, { skus })).map((v) => [v.sku, v]),
     );
-    const { settings } = await getSalesSettings(ctx.db);
-    return computeQuote(variants, body, settings, new Date());
+    const [{ settings }, printers] = await Promise.all([getSalesSettings(ctx.db), loadPrinters(ctx.db)]);
+    return computeQuote(variants, body, settings, new Date(), printers);
   }
 
   async function existing(id: string): Promise<Quote> {

@@ -1,9 +1,9 @@
 /** Wholesale quotes: prices, totals and lead time from published variants, the sales settings and the farm. */
 import { farmPlateGroups, plateRule, type PlateRule } from '../../shared/analysis/plateRule';
-import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import { estimateFarmCapacity } from '../../shared/production/estimateFarmCapacity';
 import { quoteTotals } from '../../shared/quotes/quoteTotals';
 import type { CatalogueVariant } from '../../shared/schemas/catalogue';
+import type { PrinterProfile } from '../../shared/schemas/production';
 import {
   QUOTE_DEFAULT_VALID_DAYS,
   type QuoteFarm,
@@ -35,6 +35,9 @@ export interface QuoteFigures {
   feasible: boolean;
 }
 
+/** The studio's printers by id (the database's printer profiles; only their build volumes are read). */
+export type QuotePrinters = ReadonlyMap<string, Pick<PrinterProfile, 'buildVolumeMm'>>;
+
 /** Largest total one quote may come to, in cents (what the database's amount columns hold). */
 const MAX_TOTAL_CENTS = 2_000_000_000;
 
@@ -47,12 +50,14 @@ const MAX_TOTAL_CENTS = 2_000_000_000;
  * @param input - the checked quote body
  * @param settings - farm settings and quantity breaks
  * @param today - the quote date (UTC day is used)
+ * @param printers - the studio's printers (see {@link variantPlateRule})
  */
 export function computeQuote(
   variants: ReadonlyMap<string, CatalogueVariant>,
   input: QuoteInput,
   settings: SalesSettings,
   today: Date,
+  printers: QuotePrinters,
 ): QuoteFigures {
   const lines = input.lines.map((line, index) => {
     const variant = variants.get(line.sku);
@@ -60,7 +65,7 @@ export function computeQuote(
       throw badRequest(`There is no published product with the SKU ${line.sku}.`, [
         { in: 'body', path: `lines.${index}.sku`, message: 'This SKU is not in the catalogue.' },
       ]);
-    return priceLine(variant, line.quantity, line.unitPriceCents ?? null, settings);
+    return priceLine(variant, line.quantity, line.unitPriceCents ?? null, settings, printers);
   });
   const currency = lines.length > 0 ? variants.get(lines[0].sku)!.currency : 'EUR';
   const otherCurrency = input.lines.findIndex((line) => variants.get(line.sku)!.currency !== currency);
@@ -105,12 +110,14 @@ export function computeQuote(
  * @param quantity - units
  * @param agreedPriceCents - unit price entered by hand, or null for the break price
  * @param settings - farm settings and quantity breaks
+ * @param printers - the studio's printers (see {@link variantPlateRule})
  */
 export function priceLine(
   variant: CatalogueVariant,
   quantity: number,
   agreedPriceCents: number | null,
   settings: SalesSettings,
+  printers: QuotePrinters,
 ): QuoteLine {
   const listPriceCents = variant.priceCents;
   const applicable = settings.quantityBreaks.filter((b) => b.minQuantity <= quantity);
@@ -131,7 +138,7 @@ export function priceLine(
     priceSetByHand: agreedPriceCents !== null,
     lineTotalCents: quantity * unitPriceCents,
     marginPct: unitPriceCents > 0 ? ((unitPriceCents - unitCostCents) / unitPriceCents) * 100 : 0,
-    farm: lineFarm(variant, quantity, settings.farm),
+    farm: lineFarm(variant, quantity, settings.farm, printers),
     breaks: settings.quantityBreaks.map((b) => ({
       minQuantity: b.minQuantity,
       discountPct: b.discountPct,
@@ -141,9 +148,14 @@ export function priceLine(
 }
 
 /** The plates and print days of one line on the farm (estimateFarmCapacity, without handling days). */
-function lineFarm(variant: CatalogueVariant, quantity: number, farm: FarmSettings): QuoteLineFarm {
+function lineFarm(
+  variant: CatalogueVariant,
+  quantity: number,
+  farm: FarmSettings,
+  printers: QuotePrinters,
+): QuoteLineFarm {
   const copiesPerPlate = farm.copiesPerPlate ?? Math.max(1, variant.report.copiesPerPlate);
-  const plate = variantPlateRule(variant);
+  const plate = variantPlateRule(variant, printers);
   const capacity = estimateFarmCapacity({
     unitsWanted: quantity,
     printers: farm.printers,
@@ -180,14 +192,17 @@ function lineFarm(variant: CatalogueVariant, quantity: number, farm: FarmSetting
 /**
  * The variant's plate rule: as stored with its report, else worked out from its parts on its printer (variants
  * computed before the rule was kept); null when neither is known (one plate group of the stored copies per plate).
+ * The printer is looked up among the studio's printers (the database's, so one an admin added counts too).
  * @param variant - the published variant
+ * @param printers - the studio's printers by id
  */
 export function variantPlateRule(
   variant: CatalogueVariant,
+  printers: QuotePrinters,
 ): Pick<PlateRule, 'layout' | 'platesPerUnit' | 'groups' | 'text'> | null {
   const r = variant.report;
   if (r.plate && r.plate.groups.length > 0) return r.plate;
-  const printer = DEFAULT_PRINTERS.find((p) => p.id === r.printerId);
+  const printer = printers.get(r.printerId);
   if (!r.partSizesMm?.length || !printer) return null;
   const { x, y, z } = printer.buildVolumeMm;
   const rule = plateRule(r.partSizesMm, [x, y, z]);
