@@ -12,7 +12,13 @@ import {
   overhangRgb,
   SURFACE_RGB,
 } from '../src/components/viewer/meshToBufferGeometry';
-import { fromDisplayLength, INCH_DECIMALS, lengthsInText, toDisplayLength } from '../src/components/editor/lengthUnits';
+import {
+  fromDisplayLength,
+  INCH_DECIMALS,
+  lengthsInText,
+  toDisplayLength,
+  wallBuildText,
+} from '../src/components/editor/lengthUnits';
 import { formatLength } from '../shared/format';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import { applyPaletteVariables } from '../src/styles/palette';
@@ -148,5 +154,15 @@ describe('lengths in inch mode', () => {
     );
     expect(lengthsInText(help, 'mm')).toBe(help);
     expect(lengthsInText('chamber radius + 42 mm tall', 'in')).not.toMatch(/\bmm\b/);
+  });
+
+  it('writes how the outdoor wall is built, and its cautions, in the chosen unit', () => {
+    // source: 1 in = 25.4 mm exactly (international inch, 1959); 1.36 mm = 0.0535… in, 2.64 mm = 0.1039… in,
+    // 19 mm = 0.7480… in
+    expect(wallBuildText(1.36, 2.64, 'mm')).toBe('1.4 mm solid perimeters, 2.6 mm infill core');
+    expect(wallBuildText(1.36, 2.64, 'in')).toBe('0.054 in solid perimeters, 0.104 in infill core');
+    expect(lengthsInText('The wall insulates about 40 % as well as a 19 mm pine board.', 'in')).toBe(
+      'The wall insulates about 40 % as well as a 0.748 in pine board.',
+    );
   });
 });

@@ -2,7 +2,7 @@
  * Converting the editor's length fields between millimetres and inches. Lengths are written for people through
  * shared/format (`formatLength`); this module keeps what is particular to the editor: field values and help texts.
  */
-import { MM_PER_INCH } from '../../../shared/format';
+import { formatLength, MM_PER_INCH } from '../../../shared/format';
 
 /** Decimals an inch figure is shown with: thousandths (0.001 in = 0.0254 mm, finer than a 0.1 mm print step). */
 export const INCH_DECIMALS = 3;
@@ -41,4 +41,14 @@ export function lengthsInText(text: string, display: 'mm' | 'in'): string {
   return text.replace(MM_IN_TEXT, (_whole, from: string, to: string | undefined) =>
     to === undefined ? `${inches(from)} in` : `${inches(from)}–${inches(to)} in`,
   );
+}
+
+/**
+ * How a printed wall is built, in the chosen display unit: `1.4 mm solid perimeters, 2.6 mm infill core`.
+ * @param skinThicknessMm - both faces' solid perimeters together, millimetres
+ * @param coreThicknessMm - the infill core between them, millimetres
+ * @param display - how lengths are shown
+ */
+export function wallBuildText(skinThicknessMm: number, coreThicknessMm: number, display: 'mm' | 'in'): string {
+  return `${formatLength(skinThicknessMm, display)} solid perimeters, ${formatLength(coreThicknessMm, display)} infill core`;
 }
