@@ -173,7 +173,7 @@ describe('targets in the family gate (API)', () => {
       .post('/api/families')
       .send(smallFamilyBody({ targets: { minInsulation: { kind: 'pine-board', boardMm: 2 } } }));
     expect(res.status).toBe(400);
-    expect(JSON.stringify(res.body)).toMatch(/board must be at least 5 mm/);
+    expect(JSON.stringify(res.body)).toMatch(/Board must be at least 5 mm\./);
   });
 
   it('keeps the seeded families within their targets', async () => {
