@@ -152,7 +152,11 @@ describe('when the SMTP server is down', () => {
     const next = Date.parse(entry.nextAttemptAt!);
     expect(next).toBeGreaterThanOrEqual(before + 1000);
     expect(next).toBeLessThanOrEqual(after + 1000);
-    await t.ctx.pg.query(`update mail_outbox set next_attempt_at = now() where subject = $1`, [subject]);
+    // A second in the past: PostgreSQL's now() carries microseconds, the sender compares with a millisecond clock,
+    // so "now()" itself can still lie in the sender's future within the same millisecond.
+    await t.ctx.pg.query(`update mail_outbox set next_attempt_at = now() - interval '1 second' where subject = $1`, [
+      subject,
+    ]);
     await sender.deliverDue();
     entry = (await mailbox()).outbox.find((o) => o.subject === subject)!;
     expect(entry).toMatchObject({ status: 'failed', attempts: 2 });
