@@ -122,7 +122,7 @@ async function screensOf(page: Page, role: Role): Promise<string[]> {
       return ['/', '/orders', ...(first ? [`/orders/${first}`] : []), '/demand', '/runs/plan', '/farm/exceptions'];
     }
     default:
-      return ['/', '/admin/people', '/admin/mail'];
+      return ['/', '/admin/people', '/admin/mail', '/admin/settings', '/admin/jobs'];
   }
 }
 
