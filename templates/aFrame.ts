@@ -7,6 +7,7 @@ import { BuildContext } from './lib/BuildContext';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline } from './lib/teardrop';
 import { partMesh } from './lib/partMesh';
+import { backMounting } from './lib/mountingText';
 
 const parameters = z
   .object({
@@ -106,6 +107,8 @@ export const aFrame: Template<typeof parameters> = {
   name: 'A-frame',
   summary: 'Steep A-frame printed floor-down, with a landing dowel that prints with the first layers.',
   parameters,
+  inUse: 'as-built',
+  mounting: (_p, widthMm) => backMounting(null, widthMm),
   limits(p) {
     return {
       holeAboveFloorMm: {

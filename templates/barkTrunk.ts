@@ -7,6 +7,7 @@ import { floorOpening } from './lib/floorOpening';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 import { partMesh } from './lib/partMesh';
+import { backMounting } from './lib/mountingText';
 
 const parameters = z
   .object({
@@ -109,6 +110,8 @@ export const barkTrunk: Template<typeof parameters> = {
   name: 'Bark trunk',
   summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
   parameters,
+  inUse: 'as-built',
+  mounting: (p, widthMm) => backMounting(p.flatBack ? null : p, widthMm),
   limits(p) {
     return {
       holeAboveFloorMm: {

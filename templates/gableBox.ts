@@ -6,6 +6,7 @@ import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 import { partMesh } from './lib/partMesh';
 import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
+import { backMounting } from './lib/mountingText';
 
 const parameters = z
   .object({
@@ -98,6 +99,8 @@ export const gableBox: Template<typeof parameters> = {
   name: 'Gable box',
   summary: 'Classic pitched-roof box, printed roof-down on a flat ridge strip, with a removable floor plug.',
   parameters,
+  inUse: 'turn-over-y',
+  mounting: (_p, widthMm) => backMounting(null, widthMm),
   limits(p) {
     const { maxHoleAboveFloorMm } = gableFrame(p);
     return {

@@ -73,6 +73,11 @@ export const roundPod: Template<typeof parameters> = {
   name: 'Round pod',
   summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
   parameters,
+  inUse: 'as-built',
+  mounting: (p) =>
+    p.hangingHole
+      ? 'No back to fit: the pod hangs by wire from its eye; hang it out of reach of predators.'
+      : 'No back to fit and no hanging eye: hold the pod with a bracket of your own.',
   limits(p) {
     return {
       holeAboveFloorMm: {

@@ -46,6 +46,18 @@ export interface Template<S extends z.ZodObject = z.ZodObject> {
   summary: string;
   parameters: S;
   /**
+   * How the body stands in use, from its build orientation: `as-built` (printed upright), or `turn-over-y`
+   * (printed upside down: turned 180° about y to stand). Drawings and spec sheets show the body standing.
+   */
+  inUse: 'as-built' | 'turn-over-y';
+  /**
+   * What the back fits (a trunk, pole, post or wall) and how the box is fixed, as sentences for spec sheets and the
+   * shop.
+   * @param params - complete parameters
+   * @param widthMm - overall width of the body
+   */
+  mounting(params: z.output<S>, widthMm: number): string;
+  /**
    * Limits one parameter puts on another (e.g. the entry must stay under the roof for the chosen cavity depth).
    * parseParams rejects a value outside them with a message naming the field and its allowed range, so `build`
    * never has to change a value silently.

@@ -31,7 +31,7 @@ import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';
 import { openSpecSheet } from '../services/specSheetDocuments';
 import { getStudioName } from '../services/studio';
-import { productMesh } from '../services/specSheetMesh';
+import { productMeshInWorker } from '../workers/ProductMeshWorker';
 import { sendStoredFile } from '../storage/sendStoredFile';
 
 /** The rate-limit window of checkout creation. */
@@ -126,7 +126,7 @@ export function shopRouter(ctx: AppContext): Router {
   router.get('/variants/:sku/model.stl', validate({ params: SkuParamsSchema }), async (_req, res) => {
     const variant = await getVariantBySku(ctx, parsedParams<{ sku: string }>(res).sku);
     if (!variant) throw notFound('No such product in the shop.');
-    const product = await productMesh(variant.templateId, variant.params);
+    const product = await productMeshInWorker(variant.templateId, variant.params);
     res.set({ 'Content-Type': 'model/stl', 'Cache-Control': 'public, max-age=86400' });
     res.send(Buffer.from(writeStl(product.mesh)));
   });

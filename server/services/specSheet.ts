@@ -13,8 +13,9 @@ import { dimensionalWeight } from '../../shared/shipping/dimensionalWeight';
 import { shippingBox } from '../../shared/shipping/shippingBox';
 import { pdfText } from '../pdf/pdfFonts';
 import { renderSpecSheetsPdf, type SpecSheetCaution, type SpecSheetInput } from '../pdf/specSheetPdf';
-import { productMesh } from './specSheetMesh';
-import { formatCelsiusFahrenheit, formatMmIn, formatMoney } from '../../shared/format';
+import { productMeshInWorker } from '../workers/ProductMeshWorker';
+import { findTemplate, TemplateParamError } from '../../templates/index';
+import { formatCelsiusFahrenheit, formatMoney } from '../../shared/format';
 
 /** Options of {@link specSheetInput}. */
 export interface SpecSheetOptions {
@@ -38,7 +39,7 @@ export interface SpecSheetOptions {
  * @param options - settings, date and optional photo
  */
 export async function specSheetInput(variant: CatalogueVariant, options: SpecSheetOptions): Promise<SpecSheetInput> {
-  const product = await productMesh(variant.templateId, variant.params);
+  const product = await productMeshInWorker(variant.templateId, variant.params);
   const drawing = orthographicDrawing(product.mesh);
   const facts = variant.report.facts;
   const material = options.materials.get(variant.attributes.material);
@@ -57,7 +58,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
         png: await sharp(Buffer.from(shadedViewSvg(product.mesh, { colourHex: colour.hex, widthPx: 700 })))
           .png()
           .toBuffer(),
-        caption: product.upright ? 'Rendered view from the design' : 'Rendered view, as printed',
+        caption: 'Rendered view from the design',
       };
 
   const o = drawing.overallMm;
@@ -175,27 +176,16 @@ function scientificName(speciesId: string): string | undefined {
 }
 
 /**
- * Which trunks, poles or posts the back fits, from the template's parameters.
+ * Which trunks, poles or posts the back fits, as the variant's template says.
  * @param templateId - the variant's template
  * @param params - the variant's complete parameters
  * @param widthMm - overall width of the body
  */
 export function backFit(templateId: string, params: Record<string, unknown>, widthMm: number): string {
-  if (templateId === 'round-pod') {
-    return params.hangingHole === false
-      ? 'No back to fit and no hanging eye: hold the pod with a bracket of your own.'
-      : 'No back to fit: the pod hangs by wire from its eye; hang it out of reach of predators.';
-  }
-  if (typeof params.mountRadiusMm === 'number' && params.flatBack !== true) {
-    return (
-      `Concave back shaped for a trunk or pole of ${formatMmIn(2 * params.mountRadiusMm)} diameter. ` +
-      'On a thicker trunk it bears on its two side edges, on a thinner one along its centre line: fix with a strap or screws through the hanging hole.'
-    );
-  }
-  return (
-    `Flat back, ${formatMmIn(widthMm)} wide overall: flush on a flat post, board or wall. ` +
-    'On a round pole or trunk it touches along one line: fix with a strap or a bracket.'
-  );
+  const template = findTemplate(templateId);
+  if (!template) throw new TemplateParamError('templateId', `There is no template called "${templateId}".`);
+  // Defaults fill what an older variant lacks; the cross-parameter limits are the build's concern, not this text's.
+  return template.mounting(template.parameters.parse(params), widthMm);
 }
 
 /** Care lines of every sheet. */

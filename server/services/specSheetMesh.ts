@@ -1,21 +1,10 @@
 /** The product as it stands in use (body only, upright, front facing −y), built from a template for the spec sheet. */
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import type { NestBoxFacts } from '../../shared/schemas/nestbox';
-import { findTemplate, parseParams, TemplateParamError } from '../../templates/index';
+import { findTemplate, parseParams, TemplateParamError, type AnyTemplate } from '../../templates/index';
 import { loadKernel } from '../../templates/lib/kernel';
 import { scoped } from '../../templates/lib/scope';
 import { toMesh } from '../../templates/lib/toMesh';
-
-/**
- * How each template's body turns from build orientation to standing in use. Templates are designed upright and some
- * turn over to print (the gable box prints roof-down: rotated 180° about y); unknown templates are drawn as printed.
- */
-const UPRIGHT_TURN: Record<string, 'none' | 'turn-over-y'> = {
-  'gable-box': 'turn-over-y',
-  'a-frame': 'none',
-  'round-pod': 'none',
-  'bark-trunk': 'none',
-};
 
 /** The product body in use orientation with what it offers a bird. */
 export interface ProductMesh {
@@ -25,12 +14,10 @@ export interface ProductMesh {
   /** Body only (no loose parts such as floor plugs), upright, resting on z = 0, centred on x and y. */
   mesh: IndexedMesh;
   facts: NestBoxFacts;
-  /** Whether the drawing shows the part upright (false: as printed, the template's use orientation is unknown). */
-  upright: boolean;
 }
 
 /**
- * Builds the template and returns its first part (the body) standing as it is used.
+ * Builds the template and returns its first part (the body) standing as it is used (the template's `inUse` turn).
  * @param templateId - a registered template id
  * @param rawParams - template parameters (missing keys take defaults)
  * @throws TemplateParamError for an unknown template or a bad parameter
@@ -44,18 +31,16 @@ export async function productMesh(templateId: string, rawParams: unknown): Promi
     const output = template.build(params);
     return { mesh: toMesh(output.parts.slice(0, 1)), facts: output.facts };
   });
-  const turn = UPRIGHT_TURN[templateId] ?? 'none';
   return {
     templateName: template.name,
     templateVersion: template.version,
-    mesh: standUpright(mesh, turn),
+    mesh: standUpright(mesh, template.inUse),
     facts,
-    upright: templateId in UPRIGHT_TURN,
   };
 }
 
 /** Applies the turn, then rests the mesh on z = 0 and centres it on x and y. */
-function standUpright(mesh: IndexedMesh, turn: 'none' | 'turn-over-y'): IndexedMesh {
+function standUpright(mesh: IndexedMesh, turn: AnyTemplate['inUse']): IndexedMesh {
   const p = Float32Array.from(mesh.positions);
   if (turn === 'turn-over-y')
     for (let i = 0; i < p.length; i += 3) {
