@@ -4,7 +4,7 @@
  * overall dimensions equal to the drawing (the drawing itself is checked against admesh in drawing.test.ts).
  */
 import { execFileSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -113,11 +113,43 @@ describe('variant spec sheet', () => {
     for (const line of fonts.split('\n').slice(2).filter(Boolean)) expect(line).toMatch(/ yes /); // embedded
   });
 
-  it('renders to PNG (pdftoppm) with two pages', () => {
-    const out = join(tmpdir(), 'nestwright-specsheet');
-    mkdirSync(out, { recursive: true });
+  it('renders to PNG (pdftoppm): two A4 pages, the first with the box drawn in the colour the sheet names', async () => {
+    const out = mkdtempSync(join(tmpdir(), 'nestwright-specsheet-'));
     run('pdftoppm', ['-png', '-r', '60', file, join(out, 'page')]);
     expect(run('pdfinfo', [file])).toMatch(/Pages:\s+2/);
+    const pages = readdirSync(out)
+      .filter((f) => f.endsWith('.png'))
+      .sort();
+    expect(pages).toHaveLength(2);
+    const hex = /Colour sample: [^(]+\(#([0-9a-f]{6})\)/i.exec(text)?.[1];
+    expect(hex).toBeDefined();
+    const colour = [0, 2, 4].map((i) => parseInt(hex!.slice(i, i + 2), 16));
+    const { default: sharp } = await import('sharp');
+    const looks = [];
+    for (const page of pages) {
+      const { data, info } = await sharp(join(out, page)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+      // source: ISO 216 (A4 is 210 × 297 mm); at 60 dpi that is 496.1 × 701.6 px, and pdftoppm rounds to a whole pixel
+      expect(Math.abs(info.width - (210 / 25.4) * 60)).toBeLessThanOrEqual(1);
+      expect(Math.abs(info.height - (297 / 25.4) * 60)).toBeLessThanOrEqual(1);
+      let shaded = 0;
+      let dark = 0;
+      for (let i = 0; i < data.length; i += 3) {
+        const px = [data[i]!, data[i + 1]!, data[i + 2]!];
+        if (Math.max(...px) < 100) dark++;
+        // Lit or shaded, a surface of the colour keeps its RGB direction (a lighter or darker shade of the same
+        // hue); page white, greys and the pale table fills point elsewhere.
+        const dot = px[0]! * colour[0]! + px[1]! * colour[1]! + px[2]! * colour[2]!;
+        if (Math.max(...px) <= 235 && dot / (Math.hypot(...px) * Math.hypot(...colour)) > 0.9995) shaded++;
+      }
+      const area = info.width * info.height;
+      looks.push({ shaded: shaded / area, dark: dark / area });
+    }
+    // Page one shows the rendered box in its colour (about 2.5 % of the page at the time of writing); page two has
+    // no picture. Thresholds from looking at the sheet; no outside source.
+    expect(looks[0]!.shaded).toBeGreaterThan(0.015);
+    expect(looks[1]!.shaded).toBeLessThan(0.002);
+    // Both pages carry dark text and lines.
+    for (const look of looks) expect(look.dark).toBeGreaterThan(0.005);
   });
 });
 
