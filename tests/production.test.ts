@@ -215,13 +215,17 @@ describe('estimateProduction', () => {
 
   it('has a cost breakdown that adds up and a price with the stated margin', () => {
     const part = { ...cube40, supportVolumeMm3: 5000 };
-    const e = estimateProduction(part, printer, pla, SETTINGS, DEFAULT_RATES);
+    const e = estimateProduction(part, printer, pla, { ...SETTINGS, supportInfillPct: 15 }, DEFAULT_RATES);
     const { totalCents, ...parts } = e.cost;
     // analytic: the total is the sum of its parts, in whole cents
     expect(Object.values(parts).reduce((a, b) => a + b, 0)).toBe(totalCents);
     for (const v of Object.values(e.cost)) expect(Number.isInteger(v)).toBe(true);
-    // hand computation: material = mass/1000 × price/kg; support labour = 5 cm³ × 1 min/cm³ × 25 €/h
-    expect(e.cost.materialCents).toBe(Math.round((e.massG / 1000) * pla.priceCentsPerKg));
+    // hand computation of the documented model, from the inputs alone: extruded volume = 11,200 mm³ shell + 7,920 mm³
+    // infill (as in the shell test above) + 5,000 mm³ support × 15 % = 19,870 mm³; mass 19.87 cm³ × 1.24 g/cm³ =
+    // 24.639 g; material 24.639 g × 2,500 cents/kg = 61.6 → 62 cents. Support labour = 5 cm³ × 1 min/cm³ × 25 €/h.
+    expect([pla.densityGcm3, pla.priceCentsPerKg]).toEqual([1.24, 2500]);
+    expect(e.massG).toBeCloseTo(24.6388, 4);
+    expect(e.cost.materialCents).toBe(62);
     expect(e.cost.supportLabourCents).toBe(Math.round((5 * 1 * 2500) / 60));
     expect(e.cost.packagingCents).toBe(DEFAULT_RATES.packagingCents);
     // margin definition: price = cost / (1 − margin), so (price − cost) / price ≈ 40 %
