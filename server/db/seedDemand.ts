@@ -7,6 +7,7 @@ import { and, eq, isNotNull } from 'drizzle-orm';
 import type { Db } from './client';
 import { auditEvents, families, familyRevisions, familyVariants, farmDispatches, orderLines, orders } from './schema';
 import { registerSeedStep } from './seedRegistry';
+import { newId } from './newId';
 
 const DAY_MS = 86_400_000;
 const NAMES = ['Wren Adley', 'Corin Vale', 'Hollis Brook', 'Sela Marsh', 'Tamsin Ford', 'Ivo Lark', 'Petra Linn'];
@@ -62,7 +63,7 @@ export async function seedDemand(db: Db, now = new Date()): Promise<number> {
         const [order] = await db
           .insert(orders)
           .values({
-            id: crypto.randomUUID(),
+            id: newId(),
             customerToken: crypto.randomUUID().replaceAll('-', '') + crypto.randomUUID().replaceAll('-', ''),
             state: week >= 2 ? 'delivered' : 'shipped',
             email: `${name.split(' ')[0].toLowerCase()}.${made}@example.test`,

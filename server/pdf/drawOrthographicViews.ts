@@ -1,12 +1,12 @@
 /** Draws a three-view orthographic drawing with overall dimensions into a box on a pdfkit page. */
 import type { OrthographicDrawing, OrthographicView } from '../../shared/drawing/orthographicDrawing';
 import { FONT } from './pdfFonts';
-import { inches } from '../../shared/format';
+import { inches, MM_PER_INCH } from '../../shared/format';
 
 /** Drawing scales offered, largest first (1:N). */
 const SCALES = [1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10];
 /** Points per millimetre of paper. */
-const PT_PER_MM = 72 / 25.4;
+const PT_PER_MM = 72 / MM_PER_INCH;
 /** Room for a dimension line and its text beside a view, points. */
 const DIM_ROOM = 34;
 const GAP = 26;

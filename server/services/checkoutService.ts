@@ -3,7 +3,8 @@
  * order; apply the provider's signed events once each; cancel unpaid orders and refund paid ones; expire abandoned
  * checkouts. The browser never sends a price that is used, and never sees a secret.
  */
-import { randomBytes, randomUUID } from 'node:crypto';
+import { randomBytes } from 'node:crypto';
+import { newId } from '../db/newId';
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import { formatOrderNumber } from '../../shared/schemas/order';
@@ -86,7 +87,7 @@ export async function startCheckout(
   const quote = await quoteCart(ctx, body.items, body.shipTo.country);
   const { settings } = await sellableVariants(ctx, []);
   const payments = paymentsOf(ctx);
-  const orderId = randomUUID();
+  const orderId = newId();
   const customerToken = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + settings.shop.checkoutExpiryMin * 60_000);
   const currency = quote.currency.toLowerCase();

@@ -1,4 +1,5 @@
 import type { Species } from '../schemas/birdfit';
+import { MM_PER_INCH } from '../format/units';
 
 // Sources (docs/sources.md describes each):
 const CLASSIC =
@@ -6,9 +7,11 @@ const CLASSIC =
 const EUROPE =
   'Hole: RSPB, NABU (via dpa) and BUND; hole ≥ 125 mm above the floor and mounting 2–4 m: RSPB; floor ≥ 100 mm computed from the 150 mm board, 15–25 mm thick, of BTO/RSPB-style plans';
 
-const IN = 25.4;
 const FT = 0.3048;
-const mm = (minIn: number, maxIn = minIn) => ({ min: +(minIn * IN).toFixed(1), max: +(maxIn * IN).toFixed(1) });
+const mm = (minIn: number, maxIn = minIn) => ({
+  min: +(minIn * MM_PER_INCH).toFixed(1),
+  max: +(maxIn * MM_PER_INCH).toFixed(1),
+});
 const m = (minFt: number, maxFt = minFt) => ({ min: +(minFt * FT).toFixed(2), max: +(maxFt * FT).toFixed(2) });
 
 /** European hole nesters share the general box rules; only the hole differs. */

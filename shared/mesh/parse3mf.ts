@@ -4,14 +4,15 @@ import { MeshFormatError } from './MeshFormatError';
 import { MAX_MESH_FILE_BYTES, MAX_MESH_TRIANGLES } from './meshLimits';
 import { unzipBounded } from './unzipBounded';
 import { weldVertices } from './weldVertices';
+import { MM_PER_INCH } from '../format/units';
 
 /** Scale from each 3MF unit to millimetres. source: 3MF Core Specification v1.2, §Model (unit attribute). */
 const UNIT_TO_MM: Record<string, number> = {
   micron: 0.001,
   millimeter: 1,
   centimeter: 10,
-  inch: 25.4,
-  foot: 304.8,
+  inch: MM_PER_INCH,
+  foot: 12 * MM_PER_INCH,
   meter: 1000,
 };
 
