@@ -13,12 +13,15 @@ import '@fontsource/jetbrains-mono/400.css';
 import '@fontsource/jetbrains-mono/600.css';
 import './styles/base.css';
 import { applyPaletteVariables } from './styles/palette';
+import { setFormatTimeZone } from '../shared/format';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/client';
 import { router } from './router';
 import { useSessionStore } from './stores/session';
 
 applyPaletteVariables(document.documentElement);
+// Times on screens are the viewer's wall-clock time; documents and mails stay in UTC (shared/format/date.ts).
+setFormatTimeZone(Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 const app = createApp(App);
 app.use(createPinia());

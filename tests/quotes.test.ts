@@ -540,9 +540,12 @@ describe('quotes API', () => {
     expect(text).toContain(`Shipping ${euro(3500)}`);
     expect(text).toContain(`Tax at 20 % on goods and shipping ${euro(quote.taxCents)}`);
     expect(text).toContain(`Total ${euro(quote.totalCents)}`);
-    expect(text).toContain('valid until 2098-12-31');
+    // Dates are written for people (en-GB medium, pattern "d MMM y": Unicode CLDR locale data, Unicode Consortium).
+    expect(text).toContain('valid until 31 Dec 2098');
     expect(text).toContain('Payment within 30 days of delivery.');
-    expect(text).toContain(quote.earliestDeliveryDate);
+    const [y, mo, d] = quote.earliestDeliveryDate.split('-').map(Number);
+    const months = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+    expect(text).toContain(`${d} ${months[mo - 1]} ${y}`);
     expect(text).not.toMatch(/margin|cost/i); // the customer's copy carries no costs or margins
     expect(text).not.toMatch(/build plate|plates|printers|failure|production plan|print days/i); // nor the farm plan
     expect(text).not.toContain(euro(quote.costCents));

@@ -11,6 +11,7 @@ import { farmDispatches, orderLines, orders } from '../db/schema';
 import { listCatalogueVariants } from '../services/catalogue';
 import { loadProductionCatalogue } from '../services/productionCatalogue';
 import { planItemOf } from './runPlans';
+import { isoDay } from '../../shared/format';
 
 const PAID_STATES = ['paid', 'in_production', 'shipped', 'delivered'] as const;
 const DAY_MS = 86_400_000;
@@ -81,7 +82,7 @@ export async function demandReport(ctx: AppContext, weeks: number, now = new Dat
   const costs = new Map<string, { onDemand: number; run: number }>();
   const printer = production.printers.find((p) => p.id === variants[0]?.report.printerId) ?? production.printers[0];
   if (items.length > 0 && printer) {
-    const today = now.toISOString().slice(0, 10);
+    const today = isoDay(now);
     const plan = planRun(items, {
       buildVolumeMm: [printer.buildVolumeMm.x, printer.buildVolumeMm.y, printer.buildVolumeMm.z],
       plateWarmUpMin: printer.plateWarmUpMin,
@@ -92,7 +93,7 @@ export async function demandReport(ctx: AppContext, weeks: number, now = new Dat
       failureRatePct: production.rates.failureAllowancePct,
       hoursPerDay: 22,
       startDate: today,
-      finishBy: new Date(now.getTime() + 28 * DAY_MS).toISOString().slice(0, 10),
+      finishBy: isoDay(now.getTime() + 28 * DAY_MS),
       currency: production.rates.currency,
     });
     for (const line of plan.lines) costs.set(line.sku, { onDemand: line.onDemandUnitCents, run: line.runUnitCents });

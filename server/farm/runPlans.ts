@@ -17,6 +17,7 @@ import { loadProductionCatalogue } from '../services/productionCatalogue';
 import { dispatchKey } from './dispatchOrders';
 import { toDispatch } from './farmViews';
 import { partSizesOf } from './printFiles';
+import { isoDay } from '../../shared/format';
 
 /** Labour to clear a plate and start the next (common practice, no source). */
 const PLATE_CHANGE_MIN = 5;
@@ -117,7 +118,7 @@ export async function createRun(ctx: AppContext, request: PlanRequest, actorId: 
       .select({ today: count() })
       .from(farmRuns)
       .where(sql`${farmRuns.createdAt}::date = current_date`);
-    const name = `RUN-${new Date().toISOString().slice(0, 10)}-${today + 1}`;
+    const name = `RUN-${isoDay()}-${today + 1}`;
     const [run] = await tx.insert(farmRuns).values({ id, name, items, plan, createdBy: actorId }).returning();
     const [dispatch] = await tx
       .insert(farmDispatches)

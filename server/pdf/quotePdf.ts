@@ -7,7 +7,7 @@ import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectio
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfTable } from './pdfTable';
 import { pdfToBuffer } from './pdfToBuffer';
-import { formatMoney } from '../../shared/format';
+import { formatDate, formatMoney } from '../../shared/format';
 
 const LINE_COLUMNS = [100, 221, 50, 70, 70];
 /** Lowest y a table row may start at before the goods continue on a new page. */
@@ -44,7 +44,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
     .fontSize(10)
     .fillColor(INK.muted)
     .text(
-      `For ${quote.customerName} · issued ${quote.createdAt.slice(0, 10)} · valid until ${quote.validUntil}`,
+      `For ${quote.customerName} · issued ${formatDate(quote.createdAt)} · valid until ${formatDate(quote.validUntil)}`,
       x,
       doc.y + 2,
     );
@@ -105,16 +105,19 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
   y = keyValueRows(
     doc,
     [
-      ['Requested delivery', quote.deliveryDate],
+      ['Requested delivery', formatDate(quote.deliveryDate)],
       // Dates only: the farm's production plan stays on the studio's own quote screen.
-      ['Earliest delivery', `${quote.earliestDeliveryDate} (${quote.farm.leadTimeDays} days from the quote date)`],
+      [
+        'Earliest delivery',
+        `${formatDate(quote.earliestDeliveryDate)} (${quote.farm.leadTimeDays} days from the quote date)`,
+      ],
       [
         'Can we meet the date?',
         quote.feasible
           ? 'Yes: the earliest delivery is on or before the requested date.'
           : 'Not by the requested date: we can deliver from the earliest date above, or split the order.',
       ],
-      ['Prices valid until', quote.validUntil],
+      ['Prices valid until', formatDate(quote.validUntil)],
     ],
     x,
     y,

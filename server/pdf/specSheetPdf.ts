@@ -6,7 +6,7 @@ import { CONTENT_WIDTH, INK, keyValueRows, PAGE, pageFooters, pageHeader, sectio
 import { FONT, registerPdfFonts } from './pdfFonts';
 import { pdfToBuffer } from './pdfToBuffer';
 import { pdfTable } from './pdfTable';
-import { formatCelsiusFahrenheit, formatMassGLb, formatMmIn, formatMmInTriple } from '../../shared/format';
+import { formatCelsiusFahrenheit, formatDate, formatMassGLb, formatMmIn, formatMmInTriple } from '../../shared/format';
 
 /** One species the variant suits, with a reference into `sources`. */
 export interface SpecSheetSpecies {
@@ -98,7 +98,7 @@ export async function renderSpecSheetsPdf(sheets: SpecSheetInput[]): Promise<Buf
   }
   pageFooters(
     doc,
-    `${first.studioName} · figures are estimates from the design; confirm with a test print · issued ${first.issuedOn.toISOString().slice(0, 10)}`,
+    `${first.studioName} · figures are estimates from the design; confirm with a test print · issued ${formatDate(first.issuedOn)}`,
   );
   return pdfToBuffer(doc);
 }

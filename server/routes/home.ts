@@ -4,6 +4,7 @@ import type { TodoResponse } from '../../shared/schemas/todo';
 import { requireAuth, signedInPerson } from '../auth/requireRole';
 import type { AppContext } from '../context';
 import { todoCounts } from '../services/todoCounts';
+import { isoDay } from '../../shared/format';
 
 /**
  * `/api/home` (any signed-in person): `GET /todo` -> `{ items }`, the to-do counts of the roles they hold.
@@ -12,7 +13,7 @@ import { todoCounts } from '../services/todoCounts';
 export function homeRouter(ctx: AppContext): Router {
   const router = Router();
   router.get('/todo', requireAuth, async (_req, res) => {
-    const today = new Date().toISOString().slice(0, 10);
+    const today = isoDay();
     const body: TodoResponse = { items: await todoCounts(ctx.db, signedInPerson(res), today) };
     res.json(body);
   });

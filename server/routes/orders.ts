@@ -24,6 +24,7 @@ import { kickMail } from '../services/mailService';
 import { clearPaymentFlag, get, list, listAll, transition } from '../services/orderService';
 import { ordersCsv } from '../services/ordersCsv';
 import { sendAttachment } from '../pdf/sendAttachment';
+import { isoDay } from '../../shared/format';
 
 /**
  * Builds the orders router (mounted at `/api/orders`).
@@ -41,7 +42,7 @@ export function ordersRouter(ctx: AppContext): Router {
   router.get('/export.csv', validate({ query: OrderListQuerySchema }), async (_req, res) => {
     const { state, q, flagged } = parsedQuery<OrderListQuery>(res);
     const csv = ordersCsv(await listAll(ctx.db, { state, q, flagged }));
-    sendAttachment(res, csv, 'text/csv; charset=utf-8', `orders-${new Date().toISOString().slice(0, 10)}.csv`);
+    sendAttachment(res, csv, 'text/csv; charset=utf-8', `orders-${isoDay()}.csv`);
   });
 
   router.get('/:id', idParams, async (_req, res) => {

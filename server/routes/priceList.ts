@@ -7,6 +7,7 @@ import { listCatalogueVariants } from '../services/catalogue';
 import { priceListCsv, priceListRows, priceListXlsx } from '../services/priceList';
 import { loadMaterials } from '../services/familyProduction';
 import { getStudioName } from '../services/studio';
+import { isoDay } from '../../shared/format';
 
 /**
  * Builds the price-list router (mounted at `/api`; each route checks its roles).
@@ -16,7 +17,7 @@ export function priceListRouter(ctx: AppContext): Router {
   const router = Router();
   const sellers = requireRole('sales', 'catalogue_manager');
   const rows = async () => priceListRows(await listCatalogueVariants(ctx), await loadMaterials(ctx.db));
-  const stamp = () => new Date().toISOString().slice(0, 10);
+  const stamp = () => isoDay();
 
   router.get('/price-list.csv', sellers, async (_req, res) => {
     sendAttachment(res, priceListCsv(await rows()), 'text/csv; charset=utf-8', `price-list-${stamp()}.csv`);

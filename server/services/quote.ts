@@ -14,6 +14,7 @@ import {
 import type { FarmSettings, SalesSettings } from '../../shared/schemas/sales';
 import { badRequest } from '../http/HttpError';
 import { productName } from './specSheet';
+import { addDays } from '../../shared/format';
 
 /** A computed quote before it is saved (the header fields and the priced lines). */
 export interface QuoteFigures {
@@ -228,14 +229,4 @@ export function quoteFarmPlan(lines: readonly QuoteLineFarm[], farm: FarmSetting
     printDays,
     leadTimeDays: Math.ceil(printDays - 1e-9) + Math.ceil(farm.handlingDays),
   };
-}
-
-/**
- * YYYY-MM-DD of `days` calendar days after the UTC day of `from`.
- * @param from - the start
- * @param days - days to add
- */
-export function addDays(from: Date, days: number): string {
-  const d = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + days));
-  return d.toISOString().slice(0, 10);
 }

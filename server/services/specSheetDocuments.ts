@@ -14,6 +14,7 @@ import { readPhoto } from './photoService';
 import { getSalesSettings } from './salesSettings';
 import { renderSpecSheets } from './specSheet';
 import { documentFacts } from './studio';
+import { isoDay } from '../../shared/format';
 
 /** Raise when the sheet's layout changes, so documents stored by an earlier version are not served again. */
 export const SPEC_SHEET_LAYOUT_VERSION = 2;
@@ -32,7 +33,7 @@ export async function openSpecSheet(
 ): Promise<StoredFile> {
   const { settings } = await getSalesSettings(ctx.db);
   const { studioName, materials } = await documentFacts(ctx.db);
-  const day = issuedOn.toISOString().slice(0, 10);
+  const day = isoDay(issuedOn);
   // Only the materials the variants use are part of what the sheet shows.
   const used = [...new Set(variants.map((v) => v.attributes.material))].sort().map((id) => materials.get(id) ?? id);
   const hash = createHash('sha256')

@@ -9,3 +9,4 @@ export * from './duration';
 export * from './mass';
 export * from './length';
 export * from './temperature';
+export * from './date';

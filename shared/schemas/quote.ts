@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isoDay } from '../format';
 
 /** Largest quantity one quote line covers. */
 export const QUOTE_MAX_QUANTITY = 100_000;
@@ -11,7 +12,7 @@ const MAX_AMOUNT_CENTS = 100_000_000;
 
 /** Today's date in UTC as YYYY-MM-DD (read when a request is checked, not when the module loads). */
 export function todayUtc(): string {
-  return new Date().toISOString().slice(0, 10);
+  return isoDay();
 }
 
 /** A date the customer wants the goods, YYYY-MM-DD, today or later. */

@@ -1,6 +1,6 @@
 /**
- * Formats the figures family, review and catalogue screens show that the shared format module does not: volumes,
- * axis values and dates. Money, masses and durations come from shared/format.
+ * Formats the figures family, review and catalogue screens show that the shared format module does not: volumes
+ * and axis values. Money, masses, durations and dates come from shared/format.
  */
 
 import { formatCm3 } from '../../../shared/families/formatCm3';
@@ -22,14 +22,6 @@ export function formatAxisValue(value: unknown): string {
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'string') return value.replace(/-/g, ' ');
   return String(value);
-}
-
-/**
- * A date and time in the reader's locale, short.
- * @param iso - ISO timestamp
- */
-export function formatWhen(iso: string): string {
-  return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 }
 
 /**
