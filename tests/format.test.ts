@@ -1,6 +1,16 @@
 /** The one format module: money, durations, masses, lengths and temperatures as people read them. */
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import {
+  addDays,
+  DOCUMENT_TIME_ZONE,
+  formatDate,
+  formatDateTime,
+  formatTimeZone,
+  inchDecimals,
+  inches,
+  isoDay,
+  setFormatTimeZone,
+  writtenDecimals,
   celsiusToFahrenheit,
   currencyDigits,
   formatCelsiusFahrenheit,
@@ -68,11 +78,90 @@ describe('durations and masses', () => {
 describe('lengths', () => {
   it('writes millimetres and inches (1 in = 25.4 mm)', () => {
     expect(formatMmIn(32)).toBe('32 mm (1.26 in)');
-    expect(formatMmIn(28.5)).toBe('28.5 mm (1.12 in)');
+    // one inch rule: two more decimals than the millimetres (28.5 mm = 1.12205 in, written to thousandths)
+    expect(formatMmIn(28.5)).toBe('28.5 mm (1.122 in)');
     expect(formatMmInTriple([254, 127, 25.4])).toBe('254 × 127 × 25 mm (10.00 × 5.00 × 1.00 in)');
     expect(formatLength(25.4, 'in')).toBe('1.000 in');
     expect(formatLength(25.4, 'mm')).toBe('25.4 mm');
     expect(formatSize([254, 127], 'in')).toBe('10.00 × 5.00 in');
     expect(formatSize([254, 127], 'mm')).toBe('254 × 127 mm');
+  });
+});
+
+describe('the one inch rule', () => {
+  it('gives inches two more decimals than the millimetres they stand for', () => {
+    // source: 1 in = 25.4 mm exactly (international yard and pound agreement, 1959); 32 mm = 1.25984 in
+    expect(inchDecimals(0)).toBe(2);
+    expect(inchDecimals(1)).toBe(3);
+    expect(inches(32)).toBe('1.26');
+    expect(inches(32, 1)).toBe('1.260');
+    expect(formatLength(32, 'in', 0)).toBe('1.26 in');
+    expect(formatLength(32, 'in')).toBe('1.260 in');
+    expect(writtenDecimals('180')).toBe(0);
+    expect(writtenDecimals('0.60')).toBe(2);
+    expect(writtenDecimals(12.5)).toBe(1);
+  });
+});
+
+describe('dates and times', () => {
+  // An instant late in the UTC day, so a zone east of UTC is already on the next day.
+  const lateEvening = '2026-12-02T23:30:00Z';
+  afterEach(() => setFormatTimeZone(DOCUMENT_TIME_ZONE));
+
+  it("writes a day by the locale's medium date pattern", () => {
+    // source: Unicode CLDR locale data (Unicode Consortium): medium date pattern en-GB "d MMM y",
+    // en-US "MMM d, y", de "dd.MM.y"
+    expect(formatDate('2026-12-02', 'en-GB')).toBe('2 Dec 2026');
+    expect(formatDate('2026-12-02', 'en-US')).toBe('Dec 2, 2026');
+    expect(formatDate('2026-12-02', 'de-DE')).toBe('02.12.2026');
+    expect(formatDate('2098-12-31')).toBe('31 Dec 2098'); // default locale en-GB
+  });
+
+  it("writes an instant to the minute by the locale's medium date and short time patterns", () => {
+    // source: Unicode CLDR locale data (Unicode Consortium): en-GB "d MMM y" + "HH:mm" joined by "{1}, {0}";
+    // de "dd.MM.y" + "HH:mm" joined by "{1}, {0}"
+    expect(formatDateTime(lateEvening, 'en-GB')).toBe('2 Dec 2026, 23:30');
+    expect(formatDateTime(new Date(lateEvening), 'de-DE')).toBe('02.12.2026, 23:30');
+  });
+
+  it("writes instants in UTC unless a screen sets its viewer's zone", () => {
+    expect(formatTimeZone()).toBe('UTC');
+    // source: IANA time zone database: Europe/Berlin is UTC+1 in December (no summer time), Asia/Tokyo UTC+9
+    setFormatTimeZone('Europe/Berlin');
+    expect(formatDateTime(lateEvening, 'en-GB')).toBe('3 Dec 2026, 00:30');
+    expect(formatDate(lateEvening, 'en-GB')).toBe('3 Dec 2026');
+    setFormatTimeZone('Not/AZone'); // an unknown zone changes nothing
+    expect(formatTimeZone()).toBe('Europe/Berlin');
+    // A calendar day is a day, not an instant: it never shifts with the zone.
+    setFormatTimeZone('Pacific/Pago_Pago'); // UTC−11
+    expect(formatDate('2026-12-02', 'en-GB')).toBe('2 Dec 2026');
+  });
+
+  it('does not depend on the time zone of the machine it runs on', () => {
+    const before = process.env.TZ;
+    try {
+      for (const tz of ['Asia/Tokyo', 'America/Los_Angeles', 'UTC']) {
+        process.env.TZ = tz;
+        // source: IANA time zone database: Asia/Tokyo UTC+9, America/Los_Angeles UTC−8 in December
+        const localHour = { 'Asia/Tokyo': 8, 'America/Los_Angeles': 15, UTC: 23 }[tz];
+        expect(new Date(lateEvening).getHours()).toBe(localHour); // the machine's zone really changed
+        expect(formatDateTime(lateEvening, 'en-GB')).toBe('2 Dec 2026, 23:30');
+        expect(formatDate(lateEvening, 'en-GB')).toBe('2 Dec 2026');
+        expect(isoDay(lateEvening)).toBe('2026-12-02');
+        expect(addDays(lateEvening, 28)).toBe('2026-12-30');
+      }
+    } finally {
+      if (before === undefined) delete process.env.TZ;
+      else process.env.TZ = before;
+    }
+  });
+
+  it('counts calendar days across month and year ends, and says so when a date cannot be read', () => {
+    // Common practice (Gregorian calendar): December has 31 days; 2028 is a leap year (29 February).
+    expect(addDays('2026-12-30', 3)).toBe('2027-01-02');
+    expect(addDays('2028-02-28', 1)).toBe('2028-02-29');
+    expect(addDays('2026-03-01', -1)).toBe('2026-02-28');
+    expect(formatDate('not a date')).toBe('—');
+    expect(formatDateTime('')).toBe('—');
   });
 });

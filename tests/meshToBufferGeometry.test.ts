@@ -149,9 +149,13 @@ describe('lengths in inch mode', () => {
 
   it('writes the millimetre lengths of a help text in inches, and leaves mm² and mm³ alone', () => {
     const help = 'Over about 180 mm the box no longer fits a 250 mm build height; typical 28–32 mm. Area in mm² stays.';
+    // One inch rule: two more decimals than the millimetre figure as written (whole mm → hundredths of an inch).
+    // source: 1 in = 25.4 mm exactly (international inch, 1959); 180 mm = 7.0866 in, 250 mm = 9.8425 in,
+    // 28 mm = 1.1024 in, 32 mm = 1.2598 in, 0.6 mm = 0.02362 in
     expect(lengthsInText(help, 'in')).toBe(
-      'Over about 7.087 in the box no longer fits a 9.843 in build height; typical 1.102–1.260 in. Area in mm² stays.',
+      'Over about 7.09 in the box no longer fits a 9.84 in build height; typical 1.10–1.26 in. Area in mm² stays.',
     );
+    expect(lengthsInText('walls of 0.6 mm', 'in')).toBe('walls of 0.024 in');
     expect(lengthsInText(help, 'mm')).toBe(help);
     expect(lengthsInText('chamber radius + 42 mm tall', 'in')).not.toMatch(/\bmm\b/);
   });
@@ -162,7 +166,7 @@ describe('lengths in inch mode', () => {
     expect(wallBuildText(1.36, 2.64, 'mm')).toBe('1.4 mm solid perimeters, 2.6 mm infill core');
     expect(wallBuildText(1.36, 2.64, 'in')).toBe('0.054 in solid perimeters, 0.104 in infill core');
     expect(lengthsInText('The wall insulates about 40 % as well as a 19 mm pine board.', 'in')).toBe(
-      'The wall insulates about 40 % as well as a 0.748 in pine board.',
+      'The wall insulates about 40 % as well as a 0.75 in pine board.',
     );
   });
 });

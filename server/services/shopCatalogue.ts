@@ -28,7 +28,7 @@ import { listCatalogueVariants } from './catalogue';
 import { cachedCatalogueValue } from './catalogueCache';
 import { getSalesSettings } from './salesSettings';
 import { backFit, productName, variantCautions } from './specSheet';
-import { inches } from '../../shared/format';
+import { inches, writtenDecimals } from '../../shared/format';
 
 /**
  * A family's address in the shop: its name in lower case with hyphens.
@@ -179,7 +179,8 @@ function axisLabelOf(key: string): string {
 function valueLabel(key: string, value: unknown, colourName?: string): string {
   if (colourName) return colourName;
   if (typeof value === 'boolean') return value ? 'Yes' : 'No';
-  if (typeof value === 'number') return key.endsWith('Mm') ? `${value} mm (${inches(value)} in)` : String(value);
+  if (typeof value === 'number')
+    return key.endsWith('Mm') ? `${value} mm (${inches(value, writtenDecimals(value))} in)` : String(value);
   const text = String(value).replace(/-/g, ' ');
   return text.charAt(0).toUpperCase() + text.slice(1);
 }

@@ -1,11 +1,15 @@
 /**
  * Converting the editor's length fields between millimetres and inches. Lengths are written for people through
- * shared/format (`formatLength`); this module keeps what is particular to the editor: field values and help texts.
+ * shared/format (`formatLength`, and its one inch rule: two more decimals than the millimetres); this module keeps
+ * what is particular to the editor: field values and help texts.
  */
-import { formatLength, MM_PER_INCH } from '../../../shared/format';
+import { formatLength, inchDecimals, inches, MM_PER_INCH, writtenDecimals } from '../../../shared/format';
 
-/** Decimals an inch figure is shown with: thousandths (0.001 in = 0.0254 mm, finer than a 0.1 mm print step). */
-export const INCH_DECIMALS = 3;
+/** Decimals the editor's millimetre lengths are set to: a tenth of a millimetre, about one print layer step. */
+export const FIELD_MM_DECIMALS = 1;
+
+/** Decimals an inch field is shown with, by the one inch rule: thousandths (0.001 in = 0.0254 mm). */
+export const INCH_DECIMALS = inchDecimals(FIELD_MM_DECIMALS);
 
 /**
  * A length parameter's value as shown: millimetres, or inches when the designer chose inches.
@@ -31,15 +35,16 @@ const MM_IN_TEXT = /(\d+(?:\.\d+)?)(?:\s*[–-]\s*(\d+(?:\.\d+)?))?\s?mm(?![²³
 
 /**
  * A sentence (help text, a caution) with every millimetre length in it written in the chosen display unit, so a
- * screen in inches never mixes in millimetres: `over about 180 mm` → `over about 7.087 in`.
+ * screen in inches never mixes in millimetres: `over about 180 mm` → `over about 7.09 in` (each figure by the one
+ * inch rule: two more decimals than it was written with).
  * @param text - the sentence, lengths in millimetres
  * @param display - how lengths are shown
  */
 export function lengthsInText(text: string, display: 'mm' | 'in'): string {
   if (display === 'mm') return text;
-  const inches = (mm: string) => (Number(mm) / MM_PER_INCH).toFixed(INCH_DECIMALS);
+  const inch = (mm: string) => inches(Number(mm), writtenDecimals(mm));
   return text.replace(MM_IN_TEXT, (_whole, from: string, to: string | undefined) =>
-    to === undefined ? `${inches(from)} in` : `${inches(from)}–${inches(to)} in`,
+    to === undefined ? `${inch(from)} in` : `${inch(from)}–${inch(to)} in`,
   );
 }
 
