@@ -65,9 +65,9 @@ export default async function bench(): Promise<void> {
   const worker = new ExportWorker(60_000);
   try {
     for (const template of TEMPLATES) {
-      await worker.run(template.id, {}, 'stl');
+      await worker.run(template.id, {}, { format: 'stl' });
       const exports = await timeRuns(EXPORT_RUNS, (i) =>
-        worker.run(template.id, { entryHoleDiameterMm: 31 + i * 0.5 }, 'stl'),
+        worker.run(template.id, { entryHoleDiameterMm: 31 + i * 0.5 }, { format: 'stl' }),
       );
       console.log(line(`server export ${template.id}`, exports, ' (cpu = whole process, worker included)'));
     }

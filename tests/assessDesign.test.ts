@@ -114,6 +114,9 @@ describe('the three callers agree', () => {
       supportBudgetMm3: 1e9,
       region: null,
       colourId: 'white',
+      // the values the database is seeded with, passed as the jobs pass the studio's
+      settings: DEFAULT_SETTINGS,
+      rates: DEFAULT_RATES,
     });
     const analysis = analyzeMesh(design.mesh, {
       printer,

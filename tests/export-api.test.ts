@@ -159,7 +159,7 @@ describe('export time limit', () => {
       expect((err as HttpError).code).toBe('generation_timeout');
       expect((err as HttpError).message).toMatch(/longer than 0.04 s/);
       // the stopped thread is replaced on the next call
-      const ok = await worker.run('gable-box', {}, 'stl', 30_000);
+      const ok = await worker.run('gable-box', {}, { format: 'stl' }, 30_000);
       expect(ok.summary.triangles).toBeGreaterThan(100);
     } finally {
       await worker.close();
@@ -169,12 +169,29 @@ describe('export time limit', () => {
   it('reports a failing build in the worker as a typed error, not a crash', async () => {
     const worker = new ExportWorker(30_000);
     try {
-      const err = await worker.run('no-such-template', {}, 'stl').catch((e: unknown) => e);
+      const err = await worker.run('no-such-template', {}, { format: 'stl' }).catch((e: unknown) => e);
       expect(err).toBeInstanceOf(ExportError);
       expect((err as ExportError).kind).toBe('params');
       // the same thread still serves the next request
-      const ok = await worker.run('a-frame', { cleaningAccess: false }, '3mf');
+      // The plate is the seeded first printer's (246 × 238 × 262 mm), passed as the server passes the studio's.
+      const plate = { buildVolumeMm: [246, 238, 262] };
+      const ok = await worker.run('a-frame', { cleaningAccess: false }, { format: '3mf', plate });
       expect(ok.summary.partCount).toBe(1);
+    } finally {
+      await worker.close();
+    }
+  }, 60_000);
+});
+
+describe('3MF plate', () => {
+  it('refuses a 3MF without a printer plate in words, instead of using a built-in printer', async () => {
+    const worker = new ExportWorker(30_000);
+    try {
+      // A message from an untyped caller: the type requires the plate, the worker checks again.
+      const untyped = { format: '3mf' } as unknown as Parameters<ExportWorker['run']>[2];
+      const err = await worker.run('a-frame', {}, untyped).catch((e: unknown) => e);
+      expect(err).toBeInstanceOf(ExportError);
+      expect((err as ExportError).message).toMatch(/printer plate.*choose one of the studio printers/);
     } finally {
       await worker.close();
     }

@@ -183,6 +183,9 @@ describe('default gable box: one answer on every demo printer', () => {
       material: pla,
       supportBudgetMm3: 1e9,
       region: null,
+      // the values the database is seeded with, passed as the jobs pass the studio's
+      settings: DEFAULT_SETTINGS,
+      rates: DEFAULT_RATES,
     });
     expect(evaluated.report.plate?.text).toBe(expected.text);
     expect(evaluated.report.plate?.platesPerUnit).toBe(expected.platesPerUnit);

@@ -101,6 +101,9 @@ describe('the spec sheet says the same', () => {
       supportBudgetMm3: 1e9,
       region: null,
       colourId: petg.colours[0].id,
+      // the values the database is seeded with, passed as the jobs pass the studio's
+      settings: DEFAULT_SETTINGS,
+      rates: DEFAULT_RATES,
     });
     variant = {
       sku: 'GBX-PETG',

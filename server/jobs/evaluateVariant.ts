@@ -1,7 +1,6 @@
 import { assessDesign, plainOutdoor } from '../../shared/assessment/assessDesign';
 import { plateRuleSummary } from '../../shared/analysis/plateRule';
 import { variantVerdict } from '../../shared/families/variantVerdict';
-import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../../shared/production/defaults';
 import type { Region, BirdFitWarning } from '../../shared/schemas/birdfit';
 import type { VariantCost, VariantReport, VariantVerdict } from '../../shared/schemas/variant';
 import type { CostRates, Material, PrinterProfile, PrintSettings } from '../../shared/schemas/production';
@@ -27,10 +26,10 @@ export interface EvaluationContext {
   region: Region | null;
   /** The variant's colour id (attributes.colour); null takes the material's first colour. */
   colourId?: string | null;
-  /** Print settings with the family's recipe applied (default: the built-in settings). */
-  settings?: PrintSettings;
-  /** Cost rates with the finishes (default: the built-in rates). */
-  rates?: CostRates;
+  /** Print settings from the database, with the family's recipe applied. */
+  settings: PrintSettings;
+  /** Cost rates with the finishes, from the database. */
+  rates: CostRates;
   /** The variant's finish (attributes.finish); null takes the first finish of the rates. */
   finishId?: string | null;
   /** The family's production targets; a variant over one fails. */
@@ -49,9 +48,7 @@ export interface EvaluationContext {
  * @param context - printer, material, support budget, region, settings, rates, finish and targets
  */
 export function evaluateVariant(geometry: VariantGeometry, context: EvaluationContext): VariantEvaluation {
-  const { printer, material } = context;
-  const settings = context.settings ?? DEFAULT_SETTINGS;
-  const rates = context.rates ?? DEFAULT_RATES;
+  const { printer, material, settings, rates } = context;
   const assessment = assessDesign(
     geometry,
     { printer, material, colourId: context.colourId, settings, rates, finishId: context.finishId },

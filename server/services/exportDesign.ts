@@ -79,9 +79,7 @@ export async function exportDesign(
     return await worker.run(
       request.templateId,
       request.params,
-      request.format,
-      undefined,
-      request.format === '3mf' ? exportPlate(request, catalogue) : undefined,
+      request.format === '3mf' ? { format: '3mf', plate: exportPlate(request, catalogue) } : { format: 'stl' },
     );
   } catch (err) {
     if (!(err instanceof ExportError)) throw err;

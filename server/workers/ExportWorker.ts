@@ -1,6 +1,8 @@
 import { TimedWorker } from './TimedWorker';
-import type { ExportFormat, ExportSummary, ExportWorkerRequest, ExportWorkerResponse } from './exportWorkerThread';
-import type { Design3mfChoice } from '../../shared/mesh/design3mf';
+import type { ExportSummary, ExportTarget, ExportWorkerRequest, ExportWorkerResponse } from './exportWorkerThread';
+
+/** Omit that keeps a union a union (each member loses the key on its own). */
+type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
 
 /** The worker entry next to this file (TypeScript, loaded through tsx inside the worker). */
 const WORKER_URL = new URL('./exportWorkerThread.ts', import.meta.url);
@@ -37,7 +39,11 @@ export interface ExportResult {
  * `timeout`; the next request starts a fresh thread, so the server keeps answering.
  */
 export class ExportWorker {
-  private readonly runner: TimedWorker<Omit<ExportWorkerRequest, 'requestId'>, ExportWorkerResponse, ExportResult>;
+  private readonly runner: TimedWorker<
+    DistributiveOmit<ExportWorkerRequest, 'requestId'>,
+    ExportWorkerResponse,
+    ExportResult
+  >;
 
   /** @param timeLimitMs - the longest one export may take */
   constructor(timeLimitMs = EXPORT_TIME_LIMIT_MS) {
@@ -59,18 +65,12 @@ export class ExportWorker {
    * Generates the template's mesh and writes it in the format.
    * @param templateId - template id
    * @param params - raw parameters (checked again in the worker)
-   * @param format - `stl` or `3mf`
+   * @param target - `{ format: 'stl' }`, or `{ format: '3mf', plate }` with the printer plate (and material) the 3MF
+   *   is laid out for: required, there is no built-in printer to fall back on
    * @param timeLimitMs - the limit for this request (default: the worker's)
-   * @param plate - printer plate and material a 3MF is laid out for (default: the first default printer, no material)
    */
-  run(
-    templateId: string,
-    params: unknown,
-    format: ExportFormat,
-    timeLimitMs?: number,
-    plate?: Design3mfChoice,
-  ): Promise<ExportResult> {
-    return this.runner.run({ templateId, params, format, plate }, timeLimitMs);
+  run(templateId: string, params: unknown, target: ExportTarget, timeLimitMs?: number): Promise<ExportResult> {
+    return this.runner.run({ templateId, params, ...target }, timeLimitMs);
   }
 
   /** Terminates the thread; pending exports reject. */

@@ -4,7 +4,6 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { design3mf, type Design3mfChoice } from '../../shared/mesh/design3mf';
-import { DEFAULT_PRINTERS } from '../../shared/production/defaults';
 import { writeStl } from '../../shared/mesh/writeStl';
 import { generate } from '../../templates/generate';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
@@ -13,15 +12,18 @@ import { MeshValidationError } from '../../templates/lib/toMesh';
 /** Export file formats. */
 export type ExportFormat = 'stl' | '3mf';
 
+/**
+ * What to write: an STL (no plate), or a 3MF laid out on a plate. The plate is the caller's to give (the server takes
+ * it from the studio's printers in the database); the worker has no printers of its own to fall back on.
+ */
+export type ExportTarget = { format: 'stl' } | { format: '3mf'; plate: Design3mfChoice };
+
 /** A request to the worker. */
-export interface ExportWorkerRequest {
-  requestId: number;
-  templateId: string;
-  params: unknown;
-  format: ExportFormat;
-  /** Printer plate and material a 3MF is laid out for (default: the first default printer, no material). */
-  plate?: Design3mfChoice;
-}
+export type ExportWorkerRequest = { requestId: number; templateId: string; params: unknown } & ExportTarget;
+
+/** The refusal of a 3MF request that came without a plate (a caller's mistake, said in words). */
+export const NO_PLATE_MESSAGE =
+  'a 3MF file is laid out on a printer plate, and no printer was given: choose one of the studio printers';
 
 /** What a finished export carries besides the file. */
 export interface ExportSummary {
@@ -39,12 +41,12 @@ export type ExportWorkerResponse =
   | { requestId: number; ok: false; kind: 'params' | 'mesh' | 'failed'; field?: string; error: string };
 
 async function handle(request: ExportWorkerRequest): Promise<ExportWorkerResponse> {
+  // Typed callers cannot leave the plate out; a message from elsewhere is refused before any work is done.
+  if (request.format === '3mf' && !request.plate)
+    return { requestId: request.requestId, ok: false, kind: 'failed', error: NO_PLATE_MESSAGE };
   try {
     const result = await generate(request.templateId, request.params);
-    const file =
-      request.format === 'stl'
-        ? writeStl(result.mesh)
-        : design3mf(result, request.plate ?? { buildVolumeMm: defaultBuildVolumeMm() });
+    const file = request.format === 'stl' ? writeStl(result.mesh) : design3mf(result, request.plate);
     return {
       requestId: request.requestId,
       ok: true,
@@ -65,11 +67,6 @@ async function handle(request: ExportWorkerRequest): Promise<ExportWorkerRespons
     if (err instanceof MeshValidationError) return { requestId: request.requestId, ok: false, kind: 'mesh', error };
     return { requestId: request.requestId, ok: false, kind: 'failed', error };
   }
-}
-
-function defaultBuildVolumeMm(): number[] {
-  const { x, y, z } = DEFAULT_PRINTERS[0].buildVolumeMm;
-  return [x, y, z];
 }
 
 parentPort?.on('message', (request: ExportWorkerRequest) => {

@@ -16,7 +16,11 @@ function remembered(key: string, ids: string[], fallback: string): string {
   return value && ids.includes(value) ? value : fallback;
 }
 
-/** The printer last chosen in this browser, else the farm's everyday profile, else the largest build volume. */
+/**
+ * The printer last chosen in this browser, else the farm's everyday profile, else the largest build volume. All
+ * three are printers from the database (the production store); FARM_PRINTER_ID is only the id of the seeded
+ * everyday printer, preferred when the studio still has it, never a built-in profile used in its place.
+ */
 function initialPrinterId(printers: PrinterProfile[]): string {
   const volume = (item: PrinterProfile) => item.buildVolumeMm.x * item.buildVolumeMm.y * item.buildVolumeMm.z;
   const largest = [...printers].sort((a, b) => volume(b) - volume(a))[0];
