@@ -77,7 +77,7 @@ export function priceListCsv(rows: PriceListRow[]): string {
  * The price list as an .xlsx workbook (exceljs): a frozen bold header with a filter, and number formats.
  * @param rows - price-list rows
  * @param studioName - the studio, named as the workbook's author
- * @param issuedOn - date shown in the sheet's title row
+ * @param issuedOn - the workbook's creation date (its document properties)
  */
 export async function priceListXlsx(rows: PriceListRow[], studioName: string, issuedOn = new Date()): Promise<Buffer> {
   // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
