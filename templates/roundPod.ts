@@ -5,7 +5,7 @@ import { eggCeilingZ, eggProfile } from './lib/eggProfile';
 import { floorOpening } from './lib/floorOpening';
 import { BuildContext } from './lib/BuildContext';
 import { partMesh } from './lib/partMesh';
-import { Solid } from './lib/Solid';
+import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 
 const parameters = z
@@ -51,15 +51,10 @@ type PodParams = z.output<typeof parameters>;
 
 /** Parameters the cavity depends on. */
 const CAVITY_KEYS = ['bodyDiameterMm', 'bodyHeightMm', 'floorDiameterMm', 'wallThicknessMm'] as const;
-/** Parameters the shell (and the floor plug) depend on: everything but the entry and the perch. */
-const SHELL_KEYS = [
-  ...CAVITY_KEYS,
-  'ventilationSlots',
-  'drainageHoles',
-  'hangingHole',
-  'cleaningAccess',
-  'printClearanceMm',
-] as const;
+/** Parameters the skin (the egg's wall and the hanging eye) depends on. */
+const SKIN_KEYS = [...CAVITY_KEYS, 'hangingHole'] as const;
+/** Parameters the floor plug depends on. */
+const PLUG_KEYS = [...CAVITY_KEYS, 'drainageHoles', 'cleaningAccess', 'printClearanceMm'] as const;
 const SLOT_WIDTH_MM = 6;
 const SLOT_LENGTH_MM = 26;
 
@@ -69,7 +64,7 @@ const SLOT_LENGTH_MM = 26;
  */
 export const roundPod: Template<typeof parameters> = {
   id: 'round-pod',
-  version: 3,
+  version: 4,
   name: 'Round pod',
   summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
   parameters,
@@ -87,21 +82,21 @@ export const roundPod: Template<typeof parameters> = {
     };
   },
   build(p, context = new BuildContext('full')) {
-    const { t, a, lower, floorRadius, floorZ, cutZ, upper, ceiling } = podFrame(p);
+    const { t, a, lower, ai, floorRadius, floorZ, cutZ, upper, ceiling } = podFrame(p);
 
-    // The shell (egg, cavity, vents, floor, hanging eye) does not depend on the entry or the perch.
-    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => podShell(q, context));
+    // The skin (the egg's wall with its hanging eye) depends only on the body's size and the eye; everything else is
+    // cut from it in one subtraction, because each kernel operation costs about as much as the whole mesh it works on.
+    const skin = context.reuse('skin', p, SKIN_KEYS, (q) => podSkin(q, context));
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-    const { ai } = podFrame(p);
     const hole = Solid.prism(
       teardropOutline(p.entryHoleDiameterMm, context.pick(48, 16)),
       'y',
       -a - 2,
       -ai * 0.3,
     ).translate(0, 0, holeCentreZ);
-    let body = shell;
+    let body = skin;
     if (p.perch) {
       const perchZ = holeCentreZ - r - 18;
       const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
@@ -111,14 +106,14 @@ export const roundPod: Template<typeof parameters> = {
         wallY - 30,
         wallY + t,
       ).translate(0, 0, perchZ);
-      // The perch's inner end is trimmed by the cavity before it joins the shell.
+      // The perch's inner end is trimmed by the cavity before it joins the wall.
       body = body.add(perch.subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context))));
     }
-    body = body.subtract(hole).translate(0, 0, -cutZ);
+    body = body.subtract(...podCuts(p, context), hole).translate(0, 0, -cutZ);
 
     const openingMm = floorRadius * 2 - 30;
     const plug = p.cleaningAccess
-      ? context.reuse('floor-plug', p, SHELL_KEYS, (q) => podFloor(q, context).plug!)
+      ? context.reuse('floor-plug', p, PLUG_KEYS, (q) => podFloor(q, context).plug!)
       : undefined;
     const parts = [{ name: 'body', mesh: partMesh(body) }];
     if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
@@ -185,8 +180,8 @@ function podCavity(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: Bu
   );
 }
 
-/** The floor's cleaning opening and plug, or its drainage holes (model coordinates, like the shell). */
-function podFloor(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: BuildContext) {
+/** The floor's cleaning opening and plug, or its drainage holes (model coordinates, like the skin). */
+function podFloor(p: Pick<PodParams, (typeof PLUG_KEYS)[number]>, context: BuildContext) {
   const { t, floorRadius, cutZ } = podFrame(p);
   return floorOpening({
     openingDiameterMm: floorRadius * 2 - 30,
@@ -199,34 +194,61 @@ function podFloor(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: Buil
   });
 }
 
-/** The egg with its hanging eye, less the cavity, ventilation slots and floor opening (model coordinates). */
-function podShell(p: Pick<PodParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
-  const { a, lower, ai, cutZ, apexZ, upper, upperInner, ceiling } = podFrame(p);
-  const outer = Solid.revolve(
-    eggProfile({
-      radiusMm: a,
-      upperMm: upper,
-      lowerMm: lower,
-      cutZMm: cutZ,
-      steps: context.pick(PROFILE_STEPS, 4),
-      coneTop: true,
-      coneBottom: true,
-    }),
-    context.pick(SEGMENTS, 16),
-  );
-  const additions: Solid[] = [];
-  const cuts: Solid[] = [podCavity(p, context)];
+/**
+ * The egg's wall in one revolve of its cross-section (outside profile up to the apex, down the axis, inside profile
+ * down to the floor): the same solid as the egg less its cavity, without a boolean. With the hanging eye on top.
+ */
+function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildContext): Solid {
+  const { t, a, lower, ai, bli, floorZ, cutZ, apexZ, upper, upperInner } = podFrame(p);
+  const steps = context.pick(PROFILE_STEPS, 4);
+  const outside = eggProfile({
+    radiusMm: a,
+    upperMm: upper,
+    lowerMm: lower,
+    cutZMm: cutZ,
+    steps,
+    coneTop: true,
+    coneBottom: true,
+  });
+  const inside = eggProfile({
+    radiusMm: ai,
+    upperMm: upperInner,
+    lowerMm: bli,
+    cutZMm: floorZ,
+    steps,
+    coneTop: true,
+    coneBottom: false,
+  });
+  // Both profiles start and end on the axis; the inside one, walked backwards, closes the ring.
+  const wall = Solid.revolve([...outside, ...inside.reverse()], context.pick(SEGMENTS, 16));
+  if (!p.hangingHole) return wall;
+  // The tab's foot is a 45° ridge d below the outside cone: inside the wall everywhere under the tab (the outside
+  // cone is at most |y| ≤ 4 mm lower at the tab's edge, the inside cone t·√2 lower), so the tab never reaches into the
+  // cavity and the union adds exactly what the tab adds above the wall.
+  const d = (4 + t * Math.SQRT2) / 2;
+  const top = apexZ + 18;
+  const foot: Outline = [
+    [-14, apexZ - d - 14],
+    [0, apexZ - d],
+    [14, apexZ - d - 14],
+    [14, top],
+    [-14, top],
+  ];
+  const tab = Solid.prism(foot, 'y', -4, 4);
+  const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', -5, 5).translate(0, 0, apexZ + 8);
+  return wall.add(tab.subtract(eye));
+}
+
+/** What is cut from the skin besides the entry: the ventilation slots and the floor opening or drainage holes. */
+function podCuts(p: PodParams, context: BuildContext): Solid[] {
+  const { a, ai, upperInner, ceiling } = podFrame(p);
+  const cuts: Solid[] = [];
   const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
   for (let i = 0; i < p.ventilationSlots; i++) {
     const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
     const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
     cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
   }
-  if (p.hangingHole) {
-    const tab = Solid.box([28, 8, 38], [-14, -4, apexZ - 20]);
-    const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', -5, 5).translate(0, 0, apexZ + 8);
-    additions.push(tab.subtract(eye));
-  }
   cuts.push(...podFloor(p, context).cuts);
-  return outer.add(...additions).subtract(...cuts);
+  return cuts;
 }
