@@ -88,16 +88,23 @@ const PLUG_KEYS = [
   'printClearanceMm',
   'drainageHoles',
 ] as const;
-/** Parameters the shell depends on: everything but the entries, their rims and the perch. */
-const SHELL_KEYS = [
+/** Parameters the bark (the textured trunk before any cut) depends on. */
+const BARK_KEYS = [
+  'cavityDiameterMm',
+  'cavityDepthMm',
+  'storeys',
+  'wallThicknessMm',
+  'barkDepthMm',
+  'barkSeed',
+] as const;
+/** Parameters the cuts (chambers, vents, weep holes, floor opening, back) depend on: not the bark pattern. */
+const CUT_KEYS = [
   ...CHAMBER_KEYS,
   ...PLUG_KEYS,
   'barkDepthMm',
-  'barkSeed',
   'mountRadiusMm',
   'flatBack',
   'ventilationSlots',
-  'hangingHole',
 ] as const;
 
 /**
@@ -106,7 +113,7 @@ const SHELL_KEYS = [
  */
 export const barkTrunk: Template<typeof parameters> = {
   id: 'bark-trunk',
-  version: 3,
+  version: 4,
   name: 'Bark trunk',
   summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
   parameters,
@@ -131,12 +138,14 @@ export const barkTrunk: Template<typeof parameters> = {
     const frontY = -Ro;
     const holeSegments = context.pick(48, 16);
 
-    // The shell (bark, chambers, vents, floor, back, hanging tab) does not depend on the entries, their rims or the
-    // perch: a slider on those reuses it.
-    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => trunkShell(q, context));
-    const chambers = context.reuse('chambers', p, CHAMBER_KEYS, (q) => chamberCavities(q, context));
+    // The bark (a mesh built here, the costliest solid to make) depends only on the trunk's size and texture, the cuts
+    // (chambers, vents, weep holes, floor opening, back) not on the bark pattern; a slider on the entries, their rims
+    // or the perch reuses both. Everything is then added in one union and cut in one subtraction, because each kernel
+    // operation costs about as much as the whole mesh it works on.
+    const bark = context.reuse('bark', p, BARK_KEYS, (q) => trunkBark(q, context));
+    const cuts = context.reuse('cuts', p, CUT_KEYS, (q) => trunkCuts(q, context));
 
-    const features: Solid[] = [];
+    const features: Solid[] = p.hangingHole ? [hangingTab(p, context)] : [];
     const holes: Solid[] = [];
     for (let storey = 0; storey < p.storeys; storey++) {
       const floorZ = t + storey * storeyMm;
@@ -166,9 +175,8 @@ export const barkTrunk: Template<typeof parameters> = {
         );
       }
     }
-    // Rims and perch reach into the chamber; they are trimmed by it before they join the shell.
-    const trimmed = features.length > 0 ? [Solid.union(features).subtract(chambers)] : [];
-    const body = shell.add(...trimmed).subtract(...holes);
+    // Rims and perch reach into the chamber: the cuts (chambers included) trim them with the rest.
+    const body = bark.add(...features).subtract(cuts, ...holes);
 
     const openingMm = p.cavityDiameterMm - 30;
     const plug = p.cleaningAccess
@@ -238,18 +246,51 @@ function bodyFloor(p: Pick<BarkParams, (typeof PLUG_KEYS)[number]>, context: Bui
   });
 }
 
-/**
- * The bark-textured trunk with its hanging tab, less the chambers, ventilation slots, weep holes, floor opening and
- * the back: everything of the body that does not depend on the entries.
- */
-function trunkShell(p: Pick<BarkParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+/** The trunk's outside radius and height (the ridges of the bark; the back is cut later). */
+function trunkSize(
+  p: Pick<BarkParams, 'cavityDiameterMm' | 'cavityDepthMm' | 'storeys' | 'wallThicknessMm' | 'barkDepthMm'>,
+) {
   const t = p.wallThicknessMm;
   const Ri = p.cavityDiameterMm / 2;
   const Ro = Ri + t + 2 + p.barkDepthMm;
   const storeyMm = p.cavityDepthMm + Ri + t;
-  const heightMm = t + storeyMm * p.storeys;
+  return { t, Ri, Ro, storeyMm, heightMm: t + storeyMm * p.storeys };
+}
+
+/** The solid bark-textured trunk, before the chambers and every other cut. */
+function trunkBark(p: Pick<BarkParams, (typeof BARK_KEYS)[number]>, context: BuildContext): Solid {
+  const { Ro, heightMm } = trunkSize(p);
+  return barkTube({
+    radiusMm: Ro,
+    heightMm,
+    barkDepthMm: p.barkDepthMm,
+    seed: p.barkSeed,
+    // 160 × 4 mm rows: the furrows stay crisp at about 40 % fewer triangles than 192 × 3 mm (measured). The draft
+    // keeps the pattern's shape at a coarser grid (48 × 14 mm: about a quarter less build time than 64 × 10 mm).
+    segments: context.pick(160, 48),
+    rowMm: context.pick(4, 14),
+  });
+}
+
+/** The hanging tab on top, with its eye, sunk 4 mm into the trunk's top. */
+function hangingTab(p: BarkParams, context: BuildContext): Solid {
+  const { t, Ri, heightMm } = trunkSize(p);
+  const tab = Solid.box([28, 8, 26], [-14, Ri + t / 2 - 8, heightMm - 4]);
+  const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', Ri - 10, Ri + t + 4).translate(
+    0,
+    0,
+    heightMm + 9,
+  );
+  return tab.subtract(eye);
+}
+
+/**
+ * Everything cut from the trunk but the entries: the chambers, ventilation slots, weep holes, floor opening and the
+ * back (a tree of the given radius touching the chamber wall's outside, or a flat cut there), as one solid.
+ */
+function trunkCuts(p: Pick<BarkParams, (typeof CUT_KEYS)[number]>, context: BuildContext): Solid {
+  const { t, Ri, Ro, storeyMm, heightMm } = trunkSize(p);
   const frontY = -Ro;
-  const additions: Solid[] = [];
   const cuts: Solid[] = [chamberCavities(p, context)];
   for (let storey = 0; storey < p.storeys; storey++) {
     const floorZ = t + storey * storeyMm;
@@ -272,20 +313,7 @@ function trunkShell(p: Pick<BarkParams, (typeof SHELL_KEYS)[number]>, context: B
       }
     }
   }
-
-  if (p.hangingHole) {
-    const tab = Solid.box([28, 8, 26], [-14, Ri + t / 2 - 8, heightMm - 4]);
-    const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', Ri - 10, Ri + t + 4).translate(
-      0,
-      0,
-      heightMm + 9,
-    );
-    additions.push(tab.subtract(eye));
-  }
-
   cuts.push(...bodyFloor(p, context).cuts);
-
-  // The back: a tree of the given radius touching the chamber wall's outside, or a flat cut there.
   const backY = Ri + t;
   cuts.push(
     p.flatBack
@@ -296,16 +324,5 @@ function trunkShell(p: Pick<BarkParams, (typeof SHELL_KEYS)[number]>, context: B
           -10,
         ),
   );
-
-  const trunk = barkTube({
-    radiusMm: Ro,
-    heightMm,
-    barkDepthMm: p.barkDepthMm,
-    seed: p.barkSeed,
-    // 160 × 4 mm rows: the furrows stay crisp at about 40 % fewer triangles than 192 × 3 mm (measured). The draft
-    // keeps the pattern's shape at a coarser grid (48 × 14 mm: about a quarter less build time than 64 × 10 mm).
-    segments: context.pick(160, 48),
-    rowMm: context.pick(4, 14),
-  });
-  return trunk.add(...additions).subtract(...cuts);
+  return Solid.union(cuts);
 }
