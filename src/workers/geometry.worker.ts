@@ -16,8 +16,8 @@ import type { GeometryRequest, GeometryResponse } from './geometryProtocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 let queue: Promise<void> = Promise.resolve();
-/** Shells, cavities and plugs of recent builds, at both qualities. */
-const cache = new SolidCache(24);
+/** Bark, skins, cuts and plugs of recent builds: 12 per quality, so a drag's drafts never evict the full solids. */
+const cache = new SolidCache(12);
 
 function post(response: GeometryResponse, transfer: ArrayBufferLike[] = []): void {
   // A Set: two views on one buffer must be listed once or postMessage throws.

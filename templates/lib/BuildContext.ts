@@ -60,7 +60,7 @@ export class BuildContext {
     const picked = {} as Pick<P, K>;
     for (const key of keys) picked[key] = params[key];
     const key = `${this.scopeKey}|${this.quality}|${name}|${JSON.stringify(keys.map((k) => [k, params[k]]))}`;
-    const stored = this.cache?.get(key);
+    const stored = this.cache?.get(key, this.quality);
     if (stored) return new Solid(inKernel(() => stored.translate([0, 0, 0])));
     const solid = make(picked);
     inKernel(() => solid.manifold.status());
@@ -69,6 +69,7 @@ export class BuildContext {
       this.cache.set(
         key,
         inKernel(() => solid.manifold.translate([0, 0, 0])),
+        this.quality,
       );
     return solid;
   }
