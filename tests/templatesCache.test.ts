@@ -3,7 +3,7 @@
  * parameter from the defaults gives the same mesh hash with a warm cache as a cold build, at full quality and as a
  * draft, so a sub-solid that forgot to declare a parameter it depends on is caught. A move of the entry hole reuses
  * the shell (the cache answers). Expected behaviour is our own design (a cache never changes a result), no outside
- * source; the hash is sha256 over the canonical mesh bytes.
+ * source; the hash is sha256 over the canonical mesh bytes. A drag's drafts never evict the full sub-solids.
  */
 import { describe, expect, it } from 'vitest';
 import { TEMPLATES, describeParameters, generate, generateDraft, liveLimits, SolidCache } from '../templates/index';
@@ -46,6 +46,19 @@ describe.each(TEMPLATES.map((t) => [t.id, t] as const))('%s with a sub-solid cac
     expect(cache.counts.misses).toBe(before.misses);
     expect(second.sha256).not.toBe(first.sha256);
     expect(second.sha256).toBe((await generate(template.id, { entryHoleDiameterMm: 31 })).sha256);
+    cache.clear();
+  }, 60_000);
+
+  it('keeps the full sub-solids while a drag fills the cache with drafts', async () => {
+    const cache = new SolidCache();
+    await generate(template.id, {}, { cache });
+    // A drag on the wall slider: 13 drafts, each with new sub-solids, more than the draft pool holds.
+    for (let wallMm = 4; wallMm <= 10; wallMm += 0.5)
+      await generateDraft(template.id, { wallThicknessMm: wallMm }, { cache });
+    const before = { ...cache.counts };
+    await generate(template.id, {}, { cache });
+    expect(cache.counts.misses).toBe(before.misses);
+    expect(cache.counts.hits).toBeGreaterThan(before.hits);
     cache.clear();
   }, 60_000);
 });
