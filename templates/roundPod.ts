@@ -51,8 +51,8 @@ type PodParams = z.output<typeof parameters>;
 
 /** Parameters the cavity depends on. */
 const CAVITY_KEYS = ['bodyDiameterMm', 'bodyHeightMm', 'floorDiameterMm', 'wallThicknessMm'] as const;
-/** Parameters the skin (the egg's wall and the hanging eye) depends on. */
-const SKIN_KEYS = [...CAVITY_KEYS, 'hangingHole'] as const;
+/** Parameters the skin (the egg's wall with its cleaning opening, and the hanging eye) depends on. */
+const SKIN_KEYS = [...CAVITY_KEYS, 'hangingHole', 'cleaningAccess'] as const;
 /** Parameters the floor plug depends on. */
 const PLUG_KEYS = [...CAVITY_KEYS, 'drainageHoles', 'cleaningAccess', 'printClearanceMm'] as const;
 const SLOT_WIDTH_MM = 6;
@@ -199,7 +199,7 @@ function podFloor(p: Pick<PodParams, (typeof PLUG_KEYS)[number]>, context: Build
  * down to the floor): the same solid as the egg less its cavity, without a boolean. With the hanging eye on top.
  */
 function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildContext): Solid {
-  const { t, a, lower, ai, bli, floorZ, cutZ, apexZ, upper, upperInner } = podFrame(p);
+  const { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner } = podFrame(p);
   const steps = context.pick(PROFILE_STEPS, 4);
   const outside = eggProfile({
     radiusMm: a,
@@ -219,8 +219,16 @@ function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildC
     coneTop: true,
     coneBottom: false,
   });
-  // Both profiles start and end on the axis; the inside one, walked backwards, closes the ring.
-  const wall = Solid.revolve([...outside, ...inside.reverse()], context.pick(SEGMENTS, 16));
+  // Both profiles start and end on the axis; the inside one, walked backwards, closes the ring. With cleaning access
+  // the ring closes at the opening's radius instead, so the revolve has the opening already (the floor plug's
+  // opening, with as many segments as the wall).
+  const ring = [...outside, ...inside.reverse()];
+  if (p.cleaningAccess) {
+    const openingRadius = floorRadius - 15;
+    ring[0] = [openingRadius, cutZ];
+    ring[ring.length - 1] = [openingRadius, floorZ];
+  }
+  const wall = Solid.revolve(ring, context.pick(SEGMENTS, 16));
   if (!p.hangingHole) return wall;
   // The tab's foot is a 45° ridge d below the outside cone: inside the wall everywhere under the tab (the outside
   // cone is at most |y| ≤ 4 mm lower at the tab's edge, the inside cone t·√2 lower), so the tab never reaches into the
@@ -239,7 +247,7 @@ function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildC
   return wall.add(tab.subtract(eye));
 }
 
-/** What is cut from the skin besides the entry: the ventilation slots and the floor opening or drainage holes. */
+/** What is cut from the skin besides the entry: the ventilation slots, and the drainage holes without cleaning access. */
 function podCuts(p: PodParams, context: BuildContext): Solid[] {
   const { a, ai, upperInner, ceiling } = podFrame(p);
   const cuts: Solid[] = [];
@@ -249,6 +257,7 @@ function podCuts(p: PodParams, context: BuildContext): Solid[] {
     const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
     cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
   }
-  cuts.push(...podFloor(p, context).cuts);
+  // The cleaning opening is in the skin's revolve; drainage holes are cut.
+  if (!p.cleaningAccess) cuts.push(...podFloor(p, context).cuts);
   return cuts;
 }
