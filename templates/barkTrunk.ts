@@ -88,7 +88,7 @@ const PLUG_KEYS = [
   'printClearanceMm',
   'drainageHoles',
 ] as const;
-/** Parameters the bark (the textured trunk before any cut) depends on. */
+/** Parameters the bark (the textured trunk with its cleaning opening, before any cut) depends on. */
 const BARK_KEYS = [
   'cavityDiameterMm',
   'cavityDepthMm',
@@ -96,6 +96,7 @@ const BARK_KEYS = [
   'wallThicknessMm',
   'barkDepthMm',
   'barkSeed',
+  'cleaningAccess',
 ] as const;
 /** Parameters the cuts (chambers, vents, weep holes, floor opening, back) depend on: not the bark pattern. */
 const CUT_KEYS = [
@@ -257,7 +258,7 @@ function trunkSize(
   return { t, Ri, Ro, storeyMm, heightMm: t + storeyMm * p.storeys };
 }
 
-/** The solid bark-textured trunk, before the chambers and every other cut. */
+/** The solid bark-textured trunk with its cleaning opening, before the chambers and every other cut. */
 function trunkBark(p: Pick<BarkParams, (typeof BARK_KEYS)[number]>, context: BuildContext): Solid {
   const { Ro, heightMm } = trunkSize(p);
   return barkTube({
@@ -269,6 +270,11 @@ function trunkBark(p: Pick<BarkParams, (typeof BARK_KEYS)[number]>, context: Bui
     // keeps the pattern's shape at a coarser grid (48 × 14 mm: about a quarter less build time than 64 × 10 mm).
     segments: context.pick(160, 48),
     rowMm: context.pick(4, 14),
+    // The cleaning opening through the lowest floor, 1 mm into the chamber (which is cut later), with the plug's
+    // segments.
+    bottomHole: p.cleaningAccess
+      ? { radiusMm: (p.cavityDiameterMm - 30) / 2, depthMm: p.wallThicknessMm + 1, segments: context.pick(64, 16) }
+      : undefined,
   });
 }
 
@@ -313,7 +319,8 @@ function trunkCuts(p: Pick<BarkParams, (typeof CUT_KEYS)[number]>, context: Buil
       }
     }
   }
-  cuts.push(...bodyFloor(p, context).cuts);
+  // The cleaning opening is in the bark's mesh; drainage holes are cut.
+  if (!p.cleaningAccess) cuts.push(...bodyFloor(p, context).cuts);
   const backY = Ri + t;
   cuts.push(
     p.flatBack

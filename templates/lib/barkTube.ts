@@ -14,6 +14,11 @@ export interface BarkTubeOptions {
   segments: number;
   /** Vertical spacing of the mesh rows. */
   rowMm: number;
+  /**
+   * A round blind hole up from the bottom, centred on the axis (a floor's cleaning opening, made here instead of cut:
+   * a cut costs as much as the whole bark mesh). Its points start at angle 0, like the kernel's cylinders.
+   */
+  bottomHole?: { radiusMm: number; depthMm: number; segments: number };
 }
 
 /**
@@ -62,7 +67,12 @@ export function barkTube(options: BarkTubeOptions): Solid {
   for (let g = 0; g < kept.length; g++) if (kept[g]) number[g] = count++;
   const bottom = count;
   const top = count + 1;
-  const positions = new Float32Array((count + 2) * 3);
+  const hole = options.bottomHole;
+  const m = hole?.segments ?? 0;
+  // With a bottom hole: its ring at z = 0 (from `bottom` on), its ring at the hole's depth, then its ceiling's centre.
+  const holeTop = bottom + m;
+  const ceiling = bottom + 2 * m;
+  const positions = new Float32Array((hole ? count + 2 * m + 2 : count + 2) * 3);
   for (let k = 0; k <= rows; k++) {
     const z = (H * k) / rows;
     for (let i = 0; i < n; i++) {
@@ -75,10 +85,22 @@ export function barkTube(options: BarkTubeOptions): Solid {
       positions[at + 2] = z;
     }
   }
-  positions.set([0, 0, 0], bottom * 3);
-  positions.set([0, 0, H], top * 3);
+  if (hole) {
+    for (let j = 0; j < m; j++) {
+      const phi = (2 * Math.PI * j) / m;
+      const x = hole.radiusMm * Math.cos(phi);
+      const y = hole.radiusMm * Math.sin(phi);
+      positions.set([x, y, 0], (bottom + j) * 3);
+      positions.set([x, y, hole.depthMm], (holeTop + j) * 3);
+    }
+    positions.set([0, 0, hole.depthMm], ceiling * 3);
+    positions.set([0, 0, H], (ceiling + 1) * 3);
+  } else {
+    positions.set([0, 0, 0], bottom * 3);
+    positions.set([0, 0, H], top * 3);
+  }
   // Each strip between two columns has (column vertices − 2) triangles on the sides, plus the two end fans.
-  let triangles = 2 * n;
+  let triangles = hole ? 2 * n + 4 * m : 2 * n;
   const columnRows: number[][] = [];
   for (let i = 0; i < n; i++) {
     const rowsKept: number[] = [];
@@ -112,9 +134,28 @@ export function barkTube(options: BarkTubeOptions): Solid {
     }
   }
   const topRow = rows * n;
-  for (let i = 0; i < n; i++) {
-    tri(bottom, number[(i + 1) % n], number[i]);
-    tri(top, number[topRow + i], number[topRow + ((i + 1) % n)]);
+  const topCentre = hole ? ceiling + 1 : top;
+  for (let i = 0; i < n; i++) tri(topCentre, number[topRow + i], number[topRow + ((i + 1) % n)]);
+  if (!hole) {
+    for (let i = 0; i < n; i++) tri(bottom, number[(i + 1) % n], number[i]);
+  } else {
+    // The bottom ring between the bark (n points) and the hole (m points), zipped by angle, facing down.
+    for (let i = 0, j = 0; i < n || j < m;) {
+      if (j === m || (i < n && (i + 1) * m <= (j + 1) * n)) {
+        tri(bottom + (j % m), number[(i + 1) % n], number[i]);
+        i++;
+      } else {
+        tri(bottom + j, bottom + ((j + 1) % m), number[i % n]);
+        j++;
+      }
+    }
+    // The hole's wall, facing the axis, and its flat ceiling, facing down.
+    for (let j = 0; j < m; j++) {
+      const k = (j + 1) % m;
+      tri(bottom + j, holeTop + k, bottom + k);
+      tri(bottom + j, holeTop + j, holeTop + k);
+      tri(ceiling, holeTop + k, holeTop + j);
+    }
   }
   return Solid.fromMesh(positions, indices);
 }
