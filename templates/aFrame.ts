@@ -8,6 +8,7 @@ import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline } from './lib/teardrop';
 import { partMesh } from './lib/partMesh';
 import { backMounting } from './lib/mountingText';
+import { hollowPrismY } from './lib/hollowPrism';
 
 const parameters = z
   .object({
@@ -86,6 +87,8 @@ const PLUG_KEYS = [
   'printClearanceMm',
   'drainageHoles',
 ] as const;
+/** Parameters the landing dowel depends on (it is built at y = 0 and moved to the front wall). */
+const DOWEL_KEYS = ['landingDowelLengthMm'] as const;
 /** Parameters the shell depends on: everything but the entry and the perch. */
 const SHELL_KEYS = [
   ...FRAME_KEYS,
@@ -176,22 +179,24 @@ export const aFrame: Template<typeof parameters> = {
 
 /**
  * Landing dowel: a half-round bar lying flat on the build plate with a domed end, so every face points up or
- * sideways and it prints with the first layers.
+ * sideways and it prints with the first layers. Built at the front wall's outside face (y = 0), reaching to −y.
  */
-function landingDowel(frontY: number, lengthMm: number): Solid {
+function landingDowel(lengthMm: number, context: BuildContext): Solid {
   const radius = 7;
   const halfRound: Outline = [];
-  for (let i = 0; i <= 16; i++) {
-    const angle = (Math.PI * i) / 16;
+  const halfSteps = context.pick(16, 8);
+  for (let i = 0; i <= halfSteps; i++) {
+    const angle = (Math.PI * i) / halfSteps;
     halfRound.push([radius * Math.cos(angle), radius * Math.sin(angle)]);
   }
-  const bar = Solid.prism(halfRound, 'y', frontY - lengthMm, frontY + 1);
+  const bar = Solid.prism(halfRound, 'y', -lengthMm, 1);
   const quarter: Outline = [[0, 0]];
-  for (let i = 0; i <= 8; i++) {
-    const angle = (Math.PI / 2) * (i / 8);
-    quarter.push([i === 8 ? 0 : radius * Math.cos(angle), radius * Math.sin(angle)]);
+  const quarterSteps = context.pick(8, 4);
+  for (let i = 0; i <= quarterSteps; i++) {
+    const angle = (Math.PI / 2) * (i / quarterSteps);
+    quarter.push([i === quarterSteps ? 0 : radius * Math.cos(angle), radius * Math.sin(angle)]);
   }
-  const dome = Solid.revolve(quarter, 32).translate(0, frontY - lengthMm, 0);
+  const dome = Solid.revolve(quarter, context.pick(32, 16)).translate(0, -lengthMm, 0);
   return bar.add(dome);
 }
 
@@ -237,8 +242,8 @@ function ventSlotCount(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number] | 'vent
   return 0;
 }
 
-/** The floor's cleaning opening and plug, or its drainage holes. */
-function aFrameFloor(p: Pick<AFrameParams, (typeof PLUG_KEYS)[number]>, context: BuildContext) {
+/** The floor's cleaning opening and plug (unless only the cuts are wanted), or its drainage holes. */
+function aFrameFloor(p: Pick<AFrameParams, (typeof PLUG_KEYS)[number]>, context: BuildContext, withPlug = true) {
   return floorOpening({
     openingDiameterMm: Math.min(p.floorWidthMm, p.floorDepthMm) - 40,
     floorThicknessMm: p.wallThicknessMm,
@@ -247,6 +252,8 @@ function aFrameFloor(p: Pick<AFrameParams, (typeof PLUG_KEYS)[number]>, context:
     clearanceMm: p.printClearanceMm,
     drainageHoles: p.drainageHoles,
     segments: context.pick(64, 24),
+    draft: context.draft,
+    withPlug,
   });
 }
 
@@ -269,7 +276,15 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
     [-W / 2, innerZ(W / 2)],
   ];
   const additions: Solid[] = [];
-  const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+  // A draft builds the walls round the closed cavity as one mesh; a full build keeps its boolean (same bytes as
+  // before).
+  const walls = context.draft
+    ? hollowPrismY(
+        { outline: bodyOutline, fromYMm: frontY, toYMm: backY },
+        { outline: cavityOutline, fromYMm: -D / 2, toYMm: D / 2 },
+      )
+    : Solid.prism(bodyOutline, 'y', frontY, backY);
+  const cuts: Solid[] = context.draft ? [] : [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
 
   // Ventilation slots in a row in the back gable, as many as fit below the slopes.
   const slots = ventSlotCount(p);
@@ -304,7 +319,12 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
     );
   }
 
-  if (p.landingDowel) additions.push(landingDowel(frontY, p.landingDowelLengthMm));
+  if (p.landingDowel)
+    additions.push(
+      context
+        .reuse('landing-dowel', p, DOWEL_KEYS, (q) => landingDowel(q.landingDowelLengthMm, context))
+        .translate(0, frontY, 0),
+    );
 
   if (p.trimStyle === 'shingles') {
     additions.push(
@@ -330,8 +350,6 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
       if (top > 10) cuts.push(Solid.prism(groove, 'z', 2, top));
     }
   }
-  cuts.push(...aFrameFloor(p, context).cuts);
-  return Solid.prism(bodyOutline, 'y', frontY, backY)
-    .add(...additions)
-    .subtract(...cuts);
+  cuts.push(...aFrameFloor(p, context, false).cuts);
+  return walls.add(...additions).subtract(...cuts);
 }

@@ -17,13 +17,17 @@ export interface FloorOpeningOptions {
   drainageHoles: number;
   /** Segments round the opening and the plug (64 unless a draft asks for fewer). */
   segments?: number;
+  /** Draft: coarser drainage holes and a plug built with fewer booleans (see {@link floorPlug}). */
+  draft?: boolean;
+  /** False when only the cuts are wanted: the plug is then not built at all. */
+  withPlug?: boolean;
 }
 
 /** The cuts a floor needs and the plug that fills its opening, if any. */
 export interface FloorOpening {
   /** Solids to subtract from the body. */
   cuts: Solid[];
-  /** The cleaning plug, centred on the origin and resting on z = 0; undefined without cleaning access. */
+  /** The cleaning plug, centred on the origin and resting on z = 0; undefined without cleaning access or `withPlug`. */
   plug: Solid | undefined;
 }
 
@@ -38,19 +42,23 @@ export function floorOpening(options: FloorOpeningOptions): FloorOpening {
   if (options.cleaningAccess) {
     return {
       cuts: [Solid.cylinder(floorThicknessMm + 2, openingDiameterMm / 2, segments).translate(0, 0, floorBottomZMm - 1)],
-      plug: floorPlug({
-        openingDiameterMm,
-        seatThicknessMm: floorThicknessMm,
-        clearanceMm: options.clearanceMm,
-        drainageHoles,
-        segments,
-      }),
+      plug:
+        options.withPlug === false
+          ? undefined
+          : floorPlug({
+              openingDiameterMm,
+              seatThicknessMm: floorThicknessMm,
+              clearanceMm: options.clearanceMm,
+              drainageHoles,
+              segments,
+              ...(options.draft ? { holeSegments: 8, revolved: true } : {}),
+            }),
     };
   }
   const ring = openingDiameterMm / 2 - 12;
   const cuts = Array.from({ length: drainageHoles }, (_, i) => {
     const angle = (2 * Math.PI * (i + 0.5)) / drainageHoles;
-    return Solid.cylinder(floorThicknessMm + 2, 3, 16).translate(
+    return Solid.cylinder(floorThicknessMm + 2, 3, options.draft ? 8 : 16).translate(
       ring * Math.cos(angle),
       ring * Math.sin(angle),
       floorBottomZMm - 1,
