@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Template } from './types';
 import { commonParameters } from './lib/commonParameters';
 import { floorOpening } from './lib/floorOpening';
-import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
+import { shingleOutlines, shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
 import { BuildContext } from './lib/BuildContext';
 import { Solid, type Outline } from './lib/Solid';
 import { slotAreaMm2, slotOutline, teardropOutline } from './lib/teardrop';
@@ -276,15 +276,13 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
     [-W / 2, innerZ(W / 2)],
   ];
   const additions: Solid[] = [];
-  // A draft builds the walls round the closed cavity as one mesh; a full build keeps its boolean (same bytes as
-  // before).
-  const walls = context.draft
-    ? hollowPrismY(
-        { outline: bodyOutline, fromYMm: frontY, toYMm: backY },
-        { outline: cavityOutline, fromYMm: -D / 2, toYMm: D / 2 },
-      )
-    : Solid.prism(bodyOutline, 'y', frontY, backY);
-  const cuts: Solid[] = context.draft ? [] : [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+  const cuts: Solid[] = [];
+  // A full build joins and cuts prisms with 3D booleans. A draft joins the sections of every prism that runs the
+  // whole length (body, crest, shingle slabs, less the hanging hole) in 2D and builds the walls round the closed
+  // cavity as one mesh: the same shape with far fewer booleans (full builds keep theirs, and their hashes).
+  const sectionOutlines: Outline[] = [bodyOutline];
+  const sectionHoles: Outline[] = [];
+  if (!context.draft) cuts.push(Solid.prism(cavityOutline, 'y', -D / 2, D / 2));
 
   // Ventilation slots in a row in the back gable, as many as fit below the slopes.
   const slots = ventSlotCount(p);
@@ -309,14 +307,19 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
       [0, outerApexZ + 2 + crestHalf * tan],
       [-crestHalf, outerApexZ + 2],
     ];
-    additions.push(Solid.prism(crest, 'y', frontY, backY));
-    cuts.push(
-      Solid.prism(teardropOutline(HANGING_HOLE_MM, context.pick(16, 8)), 'y', frontY - 1, backY + 1).translate(
-        0,
-        0,
-        outerApexZ + 1,
-      ),
-    );
+    const tunnel = teardropOutline(HANGING_HOLE_MM, context.pick(16, 8)).map(([u, v]): [number, number] => [
+      u,
+      v + outerApexZ + 1,
+    ]);
+    if (context.draft) {
+      sectionOutlines.push(crest);
+      sectionHoles.push(tunnel);
+    } else {
+      additions.push(Solid.prism(crest, 'y', frontY, backY));
+      cuts.push(
+        Solid.prism(teardropOutline(HANGING_HOLE_MM, 16), 'y', frontY - 1, backY + 1).translate(0, 0, outerApexZ + 1),
+      );
+    }
   }
 
   if (p.landingDowel)
@@ -327,17 +330,17 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
     );
 
   if (p.trimStyle === 'shingles') {
-    additions.push(
-      ...shingleRows({
-        fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
-        toXMm: Wo / 2,
-        outerZ,
-        pitchDeg: p.roofPitchDeg,
-        fromYMm: frontY,
-        toYMm: backY,
-        slabs: context.draft,
-      }),
-    );
+    const rows = {
+      fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
+      toXMm: Wo / 2,
+      outerZ,
+      pitchDeg: p.roofPitchDeg,
+      fromYMm: frontY,
+      toYMm: backY,
+      slabs: context.draft,
+    };
+    if (context.draft) sectionOutlines.push(...shingleOutlines(rows));
+    else additions.push(...shingleRows(rows));
   }
   if (p.trimStyle === 'boards') {
     for (let x = -Wo / 2 + 15; x <= Wo / 2 - 15 + 1e-9; x += 15) {
@@ -351,5 +354,11 @@ function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context
     }
   }
   cuts.push(...aFrameFloor(p, context, false).cuts);
+  const walls = context.draft
+    ? hollowPrismY(
+        { outlines: sectionOutlines, holes: sectionHoles, fromYMm: frontY, toYMm: backY },
+        { outline: cavityOutline, fromYMm: -D / 2, toYMm: D / 2 },
+      )
+    : Solid.prism(bodyOutline, 'y', frontY, backY);
   return walls.add(...additions).subtract(...cuts);
 }

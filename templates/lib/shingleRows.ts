@@ -27,8 +27,17 @@ export interface ShingleRowsOptions {
  * @param options - placement of the rows
  */
 export function shingleRows(options: ShingleRowsOptions): Solid[] {
+  return shingleOutlines(options).map((plate) => Solid.prism(plate, 'y', options.fromYMm, options.toYMm));
+}
+
+/**
+ * The cross-sections of {@link shingleRows} in the (x, z) plane, two per row (one each side), for callers that
+ * join them with other sections in 2D before extruding.
+ * @param options - placement of the rows
+ */
+export function shingleOutlines(options: ShingleRowsOptions): Outline[] {
   const rise = SHINGLE_PROUD_MM / Math.cos((options.pitchDeg * Math.PI) / 180);
-  const rows: Solid[] = [];
+  const plates: Outline[] = [];
   let x0 = options.fromXMm;
   while (x0 + 4 < options.toXMm) {
     const x1 = options.slabs ? options.toXMm : Math.min(x0 + ROW_MM, options.toXMm);
@@ -39,11 +48,8 @@ export function shingleRows(options: ShingleRowsOptions): Solid[] {
       [x0, options.outerZ(x0) + rise],
     ];
     const mirrored = plate.map(([u, v]): [number, number] => [-u, v]).reverse();
-    rows.push(
-      Solid.prism(plate, 'y', options.fromYMm, options.toYMm),
-      Solid.prism(mirrored, 'y', options.fromYMm, options.toYMm),
-    );
+    plates.push(plate, mirrored);
     x0 = x1 + GAP_MM;
   }
-  return rows;
+  return plates;
 }
