@@ -13,12 +13,25 @@ interface JsonSchemaField {
   help?: string;
 }
 
+/** Descriptions already read, by template: a schema never changes, and parseParams asks at every build. */
+const described = new WeakMap<AnyTemplate, ParameterDescription[]>();
+
 /**
  * Lists a template's parameters as plain JSON for the editor, the API and the CLI, read from the zod schema
- * (ranges, defaults, options) and each field's `.meta()` (label, unit, step, help).
+ * (ranges, defaults, options) and each field's `.meta()` (label, unit, step, help). The schema is read once per
+ * template; every call gets its own copies, so a caller may change them.
  * @param template - the template whose parameters to describe
  */
 export function describeParameters(template: AnyTemplate): ParameterDescription[] {
+  let list = described.get(template);
+  if (!list) {
+    list = readParameters(template);
+    described.set(template, list);
+  }
+  return list.map((param) => (param.options ? { ...param, options: [...param.options] } : { ...param }));
+}
+
+function readParameters(template: AnyTemplate): ParameterDescription[] {
   const json = z.toJSONSchema(template.parameters, { io: 'input' }) as {
     properties?: Record<string, JsonSchemaField>;
   };
