@@ -124,7 +124,7 @@ export const gableBox: Template<typeof parameters> = {
     // parseParams has checked the entry against gableFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + tipBelow;
     const hole = Solid.prism(
-      teardropOutline(p.entryHoleDiameterMm, context.pick(HOLE_SEGMENTS, 16), false),
+      teardropOutline(p.entryHoleDiameterMm, context.pick(HOLE_SEGMENTS, 12), false),
       'y',
       frontY - 1,
       -D / 2 + 1,
@@ -135,7 +135,7 @@ export const gableBox: Template<typeof parameters> = {
       const perchZ = holeCentreZ - tipBelow - 18;
       features.push(
         Solid.prism(
-          teardropOutline(10, context.pick(24, 12), true, Math.SQRT2),
+          teardropOutline(10, context.pick(24, 8), true, Math.SQRT2),
           'y',
           frontY - 30,
           frontY + 1,
@@ -287,7 +287,7 @@ function gablePlug(p: Pick<GableParams, (typeof PLUG_KEYS)[number]>, context: Bu
   const c = p.printClearanceMm;
   return Solid.box([Wo, D + 2 * t, t], [-Wo / 2, -D / 2 - t, 0])
     .add(Solid.box([W - 2 * c, D - 2 * c, PLUG_BOSS_MM + 0.01], [-W / 2 + c, -D / 2 + c, t - 0.01]))
-    .subtract(...drainHoles(W, D, p.drainageHoles, t + PLUG_BOSS_MM, context.pick(16, 8)));
+    .subtract(...drainHoles(W, D, p.drainageHoles, t + PLUG_BOSS_MM, context.pick(16, 6)));
 }
 
 /** Walls, roof and trim less the cavity, vents and hanging hole, upright (floor at z = 0, entry side −y). */
