@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { Color } from 'three';
 import {
   meshToBufferGeometry,
+  updateBufferGeometry,
   OVERHANG_MILD_HEX,
   OVERHANG_STEEP_HEX,
   overhangRgb,
@@ -119,6 +120,35 @@ describe('meshToBufferGeometry', () => {
     expect(css.get('--nw-slate')).toBe(OVERHANG_MILD_HEX);
     expect(css.get('--nw-rust')).toBe(OVERHANG_STEEP_HEX);
     expect(overlay).toMatch(/\.swatch--overhang \{[^}]*linear-gradient\(90deg, var\(--nw-slate\), var\(--nw-rust\)\)/);
+  });
+
+  it('writes a smaller mesh into a geometry with room in place: drawn and uploaded only as far as it reaches', () => {
+    // The 10 mm cube in room for 30 triangles, then three faces of a 5 mm cube moved to x = 20 (analytic bounds).
+    const big = meshToBufferGeometry(cube(), null, {}, 30);
+    const position = big.getAttribute('position');
+    expect(position.count).toBe(90);
+    expect(big.drawRange.count).toBe(36);
+    const small = cube();
+    for (let i = 0; i < small.positions.length; i += 3) {
+      small.positions[i] = small.positions[i] / 2 + 20;
+      small.positions[i + 1] /= 2;
+      small.positions[i + 2] /= 2;
+    }
+    const firstArray = position.array;
+    // Half the cube's triangles (the bottom, top and front faces): 6 triangles, fewer than before.
+    const half = { positions: small.positions, indices: small.indices.slice(0, 18) };
+    expect(updateBufferGeometry(big, half)).toBe(true);
+    expect(big.getAttribute('position').array).toBe(firstArray);
+    expect(big.drawRange.count).toBe(18);
+    expect(position.updateRanges).toEqual([{ start: 0, count: 54 }]);
+    // Bounds of the drawn triangles only (the old cube's vertices beyond the range do not count).
+    expect(big.boundingBox!.min.toArray()).toEqual([20, 0, 0]);
+    expect(big.boundingBox!.max.toArray()).toEqual([25, 5, 5]);
+    expect(big.boundingSphere!.radius).toBeCloseTo(Math.sqrt(3 * 2.5 * 2.5), 6);
+    // A mesh larger than the room is refused and nothing changes.
+    const many = { positions: small.positions, indices: new Uint32Array(31 * 3) };
+    expect(updateBufferGeometry(big, many)).toBe(false);
+    expect(big.drawRange.count).toBe(18);
   });
 
   it('ignores a mask whose length does not match the triangle count', () => {

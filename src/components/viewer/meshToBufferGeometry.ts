@@ -1,4 +1,4 @@
-import { BufferAttribute, BufferGeometry, Color } from 'three';
+import { Box3, BufferAttribute, BufferGeometry, Color, Sphere, Vector3 } from 'three';
 import type { IndexedMesh } from '../../../shared/schemas/mesh';
 import { PALETTE } from '../../styles/palette';
 
@@ -55,32 +55,42 @@ interface FlatArrays {
  * @param mesh - the neutral indexed mesh in millimetres
  * @param overhangMask - optional per-triangle flag (1 = overhang beyond the self-supporting angle)
  * @param options - surface colour and overhang threshold
+ * @param capacityTriangles - room for at least this many triangles (only the mesh's are drawn), so a later mesh of
+ *   up to that size is written in place by {@link updateBufferGeometry}
  */
 export function meshToBufferGeometry(
   mesh: IndexedMesh,
   overhangMask?: Uint8Array | null,
   options: MeshColourOptions = {},
+  capacityTriangles = 0,
 ): BufferGeometry {
-  const size = mesh.indices.length * 3;
+  const size = Math.max(mesh.indices.length, capacityTriangles * 3) * 3;
   const arrays = { positions: new Float32Array(size), normals: new Float32Array(size), colors: new Float32Array(size) };
   writeFlatShaded(mesh, overhangMask, options, arrays);
   const geometry = new BufferGeometry();
   geometry.setAttribute('position', new BufferAttribute(arrays.positions, 3));
   geometry.setAttribute('normal', new BufferAttribute(arrays.normals, 3));
   geometry.setAttribute('color', new BufferAttribute(arrays.colors, 3));
-  geometry.computeBoundingBox();
-  geometry.computeBoundingSphere();
+  geometry.setDrawRange(0, mesh.indices.length);
+  setBounds(geometry, arrays.positions, mesh.indices.length);
   return geometry;
 }
 
+/** Triangles a geometry made by {@link meshToBufferGeometry} has room for. */
+export function geometryCapacityTriangles(geometry: BufferGeometry): number {
+  const position = geometry.getAttribute('position');
+  return position ? position.count / 3 : 0;
+}
+
 /**
- * Rewrites a geometry made by {@link meshToBufferGeometry} for a new mesh with the same number of triangles, in
- * place (the GPU buffers are updated, not reallocated), as while a slider moves a hole.
+ * Rewrites a geometry made by {@link meshToBufferGeometry} for a new mesh that fits in its buffers, in place: only
+ * the part holding the new triangles is sent to the GPU and drawn (no new buffers, no garbage), as while a slider
+ * moves and the triangle count changes from one draft to the next.
  * @param geometry - the geometry on screen
  * @param mesh - the new mesh
  * @param overhangMask - as for {@link meshToBufferGeometry}
  * @param options - as for {@link meshToBufferGeometry}
- * @returns false (and nothing changed) when the triangle counts differ: build a new geometry then
+ * @returns false (and nothing changed) when the mesh has more triangles than the buffers hold: build a new geometry
  */
 export function updateBufferGeometry(
   geometry: BufferGeometry,
@@ -91,18 +101,39 @@ export function updateBufferGeometry(
   const position = geometry.getAttribute('position');
   const normal = geometry.getAttribute('normal');
   const color = geometry.getAttribute('color');
-  if (!position || !normal || !color || position.array.length !== mesh.indices.length * 3) return false;
+  const used = mesh.indices.length * 3;
+  if (!position || !normal || !color || position.array.length < used) return false;
   writeFlatShaded(mesh, overhangMask, options, {
     positions: position.array as Float32Array,
     normals: normal.array as Float32Array,
     colors: color.array as Float32Array,
   });
-  position.needsUpdate = true;
-  normal.needsUpdate = true;
-  color.needsUpdate = true;
-  geometry.computeBoundingBox();
-  geometry.computeBoundingSphere();
+  for (const attribute of [position, normal, color]) {
+    attribute.clearUpdateRanges();
+    attribute.addUpdateRange(0, used);
+    attribute.needsUpdate = true;
+  }
+  geometry.setDrawRange(0, mesh.indices.length);
+  setBounds(geometry, position.array as Float32Array, mesh.indices.length);
   return true;
+}
+
+/** Bounding box and sphere of the first `vertexCount` vertices (the rest of the buffers is spare room). */
+function setBounds(geometry: BufferGeometry, positions: Float32Array, vertexCount: number): void {
+  const box = (geometry.boundingBox ??= new Box3());
+  box.makeEmpty();
+  const point = new Vector3();
+  for (let i = 0; i < vertexCount * 3; i += 3)
+    box.expandByPoint(point.set(positions[i], positions[i + 1], positions[i + 2]));
+  const sphere = (geometry.boundingSphere ??= new Sphere());
+  box.getCenter(sphere.center);
+  let farthest = 0;
+  for (let i = 0; i < vertexCount * 3; i += 3)
+    farthest = Math.max(
+      farthest,
+      sphere.center.distanceToSquared(point.set(positions[i], positions[i + 1], positions[i + 2])),
+    );
+  sphere.radius = Math.sqrt(farthest);
 }
 
 function writeFlatShaded(
