@@ -167,6 +167,43 @@ describe('useGeometryWorker', () => {
     scope.stop();
   });
 
+  it('sends the next draft only after the frame that shows the last one, and a release at once', () => {
+    vi.useFakeTimers();
+    const frames: FrameRequestCallback[] = [];
+    vi.stubGlobal('requestAnimationFrame', (callback: FrameRequestCallback) => frames.push(callback));
+    const scope = effectScope();
+    const geometry = scope.run(() => useGeometryWorker())!;
+    geometry.request('gable-box', { entryHoleDiameterMm: 30 }, CHOICE, undefined, 'entryHoleDiameterMm', 'draft');
+    const worker = StandInWorker.created[0];
+    worker.answer(meshAnswer(worker.posted[0].requestId, null, 'draft'));
+    expect(geometry.result.value?.quality).toBe('draft');
+    geometry.request('gable-box', { entryHoleDiameterMm: 31 }, CHOICE, undefined, 'entryHoleDiameterMm', 'draft');
+    // The draft on screen is not drawn yet: the next draft waits.
+    expect(worker.posted).toHaveLength(1);
+    // The frame is drawn; the task queued from it runs after the frame: now the next draft goes.
+    frames.shift()!(0);
+    expect(worker.posted).toHaveLength(1);
+    vi.advanceTimersByTime(0);
+    expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([30, 31]);
+
+    // A release (full build) does not wait for the draft's frame.
+    worker.answer(meshAnswer(worker.posted[1].requestId, null, 'draft'));
+    geometry.request('gable-box', { entryHoleDiameterMm: 31 }, CHOICE, undefined, 'entryHoleDiameterMm', 'full');
+    expect(worker.posted.map((r) => r.quality)).toEqual(['draft', 'draft', 'full']);
+
+    // Without a frame (a hidden tab) a waiting draft still goes after 100 ms.
+    worker.answer(meshAnswer(worker.posted[2].requestId, 'e'.repeat(64)));
+    vi.advanceTimersByTime(100);
+    frames.length = 0;
+    geometry.request('gable-box', { entryHoleDiameterMm: 32 }, CHOICE, undefined, 'entryHoleDiameterMm', 'draft');
+    worker.answer(meshAnswer(worker.posted[3].requestId, null, 'draft'));
+    geometry.request('gable-box', { entryHoleDiameterMm: 33 }, CHOICE, undefined, 'entryHoleDiameterMm', 'draft');
+    expect(worker.posted).toHaveLength(4);
+    vi.advanceTimersByTime(100);
+    expect(worker.posted.map((r) => r.params.entryHoleDiameterMm)).toEqual([30, 31, 31, 32, 33]);
+    scope.stop();
+  });
+
   it('shows a parameter error with its field, and clears it on the next good build', () => {
     const scope = effectScope();
     const geometry = scope.run(() => useGeometryWorker())!;

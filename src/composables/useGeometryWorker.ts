@@ -65,6 +65,12 @@ export function useGeometryWorker() {
   let awaitingMesh: number | null = null;
   let queued: GeometryRequest | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
+  /**
+   * A draft just arrived and its frame is not drawn yet: the next draft waits for that frame. With software WebGL the
+   * page's main thread waits for every drawn frame to be read back, and a worker building at the same moment takes
+   * the CPU that read-back needs (2 cores), which turned frames into long tasks during a drag.
+   */
+  let draftFramePending = false;
 
   function start(): Worker {
     const created = new Worker(new URL('../workers/geometry.worker.ts', import.meta.url), { type: 'module' });
@@ -131,8 +137,25 @@ export function useGeometryWorker() {
     }, BUILD_TIME_LIMIT_MS);
   }
 
+  /** Lets the next draft go once the frame after this one has been drawn (or after 100 ms, e.g. a hidden tab). */
+  function holdDraftsForFrame(): void {
+    draftFramePending = true;
+    let released = false;
+    const release = (): void => {
+      if (released) return;
+      released = true;
+      draftFramePending = false;
+      pump();
+    };
+    // A task queued from the animation frame callback runs after that frame's paint and commit.
+    if (typeof requestAnimationFrame === 'function') requestAnimationFrame(() => setTimeout(release, 0));
+    setTimeout(release, 100);
+  }
+
   function pump(): void {
     if (awaitingMesh !== null || !queued) return;
+    // A full build (a release) never waits for the draft's frame.
+    if (draftFramePending && queued.quality === 'draft') return;
     const next = queued;
     queued = null;
     worker ??= start();
@@ -172,7 +195,10 @@ export function useGeometryWorker() {
       if (response.quality === 'full')
         askFigures(response.requestId, response.mesh, response.facts, response.partTriangles);
       // A draft gets no figures: nothing more is owed for it.
-      else busy.value = queued !== null;
+      else {
+        busy.value = queued !== null;
+        holdDraftsForFrame();
+      }
     } else if (response.stage === 'figures' && latest && result.value?.requestId === response.requestId) {
       result.value = {
         ...result.value,
