@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { Color } from 'three';
+import { type BufferAttribute, Color } from 'three';
 import {
   meshToBufferGeometry,
   updateBufferGeometry,
@@ -125,7 +125,7 @@ describe('meshToBufferGeometry', () => {
   it('writes a smaller mesh into a geometry with room in place: drawn and uploaded only as far as it reaches', () => {
     // The 10 mm cube in room for 30 triangles, then three faces of a 5 mm cube moved to x = 20 (analytic bounds).
     const big = meshToBufferGeometry(cube(), null, {}, 30);
-    const position = big.getAttribute('position');
+    const position = big.getAttribute('position') as BufferAttribute;
     expect(position.count).toBe(90);
     expect(big.drawRange.count).toBe(36);
     const small = cube();

@@ -102,7 +102,13 @@ export function updateBufferGeometry(
   const normal = geometry.getAttribute('normal');
   const color = geometry.getAttribute('color');
   const used = mesh.indices.length * 3;
-  if (!position || !normal || !color || position.array.length < used) return false;
+  if (
+    !(position instanceof BufferAttribute) ||
+    !(normal instanceof BufferAttribute) ||
+    !(color instanceof BufferAttribute)
+  )
+    return false;
+  if (position.array.length < used) return false;
   writeFlatShaded(mesh, overhangMask, options, {
     positions: position.array as Float32Array,
     normals: normal.array as Float32Array,
