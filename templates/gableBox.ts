@@ -134,12 +134,11 @@ export const gableBox: Template<typeof parameters> = {
       // the front wall, well short of the cavity.
       const perchZ = holeCentreZ - tipBelow - 18;
       features.push(
-        Solid.prism(
-          teardropOutline(10, context.pick(24, 8), true, Math.SQRT2),
-          'y',
-          frontY - 30,
-          frontY + 1,
-        ).translate(0, 0, perchZ),
+        Solid.prism(teardropOutline(10, context.pick(24, 8), true, Math.SQRT2), 'y', frontY - 30, frontY + 1).translate(
+          0,
+          0,
+          perchZ,
+        ),
       );
     }
     const box = shell
