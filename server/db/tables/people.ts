@@ -11,6 +11,8 @@ import { newId } from '../newId';
 export const studios = pgTable('studios', {
   id: text('id').primaryKey().$defaultFn(newId),
   name: text('name').notNull(),
+  /** BCP 47 tag money and dates are written in (screens and documents), e.g. `en-GB`. */
+  locale: text('locale').notNull().default('en-GB'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });

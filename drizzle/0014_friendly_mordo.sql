@@ -1,0 +1,1 @@
+ALTER TABLE "studios" ADD COLUMN "locale" text DEFAULT 'en-GB' NOT NULL;
