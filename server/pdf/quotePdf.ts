@@ -25,8 +25,9 @@ function ratePct(pct: number): string {
  * Renders a saved quote.
  * @param quote - the quote
  * @param studioName - the studio issuing it
+ * @param locale - the studio's locale (BCP 47) amounts are written in; the current format locale when left out
  */
-export async function renderQuotePdf(quote: Quote, studioName: string): Promise<Buffer> {
+export async function renderQuotePdf(quote: Quote, studioName: string, locale?: string): Promise<Buffer> {
   // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
   const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
@@ -49,7 +50,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string): Promise<
       doc.y + 2,
     );
 
-  const m = (cents: number) => formatMoney(cents, quote.currency);
+  const m = (cents: number) => formatMoney(cents, quote.currency, locale);
   let y = sectionHeading(doc, 'Goods', x, doc.y + 16, CONTENT_WIDTH);
   const head = ['SKU', 'Product', 'Quantity', 'Unit price', 'Line total'];
   const rows = quote.lines.map((line) => [

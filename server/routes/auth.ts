@@ -17,7 +17,7 @@ import { parsedBody, validate } from '../http/validate';
 import { findPersonByEmail, setPassword, toPerson } from '../services/people';
 import { eq } from 'drizzle-orm';
 import { people } from '../db/schema';
-import { getStudioName } from '../services/studio';
+import { getStudio } from '../services/studio';
 
 /** The same answer for an unknown e-mail and a wrong password, so the form does not reveal who has an account. */
 const invalidCredentials = (): HttpError =>
@@ -48,7 +48,8 @@ export function authRouter(ctx: AppContext): Router {
     if (res.locals.sessionId) await ctx.lucia.invalidateSession(res.locals.sessionId as string);
     const session = await ctx.lucia.createSession(row.id, {});
     setSessionCookie(ctx, req, res, session.id);
-    const body: Me = { person: toPerson(row), studioName: await getStudioName(ctx.db) };
+    const studio = await getStudio(ctx.db);
+    const body: Me = { person: toPerson(row), studioName: studio.name, locale: studio.locale };
     res.json(body);
   });
 
@@ -75,7 +76,8 @@ export function authRouter(ctx: AppContext): Router {
   });
 
   router.get('/me', requireAuth, async (_req, res) => {
-    const body: Me = { person: signedInPerson(res), studioName: await getStudioName(ctx.db) };
+    const studio = await getStudio(ctx.db);
+    const body: Me = { person: signedInPerson(res), studioName: studio.name, locale: studio.locale };
     res.json(body);
   });
 

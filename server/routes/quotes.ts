@@ -25,7 +25,7 @@ import { loadPrinters } from '../services/familyProduction';
 import { computeQuote, type QuoteFigures } from '../services/quote';
 import { findQuote, insertQuote, listQuotes, replaceQuote, setQuoteStatus } from '../services/quoteRecords';
 import { getSalesSettings } from '../services/salesSettings';
-import { getStudioName } from '../services/studio';
+import { getStudio } from '../services/studio';
 
 /**
  * Builds the quotes router (mounted at `/api/quotes`); sales and catalogue managers only.
@@ -65,9 +65,10 @@ export function quotesRouter(ctx: AppContext): Router {
   // Before `/:id`, so `<id>.pdf` is not read as an id.
   router.get('/:id.pdf', sellers, idParams, async (_req, res) => {
     const quote = await existing(parsedParams<{ id: string }>(res).id);
+    const studio = await getStudio(ctx.db);
     sendAttachment(
       res,
-      await renderQuotePdf(quote, await getStudioName(ctx.db)),
+      await renderQuotePdf(quote, studio.name, studio.locale),
       'application/pdf',
       `quote-${quote.reference}.pdf`,
     );

@@ -30,7 +30,7 @@ import { openPhoto } from '../services/photoService';
 import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';
 import { openSpecSheet } from '../services/specSheetDocuments';
-import { getStudioName } from '../services/studio';
+import { getStudio } from '../services/studio';
 import { productMeshInWorker } from '../workers/ProductMeshWorker';
 import { sendStoredFile } from '../storage/sendStoredFile';
 
@@ -69,10 +69,11 @@ export function shopRouter(ctx: AppContext): Router {
     },
   });
 
-  // The studio's name for the shop's header (public; it changes rarely, so browsers may keep it a minute).
+  // The studio's name for the shop's header and the locale its prices are written in (public; it changes rarely,
+  // so browsers may keep it a minute).
   router.get('/studio', async (_req, res) => {
     res.set('Cache-Control', 'public, max-age=60');
-    res.json({ name: await getStudioName(ctx.db) });
+    res.json(await getStudio(ctx.db));
   });
 
   // Product answers are cached until the catalogue or the shop settings change, with an ETag and gzip.

@@ -18,16 +18,18 @@ export function customerOrderUrl(row: Pick<OrderRow, 'siteOrigin' | 'customerTok
  * @param state - the state entered
  * @param lines - its lines
  * @param studioName - the studio, signing the mail
+ * @param locale - the studio's locale (BCP 47) amounts are written in; the current format locale when left out
  */
 export function orderMail(
   row: OrderRow,
   state: OrderState,
   lines: OrderLineRow[],
   studioName: string,
+  locale?: string,
 ): OutgoingMail | null {
   const number = formatOrderNumber(row.number);
   const link = customerOrderUrl(row);
-  const money = (minor: number) => formatMoney(minor, row.currency);
+  const money = (minor: number) => formatMoney(minor, row.currency, locale);
   const footer = ['', `Your order page (keep this link private; it needs no account): ${link}`, '', studioName];
   if (state === 'paid') {
     return {

@@ -24,7 +24,7 @@ import { queueMail } from '../mail/queueMail';
 import { fulfilmentOf } from '../farm/farmViews';
 import { recordAudit } from './audit';
 import { orderMail } from './orderMail';
-import { getStudioName } from './studio';
+import { getStudio } from './studio';
 import { runOrderTransitionHooks } from './orderHooks';
 
 /** Who acts on an order: a signed-in person, or null for the customer, the provider or the system. */
@@ -381,7 +381,8 @@ async function moveState(
     details: { from: row.state, to, ...details },
   });
   await runOrderTransitionHooks({ tx, order: updated, from: row.state, to });
-  const mail = orderMail(updated, to, await linesOf(tx, [row.id]), await getStudioName(tx));
+  const studio = await getStudio(tx);
+  const mail = orderMail(updated, to, await linesOf(tx, [row.id]), studio.name, studio.locale);
   if (mail) await queueMail(tx, mail);
   return updated;
 }

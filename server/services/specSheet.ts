@@ -24,6 +24,8 @@ export interface SpecSheetOptions {
   materials: ReadonlyMap<string, Material>;
   /** The studio's name, printed on every page. */
   studioName: string;
+  /** The studio's locale (BCP 47), the price is written in; the current format locale when left out. */
+  locale?: string;
   /** Date printed on the sheet (default now). */
   issuedOn?: Date;
   /** A photo of the sample print (any format sharp reads); a rendered view is used when absent. */
@@ -110,7 +112,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
       : undefined,
     massG: variant.report.massG,
     backFit: backFit(variant.templateId, variant.params, o.widthMm),
-    priceText: `${formatMoney(variant.priceCents, variant.currency)} per unit, before tax and shipping`,
+    priceText: `${formatMoney(variant.priceCents, variant.currency, options.locale)} per unit, before tax and shipping`,
     species,
     sources: sources.map(pdfText),
     box,

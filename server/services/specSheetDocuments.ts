@@ -32,12 +32,12 @@ export async function openSpecSheet(
   issuedOn: Date = new Date(),
 ): Promise<StoredFile> {
   const { settings } = await getSalesSettings(ctx.db);
-  const { studioName, materials } = await documentFacts(ctx.db);
+  const { studioName, locale, materials } = await documentFacts(ctx.db);
   const day = isoDay(issuedOn);
   // Only the materials the variants use are part of what the sheet shows.
   const used = [...new Set(variants.map((v) => v.attributes.material))].sort().map((id) => materials.get(id) ?? id);
   const hash = createHash('sha256')
-    .update(JSON.stringify({ layout: SPEC_SHEET_LAYOUT_VERSION, day, settings, studioName, used, variants }))
+    .update(JSON.stringify({ layout: SPEC_SHEET_LAYOUT_VERSION, day, settings, studioName, locale, used, variants }))
     .digest('hex');
   const key = fileKey('documents', `spec-sheets/${hash}.pdf`);
   const stored = await ctx.files.open(key);
@@ -45,6 +45,7 @@ export async function openSpecSheet(
   const pdf = await renderSpecSheets(variants, {
     settings,
     studioName,
+    locale,
     materials,
     issuedOn,
     photo: await samplePhoto(ctx, variants[0]),

@@ -89,7 +89,10 @@ export const PasswordResetAnswerSchema = z.object({ person: StudioPersonSchema, 
 /** Answer of `POST /api/people/:id/reset-password`. */
 export type PasswordResetAnswer = z.infer<typeof PasswordResetAnswerSchema>;
 
-/** Answer of `GET /api/auth/me` and `POST /api/auth/sign-in`: the person and the name of their studio. */
-export const MeSchema = z.object({ person: PersonSchema, studioName: z.string() });
+/**
+ * Answer of `GET /api/auth/me` and `POST /api/auth/sign-in`: the person, the name of their studio and the locale
+ * (BCP 47 tag) the studio writes figures in.
+ */
+export const MeSchema = z.object({ person: PersonSchema, studioName: z.string(), locale: z.string() });
 /** Answer of `GET /api/auth/me`. */
 export type Me = z.infer<typeof MeSchema>;
