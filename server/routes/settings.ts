@@ -1,10 +1,13 @@
 /**
  * Studio settings, edited on the admin settings screen:
  * - `GET /api/settings/sales` (sales, catalogue managers, admin) and `PUT` (admin): sales settings;
- * - `GET|PUT /api/settings/studio` (admin): the studio's name;
+ * - `GET|PUT /api/settings/studio` (admin): the studio's name and locale (money and dates are written in it);
  * - `GET|PUT /api/settings/production` (admin): print settings and cost rates;
  * - `PUT /api/settings/printers/:id` and `PUT /api/settings/materials/:id` (admin): add or change a printer profile,
- *   or a material with its colours.
+ *   or a material with its colours (a colour a family uses cannot be taken out: 409 in words);
+ * - `DELETE /api/settings/printers/:id` and `DELETE /api/settings/materials/:id` (admin): remove one, refused in
+ *   words (409) while a family uses it or when it is the studio's last one.
+ * Print settings and rates cannot drop a finish a family's variants use (409 in words).
  * Everyone signed in reads printers, materials, settings and rates through `GET /api/production`.
  */
 import { Router } from 'express';
@@ -19,22 +22,32 @@ import {
 import {
   CatalogueIdSchema,
   ProductionSettingsSchema,
-  StudioNameSchema,
+  StudioSchema,
   type ProductionSettings,
-  type StudioName,
+  type StudioUpdate,
 } from '../../shared/schemas/studioSettings';
 import type { AppContext } from '../context';
 import { requireRole, signedInPerson } from '../auth/requireRole';
-import { badRequest } from '../http/HttpError';
+import { badRequest, conflict, notFound } from '../http/HttpError';
 import { parsedBody, parsedParams, validate } from '../http/validate';
 import { getSalesSettings, saveSalesSettings } from '../services/salesSettings';
 import {
+  familiesUsingColours,
+  familiesUsingFinishes,
+  familiesUsingMaterial,
+  familiesUsingPrinter,
+  refuseWhileUsed,
+} from '../services/catalogueReferences';
+import { loadMaterials, loadPrinters } from '../services/familyProduction';
+import {
   loadProductionSettings,
+  removeMaterial,
+  removePrinter,
   saveMaterial,
   saveProductionSettings,
   savePrinter,
 } from '../services/productionCatalogue';
-import { getStudioName, saveStudioName } from '../services/studio';
+import { getStudio, saveStudio } from '../services/studio';
 
 const IdParamsSchema = z.object({ id: CatalogueIdSchema });
 
@@ -55,12 +68,11 @@ export function settingsRouter(ctx: AppContext): Router {
   });
 
   router.get('/studio', admin, async (_req, res) => {
-    res.json({ name: await getStudioName(ctx.db) });
+    res.json(await getStudio(ctx.db));
   });
 
-  router.put('/studio', admin, validate({ body: StudioNameSchema }), async (_req, res) => {
-    const { name } = parsedBody<StudioName>(res);
-    res.json({ name: await saveStudioName(ctx.db, name, signedInPerson(res).id) });
+  router.put('/studio', admin, validate({ body: StudioSchema }), async (_req, res) => {
+    res.json(await saveStudio(ctx.db, parsedBody<StudioUpdate>(res), signedInPerson(res).id));
   });
 
   router.get('/production', admin, async (_req, res) => {
@@ -68,6 +80,12 @@ export function settingsRouter(ctx: AppContext): Router {
   });
 
   router.put('/production', admin, validate({ body: ProductionSettingsSchema }), async (_req, res) => {
+    const input = parsedBody<ProductionSettings>(res);
+    const kept = new Set(input.rates.finishes.map((f) => f.id));
+    const { rates } = await loadProductionSettings(ctx.db);
+    const dropped = rates.finishes.filter((f) => !kept.has(f.id));
+    for (const finish of dropped)
+      refuseWhileUsed(await familiesUsingFinishes(ctx.db, [finish.id]), `The finish “${finish.name}”`, 'taken out');
     res.json(await saveProductionSettings(ctx.db, parsedBody<ProductionSettings>(res), signedInPerson(res).id));
   });
 
@@ -95,8 +113,43 @@ export function settingsRouter(ctx: AppContext): Router {
     const colourIds = material.colours.map((c) => c.id);
     const repeated = colourIds.find((c, i) => colourIds.indexOf(c) !== i);
     if (repeated) throw badRequest(`Two colours share the identifier “${repeated}”: give each colour its own.`);
+    const before = (await loadMaterials(ctx.db)).get(id);
+    const kept = new Set(colourIds);
+    for (const colour of before?.colours.filter((c) => !kept.has(c.id)) ?? [])
+      refuseWhileUsed(
+        await familiesUsingColours(ctx.db, id, [colour.id]),
+        `The colour “${colour.name}” of ${material.name}`,
+        'taken out',
+      );
     const { created } = await saveMaterial(ctx.db, material, signedInPerson(res).id);
     res.status(created ? 201 : 200).json(material);
+  });
+
+  router.delete('/printers/:id', admin, validate({ params: IdParamsSchema }), async (_req, res) => {
+    const { id } = parsedParams<{ id: string }>(res);
+    const printers = await loadPrinters(ctx.db);
+    const printer = printers.get(id);
+    if (!printer) throw notFound('There is no such printer: it may have been removed already.');
+    refuseWhileUsed(await familiesUsingPrinter(ctx.db, id), `The printer “${printer.name}”`);
+    if (printers.size === 1)
+      throw conflict('last_printer', `“${printer.name}” is the studio’s only printer: add another before removing it.`);
+    await removePrinter(ctx.db, id, signedInPerson(res).id);
+    res.status(204).end();
+  });
+
+  router.delete('/materials/:id', admin, validate({ params: IdParamsSchema }), async (_req, res) => {
+    const { id } = parsedParams<{ id: string }>(res);
+    const all = await loadMaterials(ctx.db);
+    const material = all.get(id);
+    if (!material) throw notFound('There is no such material: it may have been removed already.');
+    refuseWhileUsed(await familiesUsingMaterial(ctx.db, id), `The material “${material.name}”`);
+    if (all.size === 1)
+      throw conflict(
+        'last_material',
+        `“${material.name}” is the studio’s only material: add another before removing it.`,
+      );
+    await removeMaterial(ctx.db, id, signedInPerson(res).id);
+    res.status(204).end();
   });
 
   return router;

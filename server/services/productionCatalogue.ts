@@ -124,3 +124,35 @@ export async function saveMaterial(db: Db, material: Material, actorId: string):
   catalogueChanged(db);
   return { created: !existing };
 }
+
+/**
+ * Removes a printer profile. The route checks first that no family uses it and that it is not the last one.
+ * @param db - database
+ * @param id - the printer's identifier
+ * @param actorId - who removed it
+ * @returns whether there was such a printer
+ */
+export async function removePrinter(db: Db, id: string, actorId: string): Promise<boolean> {
+  const removed = await db
+    .delete(printerProfiles)
+    .where(eq(printerProfiles.id, id))
+    .returning({ id: printerProfiles.id });
+  if (removed.length === 0) return false;
+  await recordAudit(db, { actorId, action: 'printer.removed', subject: `printer:${id}` });
+  return true;
+}
+
+/**
+ * Removes a material with its colours. The route checks first that no family uses it and that it is not the last.
+ * @param db - database
+ * @param id - the material's identifier
+ * @param actorId - who removed it
+ * @returns whether there was such a material
+ */
+export async function removeMaterial(db: Db, id: string, actorId: string): Promise<boolean> {
+  const removed = await db.delete(materials).where(eq(materials.id, id)).returning({ id: materials.id });
+  if (removed.length === 0) return false;
+  await recordAudit(db, { actorId, action: 'material.removed', subject: `material:${id}` });
+  catalogueChanged(db);
+  return true;
+}
