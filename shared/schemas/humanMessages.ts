@@ -17,6 +17,13 @@ const FIELD_LABELS: Record<string, string> = {
   hoursPerDay: 'Hours per day',
   copiesPerPlate: 'Copies per plate',
   minQuantity: 'Minimum quantity',
+  vatRatePct: 'VAT rate (%)',
+  line1: 'Address line 1',
+  line2: 'Address line 2',
+  postalCode: 'Postcode',
+  weightBandsKg: 'Weight band (kg)',
+  ratesMinor: 'Price',
+  divisorId: 'Shipping divisor',
 };
 
 const UNIT_WORDS: [RegExp, string][] = [

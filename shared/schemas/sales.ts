@@ -34,21 +34,39 @@ export type QuantityBreak = z.infer<typeof QuantityBreakSchema>;
  * (currency, VAT, shipping zones × weight bands; defaults for settings saved before the shop existed) and the
  * workshop address planned runs are delivered to.
  */
-export const SalesSettingsSchema = z.object({
-  dimDivisors: z.array(DimDivisorSchema).min(1).max(20),
-  packaging: PackagingRulesSchema,
-  farm: FarmSettingsSchema,
-  /** Ascending by quantity; the largest break at or below the quantity applies. */
-  quantityBreaks: z
-    .array(QuantityBreakSchema)
-    .max(10)
-    .refine((breaks) => breaks.every((b, i) => i === 0 || b.minQuantity > breaks[i - 1].minQuantity), {
-      message: 'List the quantity breaks from the smallest quantity to the largest.',
-    }),
-  shop: ShopSettingsSchema.default(DEFAULT_SHOP_SETTINGS),
-  /** Where the farm delivers planned runs (the studio's workshop); a default for settings saved before it existed. */
-  workshopAddress: FarmAddressSchema.default(DEFAULT_WORKSHOP_ADDRESS),
-});
+export const SalesSettingsSchema = z
+  .object({
+    dimDivisors: z.array(DimDivisorSchema).min(1).max(20),
+    packaging: PackagingRulesSchema,
+    farm: FarmSettingsSchema,
+    /** Ascending by quantity; the largest break at or below the quantity applies. */
+    quantityBreaks: z
+      .array(QuantityBreakSchema)
+      .max(10)
+      .refine((breaks) => breaks.every((b, i) => i === 0 || b.minQuantity > breaks[i - 1].minQuantity), {
+        message: 'List the quantity breaks from the smallest quantity to the largest.',
+      }),
+    shop: ShopSettingsSchema.default(DEFAULT_SHOP_SETTINGS),
+    /** Where the farm delivers planned runs (the studio's workshop); a default for settings saved before it existed. */
+    workshopAddress: FarmAddressSchema.default(DEFAULT_WORKSHOP_ADDRESS),
+  })
+  .superRefine((settings, ctx) => {
+    const ids = settings.dimDivisors.map((d) => d.id);
+    const repeated = ids.findIndex((id, i) => ids.indexOf(id) !== i);
+    if (repeated >= 0)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['dimDivisors', repeated, 'id'],
+        message: `Two shipping divisors share the identifier “${ids[repeated]}”: give each its own.`,
+      });
+    if (!ids.includes(settings.shop.shipping.divisorId))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['shop', 'shipping', 'divisorId'],
+        message:
+          'The shop’s shipping table needs one of the shipping divisors: choose one, or keep the divisor it uses.',
+      });
+  });
 /** Sales settings (see {@link SalesSettingsSchema}). */
 export type SalesSettings = z.infer<typeof SalesSettingsSchema>;
 
