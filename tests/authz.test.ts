@@ -336,7 +336,12 @@ const ROUTES: AuthzRow[] = [
   { method: 'put', route: '/api/settings/sales', allowed: ['admin'], body: DEFAULT_SALES_SETTINGS },
   // Studio settings (admin): the studio's name, print settings and rates, printers, materials with their colours.
   { method: 'get', route: '/api/settings/studio', allowed: ['admin'] },
-  { method: 'put', route: '/api/settings/studio', allowed: ['admin'], body: { name: 'Fernhollow Studio' } },
+  {
+    method: 'put',
+    route: '/api/settings/studio',
+    allowed: ['admin'],
+    body: { name: 'Fernhollow Studio', locale: 'en-GB' },
+  },
   { method: 'get', route: '/api/settings/production', allowed: ['admin'] },
   {
     method: 'put',
@@ -358,6 +363,9 @@ const ROUTES: AuthzRow[] = [
     allowed: ['admin'],
     body: DEFAULT_MATERIALS[0],
   },
+  // Removing: each call gets a printer or material of its own that no family uses, so the admin's call succeeds.
+  { method: 'delete', route: '/api/settings/printers/:id', path: spareProfilePath('printers'), allowed: ['admin'] },
+  { method: 'delete', route: '/api/settings/materials/:id', path: spareProfilePath('materials'), allowed: ['admin'] },
   // Production catalogue: the design editor's printers, materials, settings and rates (anyone signed in).
   { method: 'get', route: '/api/production', allowed: 'signed-in' },
   // Print farm: notices (public, signed: an unsigned call is 400 for everyone), exceptions (operations), demand and
@@ -530,6 +538,19 @@ const photo = oncePerApp(async (t) => {
   if (res.status !== 201) throw new Error(`Could not upload a photo: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.photo as { id: string };
 });
+
+/** A printer or material no family uses, added by the admin for one call; its settings path. */
+function spareProfilePath(kind: 'printers' | 'materials'): (t: TestApp) => Promise<string> {
+  let count = 0;
+  return async (t) => {
+    count += 1;
+    const base = kind === 'printers' ? DEFAULT_PRINTERS[0] : DEFAULT_MATERIALS[0];
+    const id = `spare-${kind}-${count}`;
+    const res = await (await t.agent('admin')).put(`/api/settings/${kind}/${id}`).send({ ...base, id, name: id });
+    if (res.status !== 201) throw new Error(`Could not add a spare profile: ${res.status} ${JSON.stringify(res.body)}`);
+    return `/api/settings/${kind}/${id}`;
+  };
+}
 
 async function draftFamilyPath(t: TestApp): Promise<string> {
   return `/api/families/${(await draftFamily(t)).id}`;

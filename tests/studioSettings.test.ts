@@ -26,11 +26,11 @@ describe('studio name', () => {
 
     const saved = await admin.put('/api/settings/studio').send({ name: '  Wrenfield Nest Works ' });
     expect(saved.status).toBe(200);
-    expect(saved.body).toEqual({ name: 'Wrenfield Nest Works' });
+    expect(saved.body).toEqual({ name: 'Wrenfield Nest Works', locale: 'en-GB' });
     expect((await designer.get('/api/auth/me')).body.studioName).toBe('Wrenfield Nest Works');
     expect((await admin.get('/api/settings/studio')).body.name).toBe('Wrenfield Nest Works');
     const shop = await (await t.agent(null)).get('/api/shop/studio');
-    expect(shop.body).toEqual({ name: 'Wrenfield Nest Works' });
+    expect(shop.body).toEqual({ name: 'Wrenfield Nest Works', locale: 'en-GB' });
 
     const empty = await admin.put('/api/settings/studio').send({ name: '   ' });
     expect(empty.status).toBe(400);
