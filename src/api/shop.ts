@@ -12,12 +12,12 @@ import {
   type ShopQuote,
   type ShopQuoteRequest,
 } from '../../shared/schemas/shop';
+import { StudioFactsSchema, type StudioFacts } from '../../shared/schemas/studioFacts';
 import { api } from './client';
-import { z } from 'zod';
 
-/** The studio's name, for the shop's header. */
-export async function getShopStudioName(): Promise<string> {
-  return (await api('/shop/studio', { schema: z.object({ name: z.string() }) })).name;
+/** The studio's name, for the shop's header, and the locale its prices are written in. */
+export function getShopStudio(): Promise<StudioFacts> {
+  return api('/shop/studio', { schema: StudioFactsSchema });
 }
 
 /**

@@ -2,6 +2,7 @@ import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 import type { Role } from '../../shared/schemas/auth';
 import { roleGuard } from './roleGuard';
 import { shopRoutes } from './shopRoutes';
+import { loadShopStudio } from '../components/shop/shopStudio';
 import { useSessionStore } from '../stores/session';
 
 declare module 'vue-router' {
@@ -202,6 +203,10 @@ export const router = createRouter({
 });
 
 router.beforeEach(roleGuard);
+// The shop writes prices in the studio's locale: learn it before the first shop screen (the answer is kept).
+router.beforeEach(async (to) => {
+  if (to.meta.shop) await loadShopStudio();
+});
 router.afterEach((to) => {
   document.title = to.meta.title ? `${to.meta.title} · Nestwright` : 'Nestwright';
 });

@@ -2,6 +2,7 @@ import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import type { Person, Role, SignIn } from '../../shared/schemas/auth';
 import * as authApi from '../api/auth';
+import { DEFAULT_LOCALE, setFormatLocale } from '../../shared/format/locale';
 import { ApiError } from '../api/client';
 
 /** The signed-in person and their roles; loads `/api/auth/me` once per page load. */
@@ -9,6 +10,8 @@ export const useSessionStore = defineStore('session', () => {
   const person = ref<Person | null>(null);
   /** The studio's name (from the database), shown in the app's header. */
   const studioName = ref('');
+  /** The locale (BCP 47) the studio writes money and dates in; the formatters use it once it is known. */
+  const locale = ref(DEFAULT_LOCALE);
   let loading: Promise<void> | null = null;
   const loaded = ref(false);
 
@@ -29,7 +32,7 @@ export const useSessionStore = defineStore('session', () => {
       .fetchMe()
       .then((me) => {
         person.value = me.person;
-        studioName.value = me.studioName;
+        setStudio({ name: me.studioName, locale: me.locale });
       })
       .catch((err: unknown) => {
         if (err instanceof ApiError && err.status === 401) person.value = null;
@@ -51,7 +54,7 @@ export const useSessionStore = defineStore('session', () => {
   async function signIn(credentials: SignIn): Promise<void> {
     const me = await authApi.signIn(credentials);
     person.value = me.person;
-    studioName.value = me.studioName;
+    setStudio({ name: me.studioName, locale: me.locale });
     loading = Promise.resolve();
     loaded.value = true;
   }
@@ -73,12 +76,15 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   /**
-   * Shows a new studio name at once after an admin renamed the studio.
-   * @param name - the saved name
+   * Takes the studio's name and locale (from the server, or at once after an admin changed them): the header shows
+   * the name, and every formatter writes figures in the locale from the next render on.
+   * @param studio - the studio's name and locale
    */
-  function setStudioName(name: string): void {
-    studioName.value = name;
+  function setStudio(studio: { name: string; locale: string }): void {
+    studioName.value = studio.name;
+    locale.value = studio.locale;
+    setFormatLocale(studio.locale);
   }
 
-  return { person, studioName, setStudioName, roles, signedIn, loaded, hasRole, load, signIn, signOut, forget };
+  return { person, studioName, locale, setStudio, roles, signedIn, loaded, hasRole, load, signIn, signOut, forget };
 });
