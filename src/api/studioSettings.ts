@@ -1,4 +1,4 @@
-/** The admin settings screen's API: studio name, print settings and rates, printers and materials. */
+/** The admin settings screen's API: studio name and locale, print settings and rates, printers and materials. */
 import { z } from 'zod';
 import {
   MaterialSchema,
@@ -10,21 +10,31 @@ import {
   StoredProductionSettingsSchema,
   type ProductionSettings,
   type StoredProductionSettings,
+  type StudioUpdate,
 } from '../../shared/schemas/studioSettings';
+import { StudioFactsSchema, type StudioFacts } from '../../shared/schemas/studioFacts';
 import { api } from './client';
 import { StoredSalesSettingsSchema } from './sales';
 import type { SalesSettings } from '../../shared/schemas/sales';
 
-const NameSchema = z.object({ name: z.string() });
-
-/** The studio's name. */
-export async function getStudioName(): Promise<string> {
-  return (await api('/settings/studio', { schema: NameSchema })).name;
+/** The studio's name and locale. */
+export function getStudio(): Promise<StudioFacts> {
+  return api('/settings/studio', { schema: StudioFactsSchema });
 }
 
-/** Saves the studio's name. @param name - the new name */
-export async function saveStudioName(name: string): Promise<string> {
-  return (await api('/settings/studio', { method: 'PUT', body: { name }, schema: NameSchema })).name;
+/** Saves the studio's name and locale. @param studio - the new name and locale */
+export function saveStudio(studio: StudioUpdate): Promise<StudioFacts> {
+  return api('/settings/studio', { method: 'PUT', body: studio, schema: StudioFactsSchema });
+}
+
+/** Removes a printer profile (refused with 409 while a family uses it). @param id - its identifier */
+export async function removePrinter(id: string): Promise<void> {
+  await api(`/settings/printers/${encodeURIComponent(id)}`, { method: 'DELETE', schema: z.unknown() });
+}
+
+/** Removes a material with its colours (refused with 409 while a family uses it). @param id - its identifier */
+export async function removeMaterial(id: string): Promise<void> {
+  await api(`/settings/materials/${encodeURIComponent(id)}`, { method: 'DELETE', schema: z.unknown() });
 }
 
 /** The studio's print settings and cost rates. */

@@ -1,6 +1,9 @@
 /** The numeric fields the admin settings screen shows, with labels people read and the inputs' limits. */
 import type { NumberField } from './NumberFields.vue';
 
+/** The value the profile picker holds while a new printer or material is being written. */
+export const NEW_PROFILE = '__new__';
+
 /** Print settings. */
 export const PRINT_SETTING_FIELDS: readonly NumberField[] = [
   { key: 'perimeters', label: 'Perimeters', min: 1, max: 20 },
