@@ -27,7 +27,7 @@ afterEach(() => {
 
 describe('api()', () => {
   it('sends JSON with same-origin credentials under /api and returns the answer parsed by the schema', async () => {
-    const calls = stubFetch(() => json(200, { person: PERSON, studioName: 'Fernhollow Studio' }));
+    const calls = stubFetch(() => json(200, { person: PERSON, studioName: 'Fernhollow Studio', locale: 'en-GB' }));
     const me = await api('/auth/sign-in', {
       method: 'POST',
       body: { email: 'a@b.test', password: 'x' },
@@ -81,7 +81,9 @@ describe('api()', () => {
     const otherShape = (await api('/health').catch((e: unknown) => e)) as ApiError;
     expect([otherShape.status, otherShape.code]).toEqual([500, 'http_error']);
 
-    stubFetch(() => json(200, { person: { ...PERSON, roles: ['gardener'] }, studioName: 'Fernhollow Studio' }));
+    stubFetch(() =>
+      json(200, { person: { ...PERSON, roles: ['gardener'] }, studioName: 'Fernhollow Studio', locale: 'en-GB' }),
+    );
     const badAnswer = (await api('/auth/me', { schema: MeSchema }).catch((e: unknown) => e)) as ApiError;
     expect([badAnswer.status, badAnswer.code]).toEqual([200, 'bad_response']);
   });

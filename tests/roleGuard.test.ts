@@ -19,7 +19,7 @@ const ROUTES: RouteRecordRaw[] = [
 function stubMe(person: Person | null): void {
   vi.stubGlobal('fetch', async () =>
     person
-      ? new Response(JSON.stringify({ person, studioName: 'Fernhollow Studio' }), { status: 200 })
+      ? new Response(JSON.stringify({ person, studioName: 'Fernhollow Studio', locale: 'en-GB' }), { status: 200 })
       : new Response(JSON.stringify({ error: { code: 'unauthorized', message: 'Sign in first.' } }), { status: 401 }),
   );
 }
