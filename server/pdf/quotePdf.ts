@@ -25,7 +25,7 @@ function ratePct(pct: number): string {
  * Renders a saved quote.
  * @param quote - the quote
  * @param studioName - the studio issuing it
- * @param locale - the studio's locale (BCP 47) amounts are written in; the current format locale when left out
+ * @param locale - the studio's locale (BCP 47) amounts and dates are written in; the current format locale when left out
  */
 export async function renderQuotePdf(quote: Quote, studioName: string, locale?: string): Promise<Buffer> {
   // Loaded on first use: the package takes a noticeable part of the server's start-up to load.
@@ -45,7 +45,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string, locale?: 
     .fontSize(10)
     .fillColor(INK.muted)
     .text(
-      `For ${quote.customerName} · issued ${formatDate(quote.createdAt)} · valid until ${formatDate(quote.validUntil)}`,
+      `For ${quote.customerName} · issued ${formatDate(quote.createdAt, locale)} · valid until ${formatDate(quote.validUntil, locale)}`,
       x,
       doc.y + 2,
     );
@@ -106,11 +106,11 @@ export async function renderQuotePdf(quote: Quote, studioName: string, locale?: 
   y = keyValueRows(
     doc,
     [
-      ['Requested delivery', formatDate(quote.deliveryDate)],
+      ['Requested delivery', formatDate(quote.deliveryDate, locale)],
       // Dates only: the farm's production plan stays on the studio's own quote screen.
       [
         'Earliest delivery',
-        `${formatDate(quote.earliestDeliveryDate)} (${quote.farm.leadTimeDays} days from the quote date)`,
+        `${formatDate(quote.earliestDeliveryDate, locale)} (${quote.farm.leadTimeDays} days from the quote date)`,
       ],
       [
         'Can we meet the date?',
@@ -118,7 +118,7 @@ export async function renderQuotePdf(quote: Quote, studioName: string, locale?: 
           ? 'Yes: the earliest delivery is on or before the requested date.'
           : 'Not by the requested date: we can deliver from the earliest date above, or split the order.',
       ],
-      ['Prices valid until', formatDate(quote.validUntil)],
+      ['Prices valid until', formatDate(quote.validUntil, locale)],
     ],
     x,
     y,

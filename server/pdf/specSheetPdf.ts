@@ -37,6 +37,8 @@ export interface SpecSheetOutdoor {
 /** Everything one spec sheet shows, gathered by the spec-sheet service. */
 export interface SpecSheetInput {
   studioName: string;
+  /** The studio's locale (BCP 47) the issue date is written in; the current format locale when left out. */
+  locale?: string;
   sku: string;
   productName: string;
   familyName: string;
@@ -98,7 +100,7 @@ export async function renderSpecSheetsPdf(sheets: SpecSheetInput[]): Promise<Buf
   }
   pageFooters(
     doc,
-    `${first.studioName} · figures are estimates from the design; confirm with a test print · issued ${formatDate(first.issuedOn)}`,
+    `${first.studioName} · figures are estimates from the design; confirm with a test print · issued ${formatDate(first.issuedOn, first.locale)}`,
   );
   return pdfToBuffer(doc);
 }

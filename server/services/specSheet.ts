@@ -24,7 +24,7 @@ export interface SpecSheetOptions {
   materials: ReadonlyMap<string, Material>;
   /** The studio's name, printed on every page. */
   studioName: string;
-  /** The studio's locale (BCP 47), the price is written in; the current format locale when left out. */
+  /** The studio's locale (BCP 47) the price and dates are written in; the current format locale when left out. */
   locale?: string;
   /** Date printed on the sheet (default now). */
   issuedOn?: Date;
@@ -86,6 +86,7 @@ export async function specSheetInput(variant: CatalogueVariant, options: SpecShe
 
   return {
     studioName: options.studioName,
+    locale: options.locale,
     sku: variant.sku,
     productName: productName(variant),
     familyName: variant.family.name,
