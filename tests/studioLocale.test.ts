@@ -5,7 +5,8 @@
  * - a printer, a material, a colour or a finish a family uses cannot be removed (409 in words naming the family);
  *   one no family uses is removed;
  * - the sales settings' divisors, quantity breaks, shop and workshop address are saved, and refused in words.
- * Expected amounts are written by hand from Unicode CLDR locale data (Unicode Consortium, CLDR 44, 2023): German
+ * Expected amounts are written by hand from Unicode CLDR locale data (Unicode Consortium; the release the runtime's
+ * ICU carries): German
  * "#,##0.00 ¤" with "." grouping, "," decimals and a no-break space before the sign; French with a narrow no-break
  * space grouping; British English "¤#,##0.00". Access rules and the refusals are our own product decisions.
  */

@@ -6,7 +6,8 @@
  * WCAG 2.x A/AA violation at 1440 and 390 px. Screenshots at 1440, 1024 and 390 px go to /tmp/nestwright-e2e/settings.
  * source: Web Content Accessibility Guidelines (WCAG) 2.2, W3C, 2023; axe-core rule impacts, Deque Systems, 2024.
  * The German amount pattern ("1.234,50 €": "." grouping, "," decimals, no-break space before the sign) is from
- * Unicode CLDR locale data (Unicode Consortium, CLDR 44, 2023). Access rules and the VAT limit are the product's own.
+ * Unicode CLDR locale data (Unicode Consortium; the release the runtime's ICU carries). Access rules and the VAT
+ * limit are the product's own.
  */
 import { mkdirSync } from 'node:fs';
 import AxeBuilder from '@axe-core/playwright';
