@@ -28,7 +28,7 @@ import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';
 import { box, geomToMesh, toBinaryStl } from './meshFixtures';
 import { paymentsOf } from '../server/payments/paymentRuntime';
-import { getRow } from '../server/services/orderService';
+import { getRow } from '../server/services/orderQueries';
 import { checkoutBody, newShopOrder, sellableSkus, startShopTest, type ShopTest } from './shopFixtures';
 import { listShopProducts } from '../server/services/shopCatalogue';
 

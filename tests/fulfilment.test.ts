@@ -13,7 +13,7 @@ import { NOTICE_SIGNATURE_HEADER, NOTICE_TIMESTAMP_HEADER, signNotice } from '..
 import { FarmEnvSchema } from '../server/farm/farmEnv';
 import type { FarmRuntime } from '../server/farm/farmRuntime';
 import { startFulfilment } from '../server/farm/startFulfilment';
-import { get as getOrder } from '../server/services/orderService';
+import { get as getOrder } from '../server/services/orderQueries';
 import type { ShipTo } from '../shared/schemas/shop';
 import type { OrderFulfilment } from '../shared/schemas/fulfilment';
 import { makeTestApp, type TestApp } from './setup/testApp';

@@ -10,15 +10,9 @@ import type { ShopQuote } from '../shared/schemas/shop';
 import { mailOutbox } from '../server/db/schema';
 import { HttpError } from '../server/http/HttpError';
 import { onOrderTransition } from '../server/services/orderHooks';
-import {
-  clearPaymentFlag,
-  createFromCheckout,
-  get,
-  getForCustomer,
-  list,
-  markPaid,
-  transition,
-} from '../server/services/orderService';
+import { clearPaymentFlag, createFromCheckout, markPaid } from '../server/services/orderService';
+import { get, getForCustomer, list } from '../server/services/orderQueries';
+import { transition } from '../server/services/orderTransitions';
 import { makeTestApp, type TestApp } from './setup/testApp';
 
 const QUOTE: ShopQuote = {

@@ -13,7 +13,7 @@ import { auditEvents, mailOutbox, orders, paymentEvents } from '../server/db/sch
 import { fakeClient, setPaymentRuntime, startPayments } from '../server/payments/paymentRuntime';
 import { PaymentEnvSchema } from '../server/payments/paymentEnv';
 import { expireAbandonedCheckouts } from '../server/services/checkoutService';
-import { getRow } from '../server/services/orderService';
+import { getRow } from '../server/services/orderQueries';
 import { productMesh } from '../server/services/specSheetMesh';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import type { ShopProduct, ShopProductList } from '../shared/schemas/shop';

@@ -6,7 +6,8 @@ import { PaymentEnvSchema } from '../server/payments/paymentEnv';
 import { startPayments, stopPayments, type PaymentRuntime } from '../server/payments/paymentRuntime';
 import { startCheckout } from '../server/services/checkoutService';
 import { getShopProduct, listShopProducts } from '../server/services/shopCatalogue';
-import { markPaid, getRow } from '../server/services/orderService';
+import { markPaid } from '../server/services/orderService';
+import { getRow } from '../server/services/orderQueries';
 import type { CheckoutRequest } from '../shared/schemas/shop';
 import type { TestApp } from './setup/testApp';
 

@@ -17,7 +17,7 @@ import { startFarm, stopFarm, type FarmRuntime } from '../server/farm/farmRuntim
 import type { JobRun } from '../server/jobs/JobQueue';
 import { expireCheckoutsJob } from '../server/payments/expireCheckoutsJob';
 import { hasPayments, paymentsOf, stopPayments } from '../server/payments/paymentRuntime';
-import { getRow } from '../server/services/orderService';
+import { getRow } from '../server/services/orderQueries';
 import { startShopServices } from '../server/services/shopServices';
 import { checkoutBody, newShopOrder, sellableSkus } from './shopFixtures';
 import { makeTestApp, type TestApp } from './setup/testApp';

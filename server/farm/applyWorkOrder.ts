@@ -10,7 +10,8 @@ import type { DispatchStatus } from '../../shared/schemas/fulfilment';
 import type { AppContext } from '../context';
 import { farmDispatches, orders, type FarmDispatchRow } from '../db/schema';
 import { recordAudit } from '../services/audit';
-import { subjectOf, transition } from '../services/orderService';
+import { subjectOf } from '../services/orderQueries';
+import { transition } from '../services/orderTransitions';
 
 const STAGE_RANK: Record<WorkOrderStage, number> = {
   accepted: 0,

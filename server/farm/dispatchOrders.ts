@@ -12,7 +12,7 @@ import type { Queryable } from '../db/client';
 import { familyVariants, farmDispatches, farmRuns, orderLines, orders, type FarmDispatchRow } from '../db/schema';
 import { recordAudit } from '../services/audit';
 import { onOrderTransition } from '../services/orderHooks';
-import { subjectOf } from '../services/orderService';
+import { subjectOf } from '../services/orderQueries';
 import { getSalesSettings } from '../services/salesSettings';
 import { applyWorkOrder } from './applyWorkOrder';
 import { FarmError } from './FarmClient';

@@ -9,7 +9,7 @@ import type { AppContext } from '../context';
 import { farmDispatches, orders, type FarmDispatchRow } from '../db/schema';
 import { conflict, HttpError, notFound } from '../http/HttpError';
 import { recordAudit } from '../services/audit';
-import { subjectOf } from '../services/orderService';
+import { subjectOf } from '../services/orderQueries';
 import { dispatchKey } from './dispatchOrders';
 import { FarmError } from './FarmClient';
 import { farmRuntime } from './farmRuntime';

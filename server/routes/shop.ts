@@ -25,7 +25,7 @@ import { DbRateLimitStore } from '../auth/DbRateLimitStore';
 import { loadPaymentEnv } from '../payments/paymentEnv';
 import { getVariantBySku } from '../services/catalogue';
 import { quoteCart, startCheckout } from '../services/checkoutService';
-import { getForCustomer } from '../services/orderService';
+import { getForCustomer } from '../services/orderQueries';
 import { openPhoto } from '../services/photoService';
 import { answerKey, cachedCatalogueAnswer, sendCachedAnswer } from '../services/catalogueCache';
 import { getShopProduct, isShopPhoto, listShopProducts } from '../services/shopCatalogue';

@@ -15,15 +15,9 @@ import { orders, paymentEvents } from '../db/schema';
 import { badRequest, conflict, HttpError, fieldProblem } from '../http/HttpError';
 import { kickMail } from './mailService';
 import { paymentsOf } from '../payments/paymentRuntime';
-import {
-  assertTransition,
-  createFromCheckout,
-  expiredUnpaid,
-  getRow,
-  markPaid,
-  transition,
-  type OrderActor,
-} from './orderService';
+import { createFromCheckout, markPaid } from './orderService';
+import { expiredUnpaid, getRow } from './orderQueries';
+import { assertTransition, transition, type OrderActor } from './orderTransitions';
 import { sellableVariants } from './shopCatalogue';
 
 /** 503 for a provider that cannot be reached or fails on its side; nothing was written. */
