@@ -8,7 +8,7 @@ import { PUBLISH_POLICY, publishBlockers, publishRefusal, studioReason } from '.
 import { GateWarningCodeSchema, type GateWarning } from '../shared/schemas/gate';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
-import { variantCautions } from '../server/services/specSheet';
+import { variantCautions } from '../server/services/specSheetCautions';
 import { DEFAULT_MATERIALS } from '../shared/production/defaults';
 
 /** The seed materials, as a new database holds them. */

@@ -13,7 +13,7 @@ import { generate } from '../templates/generate';
 import { computeDesignFigures } from '../src/workers/computeDesignFigures';
 import { computeVariantGeometry } from '../server/jobs/variantGeometry';
 import { evaluateVariant } from '../server/jobs/evaluateVariant';
-import { variantCautions } from '../server/services/specSheet';
+import { variantCautions } from '../server/services/specSheetCautions';
 
 const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
 /** The seed materials, as a new database holds them. */

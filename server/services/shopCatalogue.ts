@@ -27,7 +27,8 @@ import type { AppContext } from '../context';
 import { listCatalogueVariants } from './catalogue';
 import { cachedCatalogueValue } from './catalogueCache';
 import { getSalesSettings } from './salesSettings';
-import { backFit, productName, variantCautions } from './specSheet';
+import { backFit, productName } from './specSheet';
+import { variantCautions } from './specSheetCautions';
 import { inches, writtenDecimals } from '../../shared/format';
 
 /**
