@@ -173,6 +173,21 @@ export async function linesOf(db: Pick<Queryable, 'select'>, orderIds: string[])
 }
 
 /**
+ * What an order keeps of a line (and shows of it): SKU, name, mesh hash, quantity, unit price and line total.
+ * @param line - a priced cart line or a stored order line
+ */
+export function orderLineOf(line: Order['lines'][number]): Order['lines'][number] {
+  return {
+    sku: line.sku,
+    productName: line.productName,
+    meshSha256: line.meshSha256,
+    quantity: line.quantity,
+    unitPriceMinor: line.unitPriceMinor,
+    lineTotalMinor: line.lineTotalMinor,
+  };
+}
+
+/**
  * An order row and its lines as the API shows them.
  * @param row - the order row
  * @param lines - lines of this and maybe other orders (filtered here)
@@ -185,16 +200,7 @@ export function toOrder(row: OrderRow, lines: OrderLineRow[]): Order {
     email: row.email,
     shipTo: row.shipTo,
     currency: row.currency,
-    lines: lines
-      .filter((line) => line.orderId === row.id)
-      .map((line) => ({
-        sku: line.sku,
-        productName: line.productName,
-        meshSha256: line.meshSha256,
-        quantity: line.quantity,
-        unitPriceMinor: line.unitPriceMinor,
-        lineTotalMinor: line.lineTotalMinor,
-      })),
+    lines: lines.filter((line) => line.orderId === row.id).map(orderLineOf),
     subtotalMinor: row.subtotalMinor,
     shippingMinor: row.shippingMinor,
     vatMinor: row.vatMinor,

@@ -11,7 +11,7 @@ import type { Db } from '../db/client';
 import { orderLines, orders } from '../db/schema';
 import { conflict } from '../http/HttpError';
 import { recordAudit } from './audit';
-import { linesOf, subjectOf, toOrder } from './orderQueries';
+import { linesOf, orderLineOf, subjectOf, toOrder } from './orderQueries';
 import { assertTransition, lockOrder, moveState, type OrderActor } from './orderTransitions';
 
 /** What {@link createFromCheckout} needs: the priced cart (computed on the server) and the provider's session. */
@@ -58,12 +58,7 @@ export async function createFromCheckout(db: Db, input: NewOrder): Promise<Order
         input.quote.lines.map((line, position) => ({
           orderId: row.id,
           position,
-          sku: line.sku,
-          productName: line.productName,
-          meshSha256: line.meshSha256,
-          quantity: line.quantity,
-          unitPriceMinor: line.unitPriceMinor,
-          lineTotalMinor: line.lineTotalMinor,
+          ...orderLineOf(line),
         })),
       )
       .returning();
