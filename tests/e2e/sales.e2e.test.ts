@@ -121,7 +121,7 @@ describe('sales in the browser', () => {
 
     // Sent, then copied into a new draft with a new reference.
     await page.getByTestId('quote-mark-sent').click();
-    await expect(page.getByTestId('quote-status').textContent()).resolves.toMatch(/Sent/);
+    await page.getByTestId('quote-status').filter({ hasText: 'Sent' }).waitFor();
     await page.getByTestId('quote-copy').click();
     await page.getByText('copied from').waitFor();
     const copyRef = ((await page.getByTestId('quote-reference').textContent()) ?? '').replace('Quote ', '').trim();
