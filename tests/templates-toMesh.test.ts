@@ -52,6 +52,33 @@ describe('toMesh', () => {
     expect(() => assertClosedManifold(doubled)).toThrow(MeshValidationError);
   });
 
+  it('names the faults it finds: a missing triangle, a doubled one, one wound the wrong way', async () => {
+    await loadKernel();
+    const closed = scoped(() => toMesh([{ name: 'body', mesh: partMesh(Solid.box([10, 10, 10])) }]));
+    // Common practice (edge counting on a closed, consistently wound triangle mesh): removing one triangle leaves
+    // its 3 edges without their reverse.
+    const open = { positions: closed.positions, indices: closed.indices.slice(3) };
+    expect(() => assertClosedManifold(open)).toThrow('3 open or non-manifold edges, 0 edges used twice');
+    // A triangle added twice: its 3 edges occur twice in one direction, and each of their 3 reverses has two
+    // partners (non-manifold).
+    const doubled = {
+      positions: closed.positions,
+      indices: new Uint32Array([...closed.indices, ...closed.indices.slice(0, 3)]),
+    };
+    expect(() => assertClosedManifold(doubled)).toThrow('3 open or non-manifold edges, 3 edges used twice');
+    // One triangle turned over: each of its 3 edges now runs the same way as its neighbour's, so 3 edges occur
+    // twice in one direction and 3 directed edges (the turned triangle's own) have no reverse.
+    const turned = closed.indices.slice();
+    [turned[1], turned[2]] = [turned[2], turned[1]];
+    expect(() => assertClosedManifold({ positions: closed.positions, indices: turned })).toThrow(MeshValidationError);
+    // The same mesh numbered from the other end passes: the check does not depend on vertex order.
+    const reversedNumbering = closed.indices.map((v) => closed.positions.length / 3 - 1 - v);
+    const reversedPositions = new Float32Array(closed.positions.length);
+    for (let v = 0; v < closed.positions.length / 3; v++)
+      reversedPositions.set(closed.positions.subarray(v * 3, v * 3 + 3), (closed.positions.length / 3 - 1 - v) * 3);
+    expect(() => assertClosedManifold({ positions: reversedPositions, indices: reversedNumbering })).not.toThrow();
+  });
+
   it.each(TEMPLATES.map((t) => [t.id, t] as const))(
     '%s: each part mesh is the weld of its own triangles (numbering by first use)',
     async (_id, template) => {
