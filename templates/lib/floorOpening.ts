@@ -1,5 +1,6 @@
 import { floorPlug } from './floorPlug';
-import { Solid } from './Solid';
+import { Solid, type Outline } from './Solid';
+import { circleOutline } from './meshBuilder';
 
 /** Where the floor is and what goes through it. */
 export interface FloorOpeningOptions {
@@ -51,7 +52,7 @@ export function floorOpening(options: FloorOpeningOptions): FloorOpening {
               clearanceMm: options.clearanceMm,
               drainageHoles,
               segments,
-              ...(options.draft ? { holeSegments: 8, revolved: true } : {}),
+              ...(options.draft ? { holeSegments: 8, direct: true } : {}),
             }),
     };
   }
@@ -65,4 +66,19 @@ export function floorOpening(options: FloorOpeningOptions): FloorOpening {
     );
   });
   return { cuts, plug: undefined };
+}
+
+/**
+ * The holes {@link floorOpening} cuts, as outlines in the (x, y) plane (counter-clockwise), for drafts that build the
+ * floor with its holes as one mesh: the cleaning opening, or the ring of drainage holes.
+ * @param options - as for {@link floorOpening} (the plug is not built)
+ */
+export function floorOpeningOutlines(options: FloorOpeningOptions): Outline[] {
+  const segments = options.segments ?? 64;
+  if (options.cleaningAccess) return [circleOutline(options.openingDiameterMm / 2, segments)];
+  const ring = options.openingDiameterMm / 2 - 12;
+  return Array.from({ length: options.drainageHoles }, (_, i) => {
+    const angle = (2 * Math.PI * (i + 0.5)) / options.drainageHoles;
+    return circleOutline(3, options.draft ? 8 : 16, [ring * Math.cos(angle), ring * Math.sin(angle)]);
+  });
 }
