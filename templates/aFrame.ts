@@ -4,9 +4,12 @@ import { Solid } from './lib/Solid';
 import { slotAreaMm2, teardropOutline } from './lib/teardrop';
 import { partMesh } from './lib/partMesh';
 import { backMounting } from './lib/mountingText';
-import { parameters, PLUG_KEYS, SHELL_KEYS } from './aFrameParameters';
+import { parameters, PLUG_KEYS, SHELL_KEYS, type AFrameParams } from './aFrameParameters';
+import { aFrameDraftBody } from './aFrameDraft';
 import {
   aFrameFloor,
+  entryCentreZ,
+  perch,
   aFrameFrame,
   aFrameMaxHoleAboveFloorMm,
   aFrameShell,
@@ -37,34 +40,8 @@ export const aFrame: Template<typeof parameters> = {
     };
   },
   build(p, context = new BuildContext('full')) {
-    const { t, W, D, floorZ, apexZ, Wo, frontY } = aFrameFrame(p);
-
-    // The shell (walls, crest, dowel, trim, vents, floor) does not depend on the entry or the perch.
-    const shell = context.reuse('shell', p, SHELL_KEYS, (q) => aFrameShell(q, context));
-    // Entry: keep a 3 mm rim between the hole and the sloped walls.
-    const r = p.entryHoleDiameterMm / 2;
-    // parseParams has checked the entry against aFrameMaxHoleAboveFloorMm, so the hole sits exactly where asked.
-    const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
-    const hole = Solid.prism(
-      teardropOutline(p.entryHoleDiameterMm, context.pick(HOLE_SEGMENTS, 16)),
-      'y',
-      frontY - 1,
-      -D / 2 + 1,
-    ).translate(0, 0, holeCentreZ);
-    const features: Solid[] = [];
-    if (p.perch) {
-      // Tip down: the dowel's V underside prints without support. It ends 1 mm into the front wall.
-      const perchZ = holeCentreZ - r - 18;
-      features.push(
-        Solid.prism(
-          teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
-          'y',
-          frontY - 30,
-          frontY + 1,
-        ).translate(0, 0, perchZ),
-      );
-    }
-    const body = shell.add(...features).subtract(hole);
+    const { t, W, D, floorZ, apexZ, Wo } = aFrameFrame(p);
+    const body = context.draft ? aFrameDraftBody(p, context) : aFrameFullBody(p, context);
     const plugDiameterMm = Math.min(W, D) - 40;
     const plug = p.cleaningAccess
       ? context
@@ -92,3 +69,16 @@ export const aFrame: Template<typeof parameters> = {
     };
   },
 };
+
+/** The full build's body: the reused shell (it does not depend on the entry or the perch), with the perch, less the entry. */
+function aFrameFullBody(p: AFrameParams, context: BuildContext): Solid {
+  const { D, frontY } = aFrameFrame(p);
+  const shell = context.reuse('shell', p, SHELL_KEYS, (q) => aFrameShell(q, context));
+  const hole = Solid.prism(
+    teardropOutline(p.entryHoleDiameterMm, HOLE_SEGMENTS),
+    'y',
+    frontY - 1,
+    -D / 2 + 1,
+  ).translate(0, 0, entryCentreZ(p));
+  return shell.add(...(p.perch ? [perch(p, context)] : [])).subtract(hole);
+}

@@ -5,10 +5,9 @@
  */
 import type { BuildContext } from './lib/BuildContext';
 import { floorOpening } from './lib/floorOpening';
-import { shingleOutlines, shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
+import { shingleRows, SHINGLE_PROUD_MM } from './lib/shingleRows';
 import { Solid, type Outline } from './lib/Solid';
 import { slotOutline, teardropOutline } from './lib/teardrop';
-import { hollowPrismY } from './lib/hollowPrism';
 import { DOWEL_KEYS, type AFrameParams, type FRAME_KEYS, type PLUG_KEYS, type SHELL_KEYS } from './aFrameParameters';
 
 export const SLOT_WIDTH_MM = 6;
@@ -96,9 +95,12 @@ export function aFrameFloor(p: Pick<AFrameParams, (typeof PLUG_KEYS)[number]>, c
   });
 }
 
-/** The body less the entry and perch: walls, crest, landing dowel and trim, less cavity, vents and floor opening. */
-export function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
-  const { W, D, pitch, tan, floorZ, apexZ, innerZ, outerZ, Wo, frontY, backY, outerApexZ } = aFrameFrame(p);
+/** The outside section of the walls and the inside section of the cavity, in (x, z); both counter-clockwise. */
+export function aFrameSections(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number]>): {
+  bodyOutline: Outline;
+  cavityOutline: Outline;
+} {
+  const { W, floorZ, apexZ, innerZ, outerZ, Wo, outerApexZ } = aFrameFrame(p);
   const bodyOutline: Outline = [
     [-Wo / 2, 0],
     [Wo / 2, 0],
@@ -114,90 +116,120 @@ export function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, 
     [0, apexZ],
     [-W / 2, innerZ(W / 2)],
   ];
-  const additions: Solid[] = [];
-  const cuts: Solid[] = [];
-  // A full build joins and cuts prisms with 3D booleans. A draft joins the sections of every prism that runs the
-  // whole length (body, crest, shingle slabs, less the hanging hole) in 2D and builds the walls round the closed
-  // cavity as one mesh: the same shape with far fewer booleans (full builds keep theirs, and their hashes).
-  const sectionOutlines: Outline[] = [bodyOutline];
-  const sectionHoles: Outline[] = [];
-  if (!context.draft) cuts.push(Solid.prism(cavityOutline, 'y', -D / 2, D / 2));
+  return { bodyOutline, cavityOutline };
+}
 
-  // Ventilation slots in a row in the back gable, as many as fit below the slopes.
+/** The ventilation slots in a row in the back gable, as many as fit below the slopes, as outlines in (x, z). */
+export function ventSlotOutlines(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number] | 'ventilationSlots'>): Outline[] {
+  const { apexZ, tan } = aFrameFrame(p);
   const slots = ventSlotCount(p);
   const rowHalf = (slots * (SLOT_WIDTH_MM + 8)) / 2;
   const topZ = apexZ - (rowHalf + 4) * tan;
-  for (let i = 0; i < slots; i++) {
+  return Array.from({ length: slots }, (_, i) => {
     const x = -rowHalf + (i + 0.5) * (SLOT_WIDTH_MM + 8);
-    const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
+    return slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [
       u + x,
       v + topZ - SLOT_LENGTH_MM / 2,
     ]);
-    cuts.push(Solid.prism(slot, 'y', D / 2 - 1, backY + 1));
-  }
+  });
+}
 
-  if (p.hangingHole) {
-    // A crest along the apex carries a wire tunnel front to back.
-    const crestHalf = HANGING_HOLE_MM + 3;
-    const crest: Outline = [
-      [-crestHalf, outerApexZ - crestHalf * tan - 1],
-      [crestHalf, outerApexZ - crestHalf * tan - 1],
-      [crestHalf, outerApexZ + 2],
-      [0, outerApexZ + 2 + crestHalf * tan],
-      [-crestHalf, outerApexZ + 2],
+/** The crest along the apex that carries the hanging wire's tunnel, in (x, z), and the tunnel's centre height. */
+export function crestOutline(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number]>): {
+  crest: Outline;
+  tunnelZ: number;
+  tunnelDiameterMm: number;
+} {
+  const { tan, outerApexZ } = aFrameFrame(p);
+  const crestHalf = HANGING_HOLE_MM + 3;
+  const crest: Outline = [
+    [-crestHalf, outerApexZ - crestHalf * tan - 1],
+    [crestHalf, outerApexZ - crestHalf * tan - 1],
+    [crestHalf, outerApexZ + 2],
+    [0, outerApexZ + 2 + crestHalf * tan],
+    [-crestHalf, outerApexZ + 2],
+  ];
+  return { crest, tunnelZ: outerApexZ + 1, tunnelDiameterMm: HANGING_HOLE_MM };
+}
+
+/** The shingle rows (or, for a draft, one slab per slope) on both slopes. */
+export function shingleOptions(
+  p: Pick<AFrameParams, (typeof FRAME_KEYS)[number]>,
+  slabs: boolean,
+): Parameters<typeof shingleRows>[0] {
+  const { pitch, outerZ, Wo, frontY, backY } = aFrameFrame(p);
+  return {
+    fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
+    toXMm: Wo / 2,
+    outerZ,
+    pitchDeg: p.roofPitchDeg,
+    fromYMm: frontY,
+    toYMm: backY,
+    slabs,
+  };
+}
+
+/** Board grooves cut into the front, each a vertical V-shaped prism. */
+export function boardGrooves(p: Pick<AFrameParams, (typeof FRAME_KEYS)[number]>): Solid[] {
+  const { apexZ, innerZ, Wo, frontY } = aFrameFrame(p);
+  const cuts: Solid[] = [];
+  for (let x = -Wo / 2 + 15; x <= Wo / 2 - 15 + 1e-9; x += 15) {
+    const groove: Outline = [
+      [x - 1.2, frontY - 1],
+      [x + 1.2, frontY - 1],
+      [x, frontY + 1.2],
     ];
-    const tunnel = teardropOutline(HANGING_HOLE_MM, context.pick(16, 8)).map(([u, v]): [number, number] => [
-      u,
-      v + outerApexZ + 1,
-    ]);
-    if (context.draft) {
-      sectionOutlines.push(crest);
-      sectionHoles.push(tunnel);
-    } else {
-      additions.push(Solid.prism(crest, 'y', frontY, backY));
-      cuts.push(
-        Solid.prism(teardropOutline(HANGING_HOLE_MM, 16), 'y', frontY - 1, backY + 1).translate(0, 0, outerApexZ + 1),
-      );
-    }
+    const top = Math.min(innerZ(Math.abs(x) + 1.2), apexZ) - 1;
+    if (top > 10) cuts.push(Solid.prism(groove, 'z', 2, top));
   }
+  return cuts;
+}
 
-  if (p.landingDowel)
-    additions.push(
-      context
-        .reuse('landing-dowel', p, DOWEL_KEYS, (q) => landingDowel(q.landingDowelLengthMm, context))
-        .translate(0, frontY, 0),
-    );
+/** The entry's height: parseParams has checked it against the highest allowed, so the hole sits exactly where asked. */
+export function entryCentreZ(p: Pick<AFrameParams, 'wallThicknessMm' | 'holeAboveFloorMm' | 'entryHoleDiameterMm'>) {
+  return p.wallThicknessMm + p.holeAboveFloorMm + p.entryHoleDiameterMm / 2;
+}
 
-  if (p.trimStyle === 'shingles') {
-    const rows = {
-      fromXMm: SHINGLE_PROUD_MM / Math.sin(pitch) + 1,
-      toXMm: Wo / 2,
-      outerZ,
-      pitchDeg: p.roofPitchDeg,
-      fromYMm: frontY,
-      toYMm: backY,
-      slabs: context.draft,
-    };
-    if (context.draft) sectionOutlines.push(...shingleOutlines(rows));
-    else additions.push(...shingleRows(rows));
+/** The perch under the entry: tip down, so its V underside prints without support; it ends 1 mm into the front wall. */
+export function perch(p: AFrameParams, context: BuildContext): Solid {
+  const { frontY } = aFrameFrame(p);
+  const perchZ = entryCentreZ(p) - p.entryHoleDiameterMm / 2 - 18;
+  return Solid.prism(
+    teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
+    'y',
+    frontY - 30,
+    frontY + 1,
+  ).translate(0, 0, perchZ);
+}
+
+/** The landing dowel, reused across moves of other parameters, at the front wall. */
+export function placedDowel(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const { frontY } = aFrameFrame(p);
+  return context
+    .reuse('landing-dowel', p, DOWEL_KEYS, (q) => landingDowel(q.landingDowelLengthMm, context))
+    .translate(0, frontY, 0);
+}
+
+/**
+ * The full build's body less the entry and perch: walls, crest, landing dowel and trim, less cavity, vents and floor
+ * opening, joined and cut with 3D booleans (drafts build theirs as one mesh, `aFrameDraft.ts`).
+ */
+export function aFrameShell(p: Pick<AFrameParams, (typeof SHELL_KEYS)[number]>, context: BuildContext): Solid {
+  const { D, frontY, backY } = aFrameFrame(p);
+  const { bodyOutline, cavityOutline } = aFrameSections(p);
+  const additions: Solid[] = [];
+  const cuts: Solid[] = [Solid.prism(cavityOutline, 'y', -D / 2, D / 2)];
+  for (const slot of ventSlotOutlines(p)) cuts.push(Solid.prism(slot, 'y', D / 2 - 1, backY + 1));
+  if (p.hangingHole) {
+    const { crest, tunnelZ, tunnelDiameterMm } = crestOutline(p);
+    additions.push(Solid.prism(crest, 'y', frontY, backY));
+    cuts.push(Solid.prism(teardropOutline(tunnelDiameterMm, 16), 'y', frontY - 1, backY + 1).translate(0, 0, tunnelZ));
   }
-  if (p.trimStyle === 'boards') {
-    for (let x = -Wo / 2 + 15; x <= Wo / 2 - 15 + 1e-9; x += 15) {
-      const groove: Outline = [
-        [x - 1.2, frontY - 1],
-        [x + 1.2, frontY - 1],
-        [x, frontY + 1.2],
-      ];
-      const top = Math.min(innerZ(Math.abs(x) + 1.2), apexZ) - 1;
-      if (top > 10) cuts.push(Solid.prism(groove, 'z', 2, top));
-    }
-  }
+  if (p.landingDowel) additions.push(placedDowel(p, context));
+  if (p.trimStyle === 'shingles') additions.push(...shingleRows(shingleOptions(p, false)));
+  if (p.trimStyle === 'boards') cuts.push(...boardGrooves(p));
   cuts.push(...aFrameFloor(p, context, false).cuts);
-  const walls = context.draft
-    ? hollowPrismY(
-        { outlines: sectionOutlines, holes: sectionHoles, fromYMm: frontY, toYMm: backY },
-        { outline: cavityOutline, fromYMm: -D / 2, toYMm: D / 2 },
-      )
-    : Solid.prism(bodyOutline, 'y', frontY, backY);
-  return walls.add(...additions).subtract(...cuts);
+  return Solid.prism(bodyOutline, 'y', frontY, backY)
+    .add(...additions)
+    .subtract(...cuts);
 }
