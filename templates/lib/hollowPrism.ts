@@ -158,12 +158,20 @@ function addPrism(
   return { front, back, floor };
 }
 
+/** The last few sections {@link sectionLoops} joined, by their input (a slider on another parameter keeps them). */
+const joinedSections = new Map<string, Outline[]>();
+const JOINED_SECTIONS_KEPT = 8;
+
 /**
  * The loops (outer ones counter-clockwise, holes clockwise) of the union of `outlines` less `holes`, joined in 2D by
- * the kernel's cross-section booleans: far cheaper than joining the prisms in 3D.
+ * the kernel's cross-section booleans: far cheaper than joining the prisms in 3D. The result depends only on the
+ * input, so the last few are kept and reused (the caller never changes them).
  */
 function sectionLoops(outlines: Outline[], holes: Outline[]): Outline[] {
-  return inKernel(() => {
+  const key = JSON.stringify([outlines, holes]);
+  const kept = joinedSections.get(key);
+  if (kept) return kept;
+  const loops = inKernel(() => {
     const { CrossSection } = kernel();
     const joined = new CrossSection(outlines as SimplePolygon[]);
     const cut = holes.length > 0 ? new CrossSection(holes as SimplePolygon[]) : undefined;
@@ -174,6 +182,9 @@ function sectionLoops(outlines: Outline[], holes: Outline[]): Outline[] {
       for (const object of new Set([joined, cut, section])) object?.delete();
     }
   });
+  joinedSections.set(key, loops);
+  if (joinedSections.size > JOINED_SECTIONS_KEPT) joinedSections.delete(joinedSections.keys().next().value as string);
+  return loops;
 }
 
 /** Drops consecutive repeated points (and a last point equal to the first). */
