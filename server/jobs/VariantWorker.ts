@@ -6,11 +6,11 @@ import type { VariantWorkerRequest, VariantWorkerResponse } from './variantWorke
 const WORKER_URL = new URL('./variantWorkerThread.ts', import.meta.url);
 
 /**
- * The longest one variant's build and analysis may take. The largest demo variant takes about 2 s on a 2-core
- * machine under load; a build still running after a minute is stuck, and stopping it frees the thread for the rest
- * of the family.
+ * The longest one variant's build and analysis may take, in seconds (FAMILY_VARIANT_TIME_LIMIT_SEC overrides it).
+ * The largest demo variant takes about 2 s on a 2-core machine under load; stopping a stuck build frees the thread
+ * for the rest of the family. The queued variant job uses the same limit.
  */
-export const VARIANT_TIME_LIMIT_MS = 60_000;
+export const VARIANT_TIME_LIMIT_SEC = Number(process.env.FAMILY_VARIANT_TIME_LIMIT_SEC ?? 300);
 
 /**
  * One worker thread that builds and analyses variants one at a time, on the shared time-limited runner. The
@@ -21,7 +21,7 @@ export class VariantWorker {
   private readonly runner: TimedWorker<Omit<VariantWorkerRequest, 'requestId'>, VariantWorkerResponse, VariantGeometry>;
 
   /** @param timeLimitMs - the longest one variant may take */
-  constructor(timeLimitMs = VARIANT_TIME_LIMIT_MS) {
+  constructor(timeLimitMs = VARIANT_TIME_LIMIT_SEC * 1000) {
     this.runner = new TimedWorker({
       entryUrl: WORKER_URL,
       jobName: 'computation',

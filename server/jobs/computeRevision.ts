@@ -1,4 +1,4 @@
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, ne } from 'drizzle-orm';
 import type { VariantVerdict } from '../../shared/schemas/variant';
 import type { CostRates, PrintSettings } from '../../shared/schemas/production';
 import type { Db } from '../db/client';
@@ -112,10 +112,12 @@ export async function computeRevision(db: Db, revisionId: string, options: Compu
     .orderBy(asc(familyVariants.index));
   let done = revision.computeDone;
   const total = done + variants.length;
+  // A cancel that lands while the inputs load has already stored `cancelled`: it must not be overwritten.
+  if (options.isCancelled()) return false;
   await db
     .update(familyRevisions)
     .set({ computeState: 'running', computeTotal: total, computeStartedAt: new Date(), updatedAt: new Date() })
-    .where(eq(familyRevisions.id, revisionId));
+    .where(and(eq(familyRevisions.id, revisionId), ne(familyRevisions.computeState, 'cancelled')));
 
   const geometries = new Map<string, Promise<VariantGeometry>>();
   for (const variant of variants) {

@@ -22,7 +22,7 @@ import {
 } from './computeRevision';
 import { defineJob } from './JobQueue';
 import type { VariantGeometry } from './variantGeometry';
-import { VariantWorker } from './VariantWorker';
+import { VARIANT_TIME_LIMIT_SEC, VariantWorker } from './VariantWorker';
 
 /** The NOTIFY channel of family progress. */
 export const FAMILY_PROGRESS_CHANNEL = 'family_progress';
@@ -41,9 +41,6 @@ export const ComputeVariantDataSchema = z.object({
   /** The computation generation it was sent for (`family_compute_runs.generation`). */
   generation: z.number().int(),
 });
-
-/** Longest one variant may take (build + analysis), seconds; FAMILY_VARIANT_TIME_LIMIT_SEC overrides it. */
-const VARIANT_TIME_LIMIT_SEC = Number(process.env.FAMILY_VARIANT_TIME_LIMIT_SEC ?? 300);
 
 /** Per process: the worker thread and the geometry of recent parameter sets (variants often share one). */
 const workers = new WeakMap<object, { thread: VariantWorker; geometries: Map<string, Promise<VariantGeometry>> }>();
