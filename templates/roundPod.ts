@@ -6,6 +6,7 @@ import { floorOpening } from './lib/floorOpening';
 import { BuildContext } from './lib/BuildContext';
 import { partMesh } from './lib/partMesh';
 import { Solid, type Outline } from './lib/Solid';
+import { standPost } from './lib/standPost';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 
 const parameters = z
@@ -51,8 +52,8 @@ type PodParams = z.output<typeof parameters>;
 
 /** Parameters the cavity depends on. */
 const CAVITY_KEYS = ['bodyDiameterMm', 'bodyHeightMm', 'floorDiameterMm', 'wallThicknessMm'] as const;
-/** Parameters the skin (the egg's wall with its cleaning opening, and the hanging eye) depends on. */
-const SKIN_KEYS = [...CAVITY_KEYS, 'hangingHole', 'cleaningAccess'] as const;
+/** Parameters the egg's wall with its cleaning opening depends on. */
+const WALL_KEYS = [...CAVITY_KEYS, 'cleaningAccess'] as const;
 /** Parameters the floor plug depends on. */
 const PLUG_KEYS = [...CAVITY_KEYS, 'drainageHoles', 'cleaningAccess', 'printClearanceMm'] as const;
 const SLOT_WIDTH_MM = 6;
@@ -64,7 +65,7 @@ const SLOT_LENGTH_MM = 26;
  */
 export const roundPod: Template<typeof parameters> = {
   id: 'round-pod',
-  version: 4,
+  version: 5,
   name: 'Round pod',
   summary: 'Egg-shaped pod on a flat printing face, with a hanging eye and an optional floor plug.',
   parameters,
@@ -84,9 +85,10 @@ export const roundPod: Template<typeof parameters> = {
   build(p, context = new BuildContext('full')) {
     const { t, a, lower, ai, floorRadius, floorZ, cutZ, upper, ceiling } = podFrame(p);
 
-    // The skin (the egg's wall with its hanging eye) depends only on the body's size and the eye; everything else is
-    // cut from it in one subtraction, because each kernel operation costs about as much as the whole mesh it works on.
-    const skin = context.reuse('skin', p, SKIN_KEYS, (q) => podSkin(q, context));
+    // The wall depends only on the body's size; everything else is cut from it in one subtraction, because each
+    // kernel operation costs about as much as the whole mesh it works on. The hanging tab is joined to the finished
+    // mesh without the kernel, for the same reason.
+    const wall = context.reuse('wall', p, WALL_KEYS, (q) => podWall(q, context));
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
@@ -96,7 +98,7 @@ export const roundPod: Template<typeof parameters> = {
       -a - 2,
       -ai * 0.3,
     ).translate(0, 0, holeCentreZ);
-    let body = skin;
+    let body = wall;
     if (p.perch) {
       const perchZ = holeCentreZ - r - 18;
       const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
@@ -115,7 +117,7 @@ export const roundPod: Template<typeof parameters> = {
     const plug = p.cleaningAccess
       ? context.reuse('floor-plug', p, PLUG_KEYS, (q) => podFloor(q, context).plug!)
       : undefined;
-    const parts = [{ name: 'body', mesh: partMesh(body) }];
+    const parts = [{ name: 'body', mesh: p.hangingHole ? podWithTab(p, body, context) : partMesh(body) }];
     if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
     return {
       parts,
@@ -180,7 +182,7 @@ function podCavity(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: Bu
   );
 }
 
-/** The floor's cleaning opening and plug, or its drainage holes (model coordinates, like the skin). */
+/** The floor's cleaning opening and plug, or its drainage holes (model coordinates, like the wall). */
 function podFloor(p: Pick<PodParams, (typeof PLUG_KEYS)[number]>, context: BuildContext) {
   const { t, floorRadius, cutZ } = podFrame(p);
   return floorOpening({
@@ -196,10 +198,10 @@ function podFloor(p: Pick<PodParams, (typeof PLUG_KEYS)[number]>, context: Build
 
 /**
  * The egg's wall in one revolve of its cross-section (outside profile up to the apex, down the axis, inside profile
- * down to the floor): the same solid as the egg less its cavity, without a boolean. With the hanging eye on top.
+ * down to the floor): the same solid as the egg less its cavity, without a boolean.
  */
-function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildContext): Solid {
-  const { t, a, lower, ai, bli, floorRadius, floorZ, cutZ, apexZ, upper, upperInner } = podFrame(p);
+function podWall(p: Pick<PodParams, (typeof WALL_KEYS)[number]>, context: BuildContext): Solid {
+  const { a, lower, ai, bli, floorRadius, floorZ, cutZ, upper, upperInner } = podFrame(p);
   const steps = context.pick(PROFILE_STEPS, 4);
   const outside = eggProfile({
     radiusMm: a,
@@ -228,11 +230,15 @@ function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildC
     ring[0] = [openingRadius, cutZ];
     ring[ring.length - 1] = [openingRadius, floorZ];
   }
-  const wall = Solid.revolve(ring, context.pick(SEGMENTS, 16));
-  if (!p.hangingHole) return wall;
+  return Solid.revolve(ring, context.pick(SEGMENTS, 16));
+}
+
+/** The hanging tab on the apex (model coordinates): a 28 × 8 mm slab along x with its eye through it along y. */
+function podTab(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: BuildContext) {
+  const { t, apexZ } = podFrame(p);
   // The tab's foot is a 45° ridge d below the outside cone: inside the wall everywhere under the tab (the outside
   // cone is at most |y| ≤ 4 mm lower at the tab's edge, the inside cone t·√2 lower), so the tab never reaches into the
-  // cavity and the union adds exactly what the tab adds above the wall.
+  // cavity and joining it adds exactly what the tab adds above the wall.
   const d = (4 + t * Math.SQRT2) / 2;
   const top = apexZ + 18;
   const foot: Outline = [
@@ -242,12 +248,35 @@ function podSkin(p: Pick<PodParams, (typeof SKIN_KEYS)[number]>, context: BuildC
     [14, top],
     [-14, top],
   ];
-  const tab = Solid.prism(foot, 'y', -4, 4);
-  const eye = Solid.prism(teardropOutline(8, context.pick(24, 12)), 'y', -5, 5).translate(0, 0, apexZ + 8);
-  return wall.add(tab.subtract(eye));
+  const eye = teardropOutline(8, context.pick(24, 12)).map(([x, z]): [number, number] => [x, z + apexZ + 8]);
+  return { foot, top, eye, halfWidthMm: 14, halfDepthMm: 4 };
 }
 
-/** What is cut from the skin besides the entry: the ventilation slots, and the drainage holes without cleaning access. */
+/**
+ * The body's mesh with the hanging tab joined (plate coordinates: `body` is already lowered by cutZ). The tab stands
+ * on the outside cone's apex and nothing is cut near it, so it is joined to the finished mesh without a kernel
+ * operation; in a degenerate case (a mesh vertex on the tab's outline) the kernel joins it instead.
+ */
+function podWithTab(p: PodParams, body: Solid, context: BuildContext) {
+  const { cutZ } = podFrame(p);
+  const tab = podTab(p, context);
+  const lowered = (outline: Outline): Outline => outline.map(([x, z]): [number, number] => [x, z - cutZ]);
+  const joined = standPost(partMesh(body), {
+    x: [-tab.halfWidthMm, tab.halfWidthMm],
+    y: [-tab.halfDepthMm, tab.halfDepthMm],
+    topZ: tab.top - cutZ,
+    // The outside cone under the tab lies above the equator; the only other upward faces under it (the inside floor)
+    // lie below.
+    surfaceAboveZ: -cutZ,
+    holeXZ: lowered(tab.eye),
+  });
+  if (joined) return joined;
+  const slab = Solid.prism(lowered(tab.foot), 'y', -tab.halfDepthMm, tab.halfDepthMm);
+  const eye = Solid.prism(lowered(tab.eye), 'y', -tab.halfDepthMm - 1, tab.halfDepthMm + 1);
+  return partMesh(body.add(slab.subtract(eye)));
+}
+
+/** What is cut from the wall besides the entry: the ventilation slots, and the drainage holes without cleaning access. */
 function podCuts(p: PodParams, context: BuildContext): Solid[] {
   const { a, ai, upperInner, ceiling } = podFrame(p);
   const cuts: Solid[] = [];
@@ -257,7 +286,7 @@ function podCuts(p: PodParams, context: BuildContext): Solid[] {
     const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
     cuts.push(Solid.prism(slot, 'x', ai * 0.5, a + 2), Solid.prism(slot, 'x', -a - 2, -ai * 0.5));
   }
-  // The cleaning opening is in the skin's revolve; drainage holes are cut.
+  // The cleaning opening is in the wall's revolve; drainage holes are cut.
   if (!p.cleaningAccess) cuts.push(...podFloor(p, context).cuts);
   return cuts;
 }
