@@ -6,7 +6,9 @@ import { floorOpening } from './lib/floorOpening';
 import { BuildContext } from './lib/BuildContext';
 import { partMesh } from './lib/partMesh';
 import { Solid, type Outline } from './lib/Solid';
+import { joinRevolvedBand } from './lib/revolvedBand';
 import { standPost } from './lib/standPost';
+import type { IndexedMesh } from '../shared/schemas/mesh';
 import { slotAreaMm2, slotOutline, teardropOutline, TEARDROP_TIP_RADII } from './lib/teardrop';
 
 const parameters = z
@@ -54,6 +56,8 @@ type PodParams = z.output<typeof parameters>;
 const CAVITY_KEYS = ['bodyDiameterMm', 'bodyHeightMm', 'floorDiameterMm', 'wallThicknessMm'] as const;
 /** Parameters the egg's wall with its cleaning opening depends on. */
 const WALL_KEYS = [...CAVITY_KEYS, 'cleaningAccess'] as const;
+/** Parameters the wall above the lowest cut depends on (not the entry's diameter: its bottom edge stays put). */
+const BAND_KEYS = [...WALL_KEYS, 'holeAboveFloorMm', 'perch'] as const;
 /** Parameters the floor plug depends on. */
 const PLUG_KEYS = [...CAVITY_KEYS, 'drainageHoles', 'cleaningAccess', 'printClearanceMm'] as const;
 const SLOT_WIDTH_MM = 6;
@@ -85,10 +89,6 @@ export const roundPod: Template<typeof parameters> = {
   build(p, context = new BuildContext('full')) {
     const { t, a, lower, ai, floorRadius, floorZ, cutZ, upper, ceiling } = podFrame(p);
 
-    // The wall depends only on the body's size; everything else is cut from it in one subtraction, because each
-    // kernel operation costs about as much as the whole mesh it works on. The hanging tab is joined to the finished
-    // mesh without the kernel, for the same reason.
-    const wall = context.reuse('wall', p, WALL_KEYS, (q) => podWall(q, context));
     const r = p.entryHoleDiameterMm / 2;
     // parseParams has checked the entry against podFrame's limit, so the hole sits exactly where asked.
     const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
@@ -98,26 +98,40 @@ export const roundPod: Template<typeof parameters> = {
       -a - 2,
       -ai * 0.3,
     ).translate(0, 0, holeCentreZ);
-    let body = wall;
+    let perch: Solid | undefined;
     if (p.perch) {
       const perchZ = holeCentreZ - r - 18;
       const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
-      const perch = Solid.prism(
-        teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
-        'y',
-        wallY - 30,
-        wallY + t,
-      ).translate(0, 0, perchZ);
       // The perch's inner end is trimmed by the cavity before it joins the wall.
-      body = body.add(perch.subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context))));
+      perch = Solid.prism(teardropOutline(10, context.pick(24, 12), false, Math.SQRT2), 'y', wallY - 30, wallY + t)
+        .translate(0, 0, perchZ)
+        .subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context)));
     }
-    body = body.subtract(...podCuts(p, context), hole).translate(0, 0, -cutZ);
+    // Everything is cut from the wall in one subtraction, because each kernel operation costs about as much as the
+    // whole mesh it works on. For the same reason the wall below the lowest cut never goes to the kernel (it is
+    // built in JS and welded on), and the hanging tab is joined to the finished mesh without the kernel.
+    const cut = (wall: Solid): Solid =>
+      (perch ? wall.add(perch) : wall).subtract(...podCuts(p, context), hole).translate(0, 0, -cutZ);
+    const segments = context.pick(SEGMENTS, 16);
+    const band = podBand(p, context);
+    let mesh: IndexedMesh | null = null;
+    if (band) {
+      const above = context.reuse('wall-above', p, BAND_KEYS, (q) =>
+        Solid.revolve(podBand(q, context)!.above, segments),
+      );
+      mesh = joinRevolvedBand(partMesh(cut(above)), band.below, band.seamEdge, segments, -cutZ);
+    }
+    // The whole wall, when the band cannot be split off (drainage holes in the floor) or the weld fails.
+    const whole = (): Solid =>
+      cut(context.reuse('wall', p, WALL_KEYS, (q) => Solid.revolve(podRing(q, context), segments)));
+    mesh ??= partMesh(whole());
+    if (p.hangingHole) mesh = podWithTab(p, mesh, whole, context);
 
     const openingMm = floorRadius * 2 - 30;
     const plug = p.cleaningAccess
       ? context.reuse('floor-plug', p, PLUG_KEYS, (q) => podFloor(q, context).plug!)
       : undefined;
-    const parts = [{ name: 'body', mesh: p.hangingHole ? podWithTab(p, body, context) : partMesh(body) }];
+    const parts = [{ name: 'body', mesh }];
     if (plug) parts.push({ name: 'floor-plug', mesh: partMesh(plug.translate(a + 10 + openingMm / 2 + 8, 0, 0)) });
     return {
       parts,
@@ -200,7 +214,7 @@ function podFloor(p: Pick<PodParams, (typeof PLUG_KEYS)[number]>, context: Build
  * The egg's wall in one revolve of its cross-section (outside profile up to the apex, down the axis, inside profile
  * down to the floor): the same solid as the egg less its cavity, without a boolean.
  */
-function podWall(p: Pick<PodParams, (typeof WALL_KEYS)[number]>, context: BuildContext): Solid {
+function podRing(p: Pick<PodParams, (typeof WALL_KEYS)[number]>, context: BuildContext): Outline {
   const { a, lower, ai, bli, floorRadius, floorZ, cutZ, upper, upperInner } = podFrame(p);
   const steps = context.pick(PROFILE_STEPS, 4);
   const outside = eggProfile({
@@ -230,7 +244,40 @@ function podWall(p: Pick<PodParams, (typeof WALL_KEYS)[number]>, context: BuildC
     ring[0] = [openingRadius, cutZ];
     ring[ring.length - 1] = [openingRadius, floorZ];
   }
-  return Solid.revolve(ring, context.pick(SEGMENTS, 16));
+  return ring;
+}
+
+/**
+ * The wall's cross-section split at a height under every cut (entry, perch, vents): the part above, which the kernel
+ * revolves and cuts, and the band below, revolved in JS ({@link joinRevolvedBand}); its edge from point `seamEdge` is
+ * the seam. None without cleaning access (the drainage holes are cut in the floor) or when the band would be thin.
+ */
+function podBand(p: Pick<PodParams, (typeof BAND_KEYS)[number]>, context: BuildContext) {
+  if (!p.cleaningAccess) return undefined;
+  const { floorZ } = podFrame(p);
+  const entryBottom = floorZ + p.holeAboveFloorMm;
+  // The perch's teardrop points down √2 · 5 mm below its centre, 18 mm under the entry.
+  const perchBottom = p.perch ? entryBottom - 18 - 5 * Math.SQRT2 : Infinity;
+  const ventBottom = slotCentreZ(p) - SLOT_LENGTH_MM / 2;
+  const seamZ = Math.min(entryBottom, perchBottom, ventBottom) - 3;
+  if (seamZ < floorZ + 5) return undefined;
+  const ring = podRing(p, context);
+  // The ring starts at the bottom, rises along the outside and comes down the inside: it crosses the seam twice.
+  const crossings: { i: number; point: [number, number] }[] = [];
+  for (let i = 0; i < ring.length; i++) {
+    const [r0, z0] = ring[i];
+    const [r1, z1] = ring[(i + 1) % ring.length];
+    if (z0 === seamZ) return undefined;
+    if ((z0 - seamZ) * (z1 - seamZ) < 0)
+      crossings.push({ i, point: [r0 + ((seamZ - z0) / (z1 - z0)) * (r1 - r0), seamZ] });
+  }
+  if (crossings.length !== 2) return undefined;
+  const [up, down] = crossings;
+  return {
+    above: [up.point, ...ring.slice(up.i + 1, down.i + 1), down.point] as Outline,
+    below: [...ring.slice(0, up.i + 1), up.point, down.point, ...ring.slice(down.i + 1)] as Outline,
+    seamEdge: up.i + 1,
+  };
 }
 
 /** The hanging tab on the apex (model coordinates): a 28 × 8 mm slab along x with its eye through it along y. */
@@ -253,15 +300,15 @@ function podTab(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>, context: Build
 }
 
 /**
- * The body's mesh with the hanging tab joined (plate coordinates: `body` is already lowered by cutZ). The tab stands
- * on the outside cone's apex and nothing is cut near it, so it is joined to the finished mesh without a kernel
- * operation; in a degenerate case (a mesh vertex on the tab's outline) the kernel joins it instead.
+ * The body's mesh with the hanging tab joined (plate coordinates, lowered by cutZ). The tab stands on the outside
+ * cone's apex and nothing is cut near it, so it is joined to the finished mesh without a kernel operation; in a
+ * degenerate case (a mesh vertex on the tab's outline) the kernel joins it to the whole body instead.
  */
-function podWithTab(p: PodParams, body: Solid, context: BuildContext) {
+function podWithTab(p: PodParams, mesh: IndexedMesh, whole: () => Solid, context: BuildContext): IndexedMesh {
   const { cutZ } = podFrame(p);
   const tab = podTab(p, context);
   const lowered = (outline: Outline): Outline => outline.map(([x, z]): [number, number] => [x, z - cutZ]);
-  const joined = standPost(partMesh(body), {
+  const joined = standPost(mesh, {
     x: [-tab.halfWidthMm, tab.halfWidthMm],
     y: [-tab.halfDepthMm, tab.halfDepthMm],
     topZ: tab.top - cutZ,
@@ -273,14 +320,20 @@ function podWithTab(p: PodParams, body: Solid, context: BuildContext) {
   if (joined) return joined;
   const slab = Solid.prism(lowered(tab.foot), 'y', -tab.halfDepthMm, tab.halfDepthMm);
   const eye = Solid.prism(lowered(tab.eye), 'y', -tab.halfDepthMm - 1, tab.halfDepthMm + 1);
-  return partMesh(body.add(slab.subtract(eye)));
+  return partMesh(whole().add(slab.subtract(eye)));
+}
+
+/** Height of the ventilation slots' centres (model coordinates). */
+function slotCentreZ(p: Pick<PodParams, (typeof CAVITY_KEYS)[number]>): number {
+  const { ai, upperInner, ceiling } = podFrame(p);
+  return Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
 }
 
 /** What is cut from the wall besides the entry: the ventilation slots, and the drainage holes without cleaning access. */
 function podCuts(p: PodParams, context: BuildContext): Solid[] {
-  const { a, ai, upperInner, ceiling } = podFrame(p);
+  const { a, ai } = podFrame(p);
   const cuts: Solid[] = [];
-  const slotZ = Math.min(upperInner * 0.55, ceiling(ai * 0.75) - SLOT_LENGTH_MM);
+  const slotZ = slotCentreZ(p);
   for (let i = 0; i < p.ventilationSlots; i++) {
     const y = (i - (p.ventilationSlots - 1) / 2) * (SLOT_WIDTH_MM + 8);
     const slot = slotOutline(SLOT_WIDTH_MM, SLOT_LENGTH_MM).map(([u, v]): [number, number] => [u + y, v + slotZ]);
