@@ -31,8 +31,9 @@ interface Crossing {
  * its outside (each in its own plane, so the surface keeps its shape), and the post's four walls rise from the clip
  * line to its top. A crossing of a mesh edge with the footprint's outline is computed once and shared by both
  * triangles of the edge, and the walls use the same vertices, so the result is closed exactly when the input is.
- * The union of the mesh and the post, when the post's foot lies inside the solid under the surface; a kernel union
- * on a big mesh costs about as much as the whole mesh, this costs a pass over the triangles and a few dozen new ones.
+ * The result is the union of the mesh and the post when the post's foot lies inside the solid under the surface and
+ * no other part of the mesh reaches into the post. A kernel union on a big mesh costs about as much as the whole mesh;
+ * this costs a pass over the triangles and a few dozen new ones.
  * @param mesh - a closed, outward-wound mesh whose surface covers the footprint from above
  * @param post - the footprint, top and optional hole
  * @returns the joined mesh, or null in a degenerate case (a mesh vertex on the footprint's outline, an edge through
