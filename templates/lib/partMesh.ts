@@ -62,3 +62,27 @@ function runsInGeometricOrder(
     return a[1] - a[0] - (b[1] - b[0]);
   });
 }
+
+/**
+ * The mesh with its vertices numbered in order of first use by its triangles (the numbering a weld of the triangles
+ * gives, as {@link partMesh} makes it) and unused vertices left out; for meshes finished in JS after the kernel.
+ * @param mesh - any indexed mesh
+ */
+export function numberByFirstUse({ positions, indices }: IndexedMesh): IndexedMesh {
+  const renumber = new Int32Array(positions.length / 3).fill(-1);
+  const out = new Uint32Array(indices.length);
+  const xyz = new Float32Array(positions.length);
+  let used = 0;
+  for (let k = 0; k < indices.length; k++) {
+    const v = indices[k];
+    if (renumber[v] < 0) {
+      renumber[v] = used;
+      xyz[used * 3] = positions[v * 3];
+      xyz[used * 3 + 1] = positions[v * 3 + 1];
+      xyz[used * 3 + 2] = positions[v * 3 + 2];
+      used++;
+    }
+    out[k] = renumber[v];
+  }
+  return { positions: used * 3 === xyz.length ? xyz : xyz.slice(0, used * 3), indices: out };
+}

@@ -1,4 +1,5 @@
 import type { IndexedMesh } from '../../shared/schemas/mesh';
+import { numberByFirstUse } from './partMesh';
 import type { Outline } from './Solid';
 
 /**
@@ -92,9 +93,8 @@ export function joinRevolvedBand(
       out[o++] = indices[tri * 3 + 2];
     }
   for (const id of triangles) out[o++] = id;
-  // The cap's inside vertices (if the kernel had any) stay unused; only ring vertices are on it for an untouched cap.
   const xyz = new Float32Array(positions.length + added.length);
   xyz.set(positions);
   xyz.set(added, positions.length);
-  return { positions: xyz, indices: out };
+  return numberByFirstUse({ positions: xyz, indices: out });
 }

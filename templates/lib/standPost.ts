@@ -1,5 +1,6 @@
 import { Earcut } from 'three/src/extras/Earcut.js';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
+import { numberByFirstUse } from './partMesh';
 import type { Outline } from './Solid';
 
 /** An upright post with a rectangular footprint, standing on an upward-facing surface of a mesh. */
@@ -76,7 +77,10 @@ function trianglesOver({ positions, indices }: IndexedMesh, post: PostOptions): 
   return found;
 }
 
-/** Kept triangles in their order, then the new ones; vertices no triangle uses any more are dropped. */
+/**
+ * Kept triangles in their order, then the new ones; vertices numbered by first use (as the kernel's part meshes are),
+ * so the ones no triangle uses any more are dropped.
+ */
 function assemble(
   { positions, indices }: IndexedMesh,
   dropped: Uint8Array,
@@ -95,29 +99,10 @@ function assemble(
       out[n++] = indices[tri * 3 + 2];
     }
   for (let k = 0; k < newTriangles.length; k++) out[n++] = newTriangles[k];
-  const vertexCount = positions.length / 3;
-  const total = vertexCount + added.length / 3;
-  const renumber = new Int32Array(total).fill(-1);
-  for (let k = 0; k < out.length; k++) renumber[out[k]] = 0;
-  let used = 0;
-  for (let id = 0; id < total; id++) if (renumber[id] === 0) renumber[id] = used++;
-  const xyz = new Float32Array(used * 3);
-  for (let id = 0; id < total; id++) {
-    const to = renumber[id] * 3;
-    if (to < 0) continue;
-    if (id < vertexCount) {
-      xyz[to] = positions[id * 3];
-      xyz[to + 1] = positions[id * 3 + 1];
-      xyz[to + 2] = positions[id * 3 + 2];
-    } else {
-      const from = (id - vertexCount) * 3;
-      xyz[to] = added[from];
-      xyz[to + 1] = added[from + 1];
-      xyz[to + 2] = added[from + 2];
-    }
-  }
-  for (let k = 0; k < out.length; k++) out[k] = renumber[out[k]];
-  return { positions: xyz, indices: out };
+  const xyz = new Float32Array(positions.length + added.length);
+  xyz.set(positions);
+  xyz.set(added, positions.length);
+  return numberByFirstUse({ positions: xyz, indices: out });
 }
 
 /** The clipping of the surface under the footprint and the post's faces, vertex by vertex. */
