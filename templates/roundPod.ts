@@ -102,10 +102,12 @@ export const roundPod: Template<typeof parameters> = {
     if (p.perch) {
       const perchZ = holeCentreZ - r - 18;
       const wallY = -Math.sqrt(Math.max(0, 1 - (perchZ / (perchZ >= 0 ? upper : lower)) ** 2)) * a + 2;
-      // The perch's inner end is trimmed by the cavity before it joins the wall.
+      // The perch's inner end is trimmed by the cavity before it joins the wall, by a cavity 0.01 % larger: its end
+      // then lies a few hundredths of a millimetre inside the wall (the same solid once joined) rather than on the
+      // wall's inside faces, where the kernel can leave a zero-volume sliver.
       perch = Solid.prism(teardropOutline(10, context.pick(24, 12), false, Math.SQRT2), 'y', wallY - 30, wallY + t)
         .translate(0, 0, perchZ)
-        .subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context)));
+        .subtract(context.reuse('cavity', p, CAVITY_KEYS, (q) => podCavity(q, context)).scale(1.0001, 1.0001, 1.0001));
     }
     // Everything is cut from the wall in one subtraction, because each kernel operation costs about as much as the
     // whole mesh it works on. For the same reason the wall below the lowest cut never goes to the kernel (it is
