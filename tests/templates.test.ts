@@ -173,6 +173,26 @@ describe('regressions found by the property test', () => {
         printClearanceMm: 1,
       },
     ],
+    // a perch trimmed exactly to the cavity met the wall's inside faces high on a small, thick pod and left a
+    // zero-volume sliver (2 bodies), with and without the hanging eye
+    ...[true, false].map(
+      (hangingHole) =>
+        [
+          'round-pod',
+          {
+            bodyDiameterMm: 159,
+            bodyHeightMm: 291,
+            floorDiameterMm: 106,
+            wallThicknessMm: 17,
+            entryHoleDiameterMm: 27.5,
+            holeAboveFloorMm: 175.5,
+            ventilationSlots: 4,
+            perch: true,
+            cleaningAccess: true,
+            hangingHole,
+          },
+        ] as const,
+    ),
   ] as const)(
     '%s %o',
     async (id, params) => {
