@@ -1,6 +1,12 @@
 import { seededRandom } from './seededRandom';
 import { Solid } from './Solid';
 
+/**
+ * Furrows shallower than this are left flat (0.05 mm, a quarter of a common 0.2 mm layer and an eighth of a 0.4 mm
+ * nozzle's line: common printing practice, from memory).
+ */
+const FLAT_MM = 0.05;
+
 /** Size and texture of a bark-covered upright cylinder. */
 export interface BarkTubeOptions {
   /** Radius of the smooth cylinder the bark is carved into (the ridges' outer radius). */
@@ -321,8 +327,10 @@ function barkRadii(
     for (let i = 0; i < n; i++) {
       const wave = Math.sin(ridges * thetas[i] + drift);
       // Sharpen the furrows: flat-topped plates with narrow cracks between them.
-      const furrow = Math.max(0, wave) ** 3 * wobble[ridgeOf[i]];
-      radii[k * n + i] = Math.min(flat[i], R - depth * Math.min(1, furrow));
+      const furrow = depth * Math.min(1, Math.max(0, wave) ** 3 * wobble[ridgeOf[i]]);
+      // A furrow's shallow edge is plate: a point that stays on the plate can be left out of the mesh (see
+      // keptVertices), which saves about a tenth of the triangles, and FLAT_MM is far below what a printer shows.
+      radii[k * n + i] = Math.min(flat[i], furrow < FLAT_MM ? R : R - furrow);
     }
   }
   return radii;
