@@ -13,7 +13,7 @@ import { scoped } from '../templates/lib/scope';
 import { Solid } from '../templates/lib/Solid';
 import { manifoldReport } from './templates.meshCheck';
 
-/** A trunk like the template's defaults: 100 mm chambers, 10 mm wall, 160 mm deep, a 45° pointed ceiling. */
+/** A trunk like the template's defaults: 100 mm chambers, 10 mm wall, 160 mm deep, a 45° pointed ceiling; bark pattern 11. */
 function trunk(
   storeys: number,
   barkDepthMm: number,
@@ -27,7 +27,7 @@ function trunk(
     radiusMm: Ri + t + 2 + barkDepthMm,
     heightMm: t + storeys * storeyMm,
     barkDepthMm,
-    seed: 7,
+    seed: 11,
     segments: draft ? 48 : 160,
     rowMm: draft ? 14 : 4,
     bottomHole: hole ? { radiusMm: Ri - 15, depthMm: t, segments: draft ? 16 : 64 } : undefined,
@@ -73,23 +73,23 @@ describe('bark tube with its back and chambers in the mesh', () => {
     [
       'defaults: 2 mm bark, 150 mm tree, one chamber with the cleaning hole',
       trunk(1, 2, { yMm: 60, treeRadiusMm: 150 }, true),
-      { bodies: 1, genus: 0, tolerance: 1e-4 },
+      { bodies: 1, genus: 0, tolerance: 5e-5 },
     ],
     // Closed chambers are inner shells: manifold-3d counts each as a body of its own and each lowers the genus by 1.
     [
       'two closed chambers, 3 mm bark, flat back',
       trunk(2, 3, { yMm: 60 }, false),
-      { bodies: 3, genus: -2, tolerance: 1e-4 },
+      { bodies: 3, genus: -2, tolerance: 2e-5 },
     ],
     [
       'smooth trunk, thinnest tree (50 mm), cleaning hole',
       trunk(1, 0, { yMm: 60, treeRadiusMm: 50 }, true),
-      { bodies: 1, genus: 0, tolerance: 1e-4 },
+      { bodies: 1, genus: 0, tolerance: 5e-5 },
     ],
     [
       'two storeys, 3 mm bark, widest tree (600 mm), cleaning hole',
       trunk(2, 3, { yMm: 60, treeRadiusMm: 600 }, true),
-      { bodies: 2, genus: -1, tolerance: 1e-4 },
+      { bodies: 2, genus: -1, tolerance: 2e-5 },
     ],
     // A smooth trunk with a flat back has both edges of the back on a column, so the two differ only there: the
     // mesh's edge point lies on the true circle, the boolean's on the 160-gon's chord (0.01 mm out, about 4 mm³).
@@ -98,16 +98,18 @@ describe('bark tube with its back and chambers in the mesh', () => {
       trunk(1, 0, { yMm: 60 }, false),
       { bodies: 2, genus: -1, tolerance: 1e-5 },
     ],
-    // The draft's coarse grid (48 columns, 14 mm rows): the seam in the furrows spans wider strips.
+    // The draft's coarse grid (48 columns, 14 mm rows): its seam points are further apart.
     [
       'draft grid: 3 mm bark, 150 mm tree, two storeys, cleaning hole',
       trunk(2, 3, { yMm: 60, treeRadiusMm: 150 }, true, true),
-      { bodies: 2, genus: -1, tolerance: 1e-3 },
+      { bodies: 2, genus: -1, tolerance: 2e-4 },
     ],
   ];
-  // Elsewhere the mesh's back points lie on the true tree, the boolean's tree is a 1440-gon, and in a furrow the mesh's
-  // seam runs straight between two columns: a few tens of mm³ in about 1.4 million (measured 2e-5 to 4e-5; 3e-4 on
-  // the draft grid).
+  // Elsewhere the two differ by the mesh's back being flat between two columns (chords of the true tree; the boolean's
+  // tree is a 1440-gon) and by the seam where a furrow crosses the back's edge, which the mesh follows on the grid's
+  // edges (the boolean cuts it exactly): measured 4e-6 to 3.6e-5 of the volume, 1e-4 on the draft grid. Seed 11 has
+  // furrows across both edges of the back; a seam drawn straight across each strip instead would be 5e-5 to 7e-5 too
+  // small (3e-4 on the draft grid) and fail the textured cases.
   it.each(cases)('%s is the booleans’ solid', async (_name, options, expected) => {
     await loadKernel();
     const boolean = scoped(() => partMesh(byBooleans(options)));

@@ -90,7 +90,10 @@ export function barkTubeMesh(options: BarkTubeOptions): { positions: Float32Arra
   // Per column the radius of its flat parts: the full radius, or the back's where the back lies inside it.
   const flat = new Float64Array(n);
   for (let i = 0; i < n; i++) flat[i] = options.back ? Math.min(R, backDistance(options.back, thetas[i])) : R;
-  const radii = barkRadii(options, thetas, flat, rows, ridges, phase1, phase2, wobble);
+  // The bark's own radii, then where it stands proud of the back, the back's.
+  const bark = barkRadii(options, thetas, rows, ridges, phase1, phase2, wobble);
+  const radii = new Float64Array(bark.length);
+  for (let g = 0; g < bark.length; g++) radii[g] = Math.min(flat[g % n], bark[g]);
   const kept = keptVertices(radii, flat, n, rows);
   // Vertices are numbered in grid order (kept ones only), then the bottom and top centres.
   const number = new Int32Array(n * (rows + 1)).fill(-1);
@@ -175,7 +178,10 @@ export function barkTubeMesh(options: BarkTubeOptions): { positions: Float32Arra
     at = chamberShell(positions, indices, at, next, chambers[c], open ? holeTop : -1, m);
     next += open ? 2 * chambers[c].segments + 1 : 2 * chambers[c].segments + 2;
   }
-  return { positions, indices };
+  if (!options.back) return { positions, indices };
+  const backAt = new Float64Array(n);
+  for (let i = 0; i < n; i++) backAt[i] = backDistance(options.back, thetas[i]);
+  return splitAtBack(positions, indices, { bark, backAt, thetas, number, kept, rows, H, count });
 }
 
 /**
@@ -291,6 +297,107 @@ function columnAngles(n: number, R: number, back: BarkBack | undefined): Float64
   return Float64Array.from(angles).sort();
 }
 
+/** The side's grid, for {@link splitAtBack}. */
+interface SideGrid {
+  /** The bark's radius at each grid point, before the back. */
+  bark: Float64Array;
+  /** Distance from the axis to the back along each column's ray (infinite where the ray misses it). */
+  backAt: Float64Array;
+  thetas: Float64Array;
+  /** Each grid point's vertex number (−1 for a point left out). */
+  number: Int32Array;
+  kept: Uint8Array;
+  rows: number;
+  H: number;
+  /** Vertices below this number are grid points; the others (cap centres, hole rings, chambers) are not. */
+  count: number;
+}
+
+/**
+ * Splits every triangle that a furrow's edge of the back crosses along that seam. A grid point where the bark stands
+ * proud of the back has moved onto the back; one where it does not has stayed on the bark. On each edge between
+ * the two kinds a new point is put where the bark's height over the back, linear along the edge, is zero (on the
+ * bark's own edge), and the triangle is cut there into two or three. So the seam follows the true intersection curve
+ * to the grid's precision instead of running straight across a whole strip. Each seam point belongs to its edge
+ * (shared by the two triangles on it), so the mesh stays closed, and each piece lies inside the radial projection of
+ * its triangle, so the side stays a radial height field.
+ */
+function splitAtBack(
+  positions: Float32Array,
+  indices: Uint32Array,
+  grid: SideGrid,
+): { positions: Float32Array; indices: Uint32Array } {
+  const { bark, backAt, thetas, number, kept, rows, H, count } = grid;
+  const n = thetas.length;
+  // Per grid vertex: its height over the back (> 0: moved onto the back) and its position on the bark.
+  const over = new Float64Array(count);
+  const onBark = new Float64Array(count * 3);
+  for (let g = 0; g < kept.length; g++) {
+    if (!kept[g]) continue;
+    const v = number[g];
+    const i = g % n;
+    const height = bark[g] - backAt[i];
+    // A point within a nanometre of the back counts as on it: no seam point next to it.
+    over[v] = Math.abs(height) < 1e-6 ? 0 : height;
+    onBark[v * 3] = bark[g] * Math.cos(thetas[i]);
+    onBark[v * 3 + 1] = bark[g] * Math.sin(thetas[i]);
+    onBark[v * 3 + 2] = (H * Math.floor(g / n)) / rows;
+  }
+  const seamPoints = new Map<number, number>();
+  const added: number[] = [];
+  const vertexCount = positions.length / 3;
+  const out = new Uint32Array(indices.length * 3);
+  let at = 0;
+  const corners = [0, 0, 0];
+  const cuts = [-1, -1, -1];
+  for (let t = 0; t < indices.length; t += 3) {
+    let crossed = 0;
+    for (let e = 0; e < 3; e++) {
+      const a = indices[t + e];
+      const b = indices[t + ((e + 1) % 3)];
+      corners[e] = a;
+      cuts[e] = -1;
+      if (a >= count || b >= count || !((over[a] > 0 && over[b] < 0) || (over[a] < 0 && over[b] > 0))) continue;
+      const key = Math.min(a, b) * count + Math.max(a, b);
+      let point = seamPoints.get(key);
+      if (point === undefined) {
+        const s = over[a] / (over[a] - over[b]);
+        point = vertexCount + added.length / 3;
+        for (let d = 0; d < 3; d++) added.push(onBark[a * 3 + d] + s * (onBark[b * 3 + d] - onBark[a * 3 + d]));
+        seamPoints.set(key, point);
+      }
+      cuts[e] = point;
+      crossed++;
+    }
+    if (crossed === 0) {
+      at = putTriangle(out, at, corners[0], corners[1], corners[2]);
+      continue;
+    }
+    // Rotate so that edge 0 (corner 0 to corner 1) is cut, and with two cuts, edge 2 (corner 2 to corner 0) too.
+    let r = 0;
+    if (crossed === 1) r = cuts[0] >= 0 ? 0 : cuts[1] >= 0 ? 1 : 2;
+    else r = cuts[0] >= 0 && cuts[2] >= 0 ? 0 : cuts[0] >= 0 ? 1 : 2;
+    const a = corners[r];
+    const b = corners[(r + 1) % 3];
+    const c = corners[(r + 2) % 3];
+    const ab = cuts[r];
+    if (crossed === 1) {
+      at = putTriangle(out, at, a, ab, c);
+      at = putTriangle(out, at, ab, b, c);
+    } else {
+      const ca = cuts[(r + 2) % 3];
+      at = putTriangle(out, at, a, ab, ca);
+      at = putTriangle(out, at, ab, b, c);
+      at = putTriangle(out, at, ab, c, ca);
+    }
+  }
+  if (added.length === 0) return { positions, indices };
+  const grown = new Float32Array(positions.length + added.length);
+  grown.set(positions);
+  grown.set(added, positions.length);
+  return { positions: grown, indices: out.slice(0, at) };
+}
+
 /** Writes one triangle at `at` and returns where the next one goes. */
 function putTriangle(indices: Uint32Array, at: number, a: number, b: number, c: number): number {
   indices[at] = a;
@@ -306,7 +413,6 @@ function putTriangle(indices: Uint32Array, at: number, a: number, b: number, c: 
 function barkRadii(
   options: BarkTubeOptions,
   thetas: Float64Array,
-  flat: Float64Array,
   rows: number,
   ridges: number,
   phase1: number,
@@ -330,7 +436,7 @@ function barkRadii(
       const furrow = depth * Math.min(1, Math.max(0, wave) ** 3 * wobble[ridgeOf[i]]);
       // A furrow's shallow edge is plate: a point that stays on the plate can be left out of the mesh (see
       // keptVertices), which saves about a tenth of the triangles, and FLAT_MM is far below what a printer shows.
-      radii[k * n + i] = Math.min(flat[i], furrow < FLAT_MM ? R : R - furrow);
+      radii[k * n + i] = furrow < FLAT_MM ? R : R - furrow;
     }
   }
   return radii;
