@@ -73,7 +73,8 @@ export function barkTube(options: BarkTubeOptions): Solid {
  * The back and the chambers are part of the mesh rather than cut by the kernel: every kernel operation on the bark
  * costs about as much as the whole mesh, and more for the many triangles a cut across the texture creates. Where the
  * bark would stand proud of the back, each grid point moves in along its ray onto the back, so the side stays one
- * radial height field (it cannot fold over itself) and the caps, fans from the axis, follow the same outline.
+ * radial height field (it cannot fold over itself) and the caps, fans from the axis, follow the same outline. Where a
+ * furrow crosses the back's edge, the triangles are cut along the seam ({@link splitAtBack}).
  * @param options - size, texture depth, seed, resolution, back and chambers
  */
 export function barkTubeMesh(options: BarkTubeOptions): { positions: Float32Array; indices: Uint32Array } {
