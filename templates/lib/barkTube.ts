@@ -338,8 +338,9 @@ function splitAtBack(
     const v = number[g];
     const i = g % n;
     const height = bark[g] - backAt[i];
-    // A point within a nanometre of the back counts as on it: no seam point next to it.
-    over[v] = Math.abs(height) < 1e-6 ? 0 : height;
+    // A point within a micrometre of the back counts as on it: no seam point so close to it that the two would
+    // round to one position or make a sliver.
+    over[v] = Math.abs(height) < 1e-3 ? 0 : height;
     onBark[v * 3] = bark[g] * Math.cos(thetas[i]);
     onBark[v * 3 + 1] = bark[g] * Math.sin(thetas[i]);
     onBark[v * 3 + 2] = (H * Math.floor(g / n)) / rows;
