@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Template } from './types';
-import { barkTube } from './lib/barkTube';
+import { barkTube, type BarkChamber } from './lib/barkTube';
 import { BuildContext } from './lib/BuildContext';
 import { commonParameters } from './lib/commonParameters';
 import { floorOpening } from './lib/floorOpening';
@@ -88,25 +88,13 @@ const PLUG_KEYS = [
   'printClearanceMm',
   'drainageHoles',
 ] as const;
-/** Parameters the bark (the textured trunk with its cleaning opening, before any cut) depends on. */
-const BARK_KEYS = [
-  'cavityDiameterMm',
-  'cavityDepthMm',
-  'storeys',
-  'wallThicknessMm',
-  'barkDepthMm',
-  'barkSeed',
-  'cleaningAccess',
-] as const;
-/** Parameters the cuts (chambers, vents, weep holes, floor opening, back) depend on: not the bark pattern. */
-const CUT_KEYS = [
-  ...CHAMBER_KEYS,
-  ...PLUG_KEYS,
-  'barkDepthMm',
-  'mountRadiusMm',
-  'flatBack',
-  'ventilationSlots',
-] as const;
+/**
+ * Parameters the bark depends on: the textured trunk with its back, its chambers and its cleaning opening, before
+ * any cut.
+ */
+const BARK_KEYS = [...CHAMBER_KEYS, 'barkDepthMm', 'barkSeed', 'cleaningAccess', 'mountRadiusMm', 'flatBack'] as const;
+/** Parameters the cuts (vents, weep holes, drainage holes) depend on: not the bark pattern. */
+const CUT_KEYS = [...CHAMBER_KEYS, ...PLUG_KEYS, 'barkDepthMm', 'ventilationSlots'] as const;
 
 /**
  * Bark trunk printed upright: a bark-textured cylinder with one or two stacked chambers (each with a 45° pointed
@@ -114,7 +102,7 @@ const CUT_KEYS = [
  */
 export const barkTrunk: Template<typeof parameters> = {
   id: 'bark-trunk',
-  version: 4,
+  version: 5,
   name: 'Bark trunk',
   summary: 'Bark-textured log with one or two chambers, knot-rimmed entries and a back shaped to its tree.',
   parameters,
@@ -139,19 +127,20 @@ export const barkTrunk: Template<typeof parameters> = {
     const frontY = -Ro;
     const holeSegments = context.pick(48, 16);
 
-    // The bark (a mesh built here, the costliest solid to make) depends only on the trunk's size and texture, the cuts
-    // (chambers, vents, weep holes, floor opening, back) not on the bark pattern; a slider on the entries, their rims
-    // or the perch reuses both. Everything is then added in one union and cut in one subtraction, because each kernel
-    // operation costs about as much as the whole mesh it works on.
+    // The bark (a mesh built here with its back and chambers, the costliest solid to make) depends only on the
+    // trunk's size, texture and back, the cuts (vents, weep and drainage holes) not on the bark pattern; a slider on
+    // the entries, their rims or the perch reuses both. Everything is then added in one union and cut in one
+    // subtraction, because each kernel operation costs about as much as the whole mesh it works on.
     const bark = context.reuse('bark', p, BARK_KEYS, (q) => trunkBark(q, context));
     const cuts = context.reuse('cuts', p, CUT_KEYS, (q) => trunkCuts(q, context));
 
     const features: Solid[] = p.hangingHole ? [hangingTab(p, context)] : [];
+    // Rims and perches reach into the chamber so they join the wall whatever its thickness.
+    const inChamber: Solid[] = [];
     const holes: Solid[] = [];
     for (let storey = 0; storey < p.storeys; storey++) {
-      const floorZ = t + storey * storeyMm;
       // parseParams has checked the entry against barkMaxHoleAboveFloorMm, so each hole sits exactly where asked.
-      const holeCentreZ = floorZ + p.holeAboveFloorMm + r;
+      const holeCentreZ = t + storey * storeyMm + p.holeAboveFloorMm + r;
       holes.push(
         Solid.prism(teardropOutline(p.entryHoleDiameterMm, holeSegments), 'y', frontY - 12, -Ri + 1).translate(
           0,
@@ -163,10 +152,10 @@ export const barkTrunk: Template<typeof parameters> = {
       if (p.knotRimMm >= 1) {
         // Tip-down outline: the rim's underside is a 45° V, so it prints without support.
         const rim = teardropOutline(p.entryHoleDiameterMm + 2 * p.knotRimMm, holeSegments, false, Math.SQRT2);
-        features.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));
+        inChamber.push(Solid.prism(rim, 'y', frontY - 6, 0).translate(0, 0, holeCentreZ));
       }
       if (p.perch) {
-        features.push(
+        inChamber.push(
           Solid.prism(
             teardropOutline(10, context.pick(24, 12), false, Math.SQRT2),
             'y',
@@ -176,7 +165,13 @@ export const barkTrunk: Template<typeof parameters> = {
         );
       }
     }
-    // Rims and perch reach into the chamber: the cuts (chambers included) trim them with the rest.
+    // The bark has its chambers already, so rims and perches are trimmed on their own (a small operation) by the
+    // chambers grown by 1 mm: the margin lies in solid wall, so the union fills nothing the chambers would keep open,
+    // and no face of theirs lies on the chambers' own surface.
+    if (inChamber.length > 0) {
+      const trim = context.reuse('chamber-trim', p, CHAMBER_KEYS, (q) => grownChambers(q, context, 1));
+      features.push(Solid.union(inChamber).subtract(trim));
+    }
     const body = bark.add(...features).subtract(cuts, ...holes);
 
     const openingMm = p.cavityDiameterMm - 30;
@@ -214,24 +209,36 @@ function barkMaxHoleAboveFloorMm(p: z.output<typeof parameters>): number {
   return p.cavityDepthMm + Ri - (r + 4) - TEARDROP_TIP_RADII * r - 3 - r;
 }
 
-/** The stacked chambers, each a cylinder with a 45° pointed ceiling. */
-function chamberCavities(p: Pick<BarkParams, (typeof CHAMBER_KEYS)[number]>, context: BuildContext): Solid {
+/** The stacked chambers, each a cylinder of the cavity's radius from its floor up to a 45° pointed ceiling. */
+function chambers(p: Pick<BarkParams, (typeof CHAMBER_KEYS)[number]>, context: BuildContext): BarkChamber[] {
   const t = p.wallThicknessMm;
   const Ri = p.cavityDiameterMm / 2;
   const storeyMm = p.cavityDepthMm + Ri + t;
-  const chambers: Solid[] = [];
-  for (let storey = 0; storey < p.storeys; storey++) {
-    const floorZ = t + storey * storeyMm;
-    const ceilingZ = floorZ + p.cavityDepthMm;
-    const chamber: Outline = [
-      [0, floorZ],
-      [Ri, floorZ],
-      [Ri, ceilingZ],
-      [0, ceilingZ + Ri],
-    ];
-    chambers.push(Solid.revolve(chamber, context.pick(SEGMENTS, 24)));
-  }
-  return Solid.union(chambers);
+  return Array.from({ length: p.storeys }, (_, storey) => {
+    const floorZMm = t + storey * storeyMm;
+    return { radiusMm: Ri, floorZMm, ceilingZMm: floorZMm + p.cavityDepthMm, segments: context.pick(SEGMENTS, 24) };
+  });
+}
+
+/** The chambers grown by `marginMm` all round (walls, floor and the 45° ceiling offset along its normal), as one solid. */
+function grownChambers(
+  p: Pick<BarkParams, (typeof CHAMBER_KEYS)[number]>,
+  context: BuildContext,
+  marginMm: number,
+): Solid {
+  return Solid.union(
+    chambers(p, context).map(({ radiusMm, floorZMm, ceilingZMm, segments }) => {
+      const r = radiusMm + marginMm;
+      const apexZ = ceilingZMm + radiusMm + Math.SQRT2 * marginMm;
+      const outline: Outline = [
+        [0, floorZMm - marginMm],
+        [r, floorZMm - marginMm],
+        [r, apexZ - r],
+        [0, apexZ],
+      ];
+      return Solid.revolve(outline, segments);
+    }),
+  );
 }
 
 /** The lowest floor's cleaning opening and plug, or its drainage holes. */
@@ -258,9 +265,12 @@ function trunkSize(
   return { t, Ri, Ro, storeyMm, heightMm: t + storeyMm * p.storeys };
 }
 
-/** The solid bark-textured trunk with its cleaning opening, before the chambers and every other cut. */
+/**
+ * The bark-textured trunk with its back, its chambers and its cleaning opening, before every other cut. The back is
+ * a tree of the given radius touching the chamber wall's outside, or a plane there.
+ */
 function trunkBark(p: Pick<BarkParams, (typeof BARK_KEYS)[number]>, context: BuildContext): Solid {
-  const { Ro, heightMm } = trunkSize(p);
+  const { t, Ri, Ro, heightMm } = trunkSize(p);
   return barkTube({
     radiusMm: Ro,
     heightMm,
@@ -270,11 +280,12 @@ function trunkBark(p: Pick<BarkParams, (typeof BARK_KEYS)[number]>, context: Bui
     // keeps the pattern's shape at a coarser grid (48 × 14 mm: about a quarter less build time than 64 × 10 mm).
     segments: context.pick(160, 48),
     rowMm: context.pick(4, 14),
-    // The cleaning opening through the lowest floor, 1 mm into the chamber (which is cut later), with the plug's
-    // segments.
+    // The cleaning opening through the lowest floor into the chamber, with the plug's segments.
     bottomHole: p.cleaningAccess
-      ? { radiusMm: (p.cavityDiameterMm - 30) / 2, depthMm: p.wallThicknessMm + 1, segments: context.pick(64, 16) }
+      ? { radiusMm: (p.cavityDiameterMm - 30) / 2, depthMm: t, segments: context.pick(64, 16) }
       : undefined,
+    back: { yMm: Ri + t, treeRadiusMm: p.flatBack ? undefined : p.mountRadiusMm },
+    chambers: chambers(p, context),
   });
 }
 
@@ -290,14 +301,11 @@ function hangingTab(p: BarkParams, context: BuildContext): Solid {
   return tab.subtract(eye);
 }
 
-/**
- * Everything cut from the trunk but the entries: the chambers, ventilation slots, weep holes, floor opening and the
- * back (a tree of the given radius touching the chamber wall's outside, or a flat cut there), as one solid.
- */
+/** Everything cut from the trunk but the entries: the ventilation slots, weep holes and drainage holes, as one solid. */
 function trunkCuts(p: Pick<BarkParams, (typeof CUT_KEYS)[number]>, context: BuildContext): Solid {
-  const { t, Ri, Ro, storeyMm, heightMm } = trunkSize(p);
+  const { t, Ri, Ro, storeyMm } = trunkSize(p);
   const frontY = -Ro;
-  const cuts: Solid[] = [chamberCavities(p, context)];
+  const cuts: Solid[] = [];
   for (let storey = 0; storey < p.storeys; storey++) {
     const floorZ = t + storey * storeyMm;
     const ceilingZ = floorZ + p.cavityDepthMm;
@@ -321,15 +329,5 @@ function trunkCuts(p: Pick<BarkParams, (typeof CUT_KEYS)[number]>, context: Buil
   }
   // The cleaning opening is in the bark's mesh; drainage holes are cut.
   if (!p.cleaningAccess) cuts.push(...bodyFloor(p, context).cuts);
-  const backY = Ri + t;
-  cuts.push(
-    p.flatBack
-      ? Solid.box([2 * Ro + 20, Ro, heightMm + 40], [-Ro - 10, backY, -10])
-      : Solid.cylinder(heightMm + 40, p.mountRadiusMm, context.pick(180, 48)).translate(
-          0,
-          backY + p.mountRadiusMm,
-          -10,
-        ),
-  );
   return Solid.union(cuts);
 }
