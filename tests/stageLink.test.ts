@@ -76,8 +76,8 @@ describe('linkViewerStage', () => {
     const events: StageEvent[] = [];
     const link = linkViewerStage(handingCanvas({}), (event) => events.push(event));
     const worker = StandInWorker.created[0];
-    worker.onmessage?.({ data: { type: 'drawn', token: 3 } } as MessageEvent<StageEvent>);
-    expect(events).toEqual([{ type: 'drawn', token: 3 }]);
+    worker.onmessage?.({ data: { type: 'drawn', token: 3, drawnAt: 1000 } } as MessageEvent<StageEvent>);
+    expect(events).toEqual([{ type: 'drawn', token: 3, drawnAt: 1000 }]);
     link.dispose();
     expect(worker.terminated).toBe(true);
   });

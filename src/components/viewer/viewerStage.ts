@@ -50,7 +50,8 @@ export type StageCommand =
 
 /** Messages from the stage to the page. */
 export type StageEvent =
-  | { type: 'drawn'; token: number }
+  /** `drawnAt`: when the frame was drawn, in ms since the epoch (performance.timeOrigin + now: comparable across threads). */
+  | { type: 'drawn'; token: number; drawnAt: number }
   | { type: 'thumbnail'; id: number; url: string | null }
   | { type: 'failed'; message: string };
 
@@ -129,7 +130,7 @@ export function createViewerStage(
       frameRequested = false;
       renderer.render(scene, camera);
       if (unannounced !== null) {
-        send({ type: 'drawn', token: unannounced });
+        send({ type: 'drawn', token: unannounced, drawnAt: performance.timeOrigin + performance.now() });
         unannounced = null;
       }
     });
