@@ -66,9 +66,9 @@ export function useGeometryWorker() {
   let queued: GeometryRequest | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
   /**
-   * A draft just arrived and its frame is not drawn yet: the next draft waits for that frame. With software WebGL the
-   * page's main thread waits for every drawn frame to be read back, and a worker building at the same moment takes
-   * the CPU that read-back needs (2 cores), which turned frames into long tasks during a drag.
+   * A draft just arrived and its frame is not drawn yet: the next draft waits for that frame. With software WebGL
+   * every drawn frame is shaded and read back on the CPU, and a worker building at the same moment takes the CPU that
+   * frame needs (2 cores).
    */
   let draftFramePending = false;
 

@@ -89,8 +89,9 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
   /**
    * The viewer drew a new mesh: records the time from its input to that frame.
    * @param mesh - the mesh the frame showed
+   * @param drawnAt - when that frame was drawn (performance clock); now when omitted
    */
-  function meshShown(mesh: IndexedMesh): void {
+  function meshShown(mesh: IndexedMesh, drawnAt = performance.now()): void {
     const shown = geometry.result.value;
     if (!shown || shown.mesh !== mesh) return;
     const started = inputAtByRequest.get(shown.requestId);
@@ -98,7 +99,7 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
     inputAtByRequest.delete(shown.requestId);
     performance.measure(`nw-preview-${shown.quality}`, {
       start: started,
-      end: performance.now(),
+      end: Math.max(started, drawnAt),
       detail: { requestId: shown.requestId, templateId: design.templateId, triangles: mesh.indices.length / 3 },
     });
   }

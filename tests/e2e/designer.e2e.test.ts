@@ -14,6 +14,8 @@ import { generate } from '../../templates/generate';
 import { liveLimits } from '../../templates/lib/liveLimits';
 import { parseStl } from '../../shared/mesh/parseStl';
 import { parse3mf } from '../../shared/mesh/parse3mf';
+import sharp from 'sharp';
+import { PALETTE } from '../../src/styles/palette';
 import { startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
@@ -27,6 +29,22 @@ beforeAll(async () => {
 afterAll(async () => {
   await e2e?.close();
 });
+
+/**
+ * Share of an image's pixels that differ clearly from the 3D stage's background (the model, the plate and its lines
+ * drawn on it); an empty or undrawn canvas gives 0.
+ * @param png - a PNG image
+ */
+async function drawnShare(png: Buffer): Promise<number> {
+  const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  const ground = [1, 3, 5].map((at) => parseInt(PALETTE.stage.slice(at, at + 2), 16));
+  let drawn = 0;
+  for (let i = 0; i < data.length; i += 3) {
+    const off = Math.abs(data[i] - ground[0]) + Math.abs(data[i + 1] - ground[1]) + Math.abs(data[i + 2] - ground[2]);
+    if (off > 24) drawn++;
+  }
+  return drawn / (info.width * info.height);
+}
 
 /** Waits until the editor shows a built mesh whose hash differs from `previous` and returns that hash. */
 async function waitForBuild(page: Page, previous = '…'): Promise<string> {
@@ -86,6 +104,20 @@ describe('designer configurator', () => {
 
       const firstHash = await waitForBuild(page);
       expect(await page.getByTestId('model-canvas').count()).toBe(1);
+      // The preview is drawn by a worker (the page's canvas was handed over, so the page cannot draw on it), and what
+      // the worker drew is on screen: the model and the plate cover a good part of the stage.
+      const handedOver = await page.getByTestId('model-canvas').evaluate((canvas: HTMLCanvasElement) => {
+        try {
+          canvas.getContext('2d');
+          return false;
+        } catch {
+          return true;
+        }
+      });
+      expect(handedOver).toBe(true);
+      await expect
+        .poll(async () => drawnShare(await page.getByTestId('model-canvas').screenshot()))
+        .toBeGreaterThan(0.1);
       expect(await entryInputValue(page)).toBeCloseTo(Number(entry!.default), 6);
       const volumeBefore = await figure(page, 'volume');
       const massBefore = await figure(page, 'mass');
@@ -199,6 +231,9 @@ describe('designer configurator', () => {
     expect(stored.status()).toBe(200);
     const preset = (await stored.json()) as { params: Record<string, unknown>; thumbnail: string | null };
     expect(preset.thumbnail).toMatch(/^data:image\/png;base64,/);
+    // The thumbnail shows the model, not an empty stage (it is drawn by the viewer's worker and read back there).
+    const thumbnailPng = Buffer.from(preset.thumbnail!.slice('data:image/png;base64,'.length), 'base64');
+    expect(await drawnShare(thumbnailPng)).toBeGreaterThan(0.1);
     expect(preset.params.entryHoleDiameterMm).toBeCloseTo(entryMm, 6);
 
     // Download the STL written in the browser.

@@ -14,14 +14,15 @@ export interface ThumbnailStage {
 }
 
 /**
- * Renders the stage into a small PNG data URL (for preset thumbnails): same viewing direction as the person's view,
- * framed on the model at the thumbnail's aspect ratio, then the live view is drawn again at its own size.
+ * Renders the stage into a small image (for preset thumbnails): same viewing direction as the person's view, framed
+ * on the model at the thumbnail's aspect ratio, then the live view is drawn again at its own size.
  * @param stage - renderer, scene, camera and what to frame
  * @param widthPx - thumbnail width in pixels
  * @param heightPx - thumbnail height in pixels
- * @returns the data URL
+ * @param capture - reads the canvas right after the thumbnail is drawn (e.g. into a PNG data URL)
+ * @returns what `capture` returned
  */
-export function renderThumbnail(stage: ThumbnailStage, widthPx: number, heightPx: number): string {
+export function renderThumbnail<T>(stage: ThumbnailStage, widthPx: number, heightPx: number, capture: () => T): T {
   const { renderer: r, scene, camera } = stage;
   const shot = camera.clone();
   shot.aspect = widthPx / heightPx;
@@ -47,7 +48,7 @@ export function renderThumbnail(stage: ThumbnailStage, widthPx: number, heightPx
   r.setSize(widthPx, heightPx, false);
   r.render(scene, shot);
   // Read back in the same task: the drawing buffer is still intact without preserveDrawingBuffer.
-  const url = r.domElement.toDataURL('image/png');
+  const url = capture();
   if (stage.hidden) stage.hidden.visible = true;
   r.setPixelRatio(previousRatio);
   r.setSize(previous.x, previous.y, false);
