@@ -1,7 +1,7 @@
-import { Earcut } from 'three/src/extras/Earcut.js';
 import type { IndexedMesh } from '../../shared/schemas/mesh';
 import { numberByFirstUse } from './partMesh';
 import type { Outline } from './Solid';
+import { earClip } from './meshBuilder';
 
 /** An upright post with a rectangular footprint, standing on an upward-facing surface of a mesh. */
 export interface PostOptions {
@@ -334,18 +334,7 @@ class PostJoin {
 
   /** Ear-clips a planar face given in a 2D frame whose u × v is the outward normal, and adds its triangles. */
   private face(points: [number, number][], ids: number[], holeStarts: number[]): void {
-    const flat = points.flat();
-    const triangles = Earcut.triangulate(flat, holeStarts, 2);
-    let area = 0;
-    for (let k = 0; k < triangles.length; k += 3) {
-      const [a, b, c] = [triangles[k] * 2, triangles[k + 1] * 2, triangles[k + 2] * 2];
-      area += (flat[b] - flat[a]) * (flat[c + 1] - flat[a + 1]) - (flat[c] - flat[a]) * (flat[b + 1] - flat[a + 1]);
-    }
-    for (let k = 0; k < triangles.length; k += 3) {
-      const [a, b, c] = [ids[triangles[k]], ids[triangles[k + 1]], ids[triangles[k + 2]]];
-      if (area > 0) this.triangles.push(a, b, c);
-      else this.triangles.push(a, c, b);
-    }
+    this.triangles.push(...earClip(points.flat(), ids, holeStarts, true));
   }
 
   /**
