@@ -193,7 +193,15 @@ describe('variant families: build, review, publish, catalogue', () => {
       ['28', '32'].flatMap((mm) => ['MOSS', 'SAND', 'WHIT'].map((c) => `FH-${CODE}-${mm}-${c}`)).sort(),
     );
 
-    // Bird-fit warnings that need it are acknowledged in writing, one text per warning.
+    // Bird-fit warnings that need it are acknowledged in writing, one text per warning. The rows update per variant
+    // while the family itself reloads after the last one: wait until the gate no longer says "not computed".
+    await page.waitForFunction(
+      () =>
+        !document.querySelector('[data-testid="gate-blockers"] [data-code="not_computed"]') &&
+        !!document.querySelector('[data-testid="gate-panel"]'),
+      undefined,
+      { timeout: 15_000 },
+    );
     const acks = page.locator('textarea[id^="ack-"]');
     const ackCount = await acks.count();
     for (let i = 0; i < ackCount; i++) {
