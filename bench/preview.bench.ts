@@ -109,6 +109,8 @@ interface TemplateFigures {
   browserP50Ms: number | null;
   browserP95Ms: number | null;
   browserReleaseP95Ms: number | null;
+  /** Release to the full frame on screen (after its read-back), p95. */
+  browserReleaseScreenP95Ms: number | null;
   longTasks: number | null;
   loadAverage: string;
 }
@@ -164,6 +166,7 @@ async function measureTemplate(id: string, calibrations: number[]): Promise<Temp
     browserP50Ms: null,
     browserP95Ms: null,
     browserReleaseP95Ms: null,
+    browserReleaseScreenP95Ms: null,
     longTasks: null,
     loadAverage: loadText(),
   };
@@ -219,6 +222,7 @@ export default async function bench(): Promise<void> {
       t.browserP50Ms = b.p50Ms;
       t.browserP95Ms = b.p95Ms;
       t.browserReleaseP95Ms = b.releaseP95Ms;
+      t.browserReleaseScreenP95Ms = b.releaseScreenP95Ms;
       t.longTasks = b.longTasks;
     }
   }

@@ -2,8 +2,9 @@
  * The Chromium part of `npm run bench -- preview`: drives the real editor (client built as for the browser tests,
  * real server on an in-memory seeded database, Debian's Chromium through playwright-core) and reads the measures the
  * page records from a slider input to the frame that shows the new mesh (`nw-preview-draft` while the slider is held,
- * `nw-preview-full` from its release). Per template: p50/p95 over 50 moves of the entry-hole slider while held, p95
- * of five releases, and the long tasks (over 50 ms, PerformanceObserver 'longtask') on the page's main thread during
+ * `nw-preview-full` from its release). Per template: p50/p95 over 50 moves of the entry-hole slider while held, p50
+ * and p95 of five releases, split into the mesh's arrival on the page (build and transfer) and, after the frame was
+ * drawn, its arrival on the screen (`…-arrival`, `…-screen` measures), and the long tasks (over 50 ms, PerformanceObserver 'longtask') on the page's main thread during
  * a 5 s drag. Chromium runs with --disable-gpu, so WebGL is software-rendered: the renderer string is reported.
  */
 import type { Page } from 'playwright-core';
@@ -15,7 +16,15 @@ export interface BrowserTemplateFigures {
   moves: number;
   p50Ms: number | null;
   p95Ms: number | null;
+  /** Drafts: input to the frame on screen (after its read-back). */
+  screenP95Ms: number | null;
+  releaseP50Ms: number | null;
   releaseP95Ms: number | null;
+  /** Releases: to the full mesh on the page (its build and transfer), p95. */
+  releaseArrivalP95Ms: number | null;
+  /** Releases: to the frame on screen, p50 and p95. */
+  releaseScreenP50Ms: number | null;
+  releaseScreenP95Ms: number | null;
   longTasks: number;
 }
 
@@ -107,10 +116,11 @@ async function measureTemplate(page: Page, baseUrl: string, id: string): Promise
     await page.mouse.move(x, slider.y);
     await waitForMeasure(page, 'nw-preview-draft', before);
   }
-  const fullBefore = await measureCount(page, 'nw-preview-full');
+  const fullBefore = await measureCount(page, 'nw-preview-full-screen');
   await page.mouse.up();
-  await waitForMeasure(page, 'nw-preview-full', fullBefore, 10_000);
+  await waitForMeasure(page, 'nw-preview-full-screen', fullBefore, 10_000);
   const drafts = await durations(page, 'nw-preview-draft');
+  const draftsOnScreen = await durations(page, 'nw-preview-draft-screen');
 
   // Releases: a short drag, then the full build on release.
   for (let i = 0; i < RELEASES - 1; i++) {
@@ -118,11 +128,13 @@ async function measureTemplate(page: Page, baseUrl: string, id: string): Promise
     await page.mouse.move(handle.x, handle.y);
     await page.mouse.down();
     await page.mouse.move(handle.x + (i % 2 ? -dx : dx), handle.y);
-    const before = await measureCount(page, 'nw-preview-full');
+    const before = await measureCount(page, 'nw-preview-full-screen');
     await page.mouse.up();
-    await waitForMeasure(page, 'nw-preview-full', before, 10_000);
+    await waitForMeasure(page, 'nw-preview-full-screen', before, 10_000);
   }
   const releases = await durations(page, 'nw-preview-full');
+  const releaseArrivals = await durations(page, 'nw-preview-full-arrival');
+  const releasesOnScreen = await durations(page, 'nw-preview-full-screen');
 
   // Long tasks during a 5 s drag (a move every frame or so, without waiting for the preview).
   await page.evaluate(() => {
@@ -154,7 +166,12 @@ async function measureTemplate(page: Page, baseUrl: string, id: string): Promise
     moves: drafts.length,
     p50Ms: percentile(drafts, 50),
     p95Ms: percentile(drafts, 95),
+    screenP95Ms: percentile(draftsOnScreen, 95),
+    releaseP50Ms: percentile(releases, 50),
     releaseP95Ms: percentile(releases, 95),
+    releaseArrivalP95Ms: percentile(releaseArrivals, 95),
+    releaseScreenP50Ms: percentile(releasesOnScreen, 50),
+    releaseScreenP95Ms: percentile(releasesOnScreen, 95),
     longTasks,
   };
 }
@@ -187,7 +204,10 @@ export async function measureBrowserPreview(
       templates[id] = figures;
       const f = (v: number | null): string => (v === null ? '   n/a' : v.toFixed(1).padStart(6));
       log(
-        `  ${id.padEnd(11)} input→frame (draft, held) p50 ${f(figures.p50Ms)} p95 ${f(figures.p95Ms)} ms over ${figures.moves} moves; release→full frame p95 ${f(figures.releaseP95Ms)} ms; long tasks in a 5 s drag: ${figures.longTasks}`,
+        `  ${id.padEnd(11)} input→frame (draft, held) p50 ${f(figures.p50Ms)} p95 ${f(figures.p95Ms)} ms over ${figures.moves} moves (on screen p95 ${f(figures.screenP95Ms)}); long tasks in a 5 s drag: ${figures.longTasks}`,
+      );
+      log(
+        `  ${''.padEnd(11)} release→full mesh on the page p95 ${f(figures.releaseArrivalP95Ms)}; →frame drawn p50 ${f(figures.releaseP50Ms)} p95 ${f(figures.releaseP95Ms)}; →on screen p50 ${f(figures.releaseScreenP50Ms)} p95 ${f(figures.releaseScreenP95Ms)} ms`,
       );
       const problems = e2e.problems(page);
       if (problems.length > 0) log(`    page problems: ${problems.slice(0, 3).join(' | ')}`);

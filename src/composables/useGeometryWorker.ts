@@ -36,6 +36,8 @@ export interface GeometryResult {
   /** Per-triangle overhang flags of this mesh, or null until analysed. */
   overhangMask: Uint8Array | null;
   timingsMs: { build: number; analysis: number | null };
+  /** When the mesh reached the page (ms, performance clock). */
+  arrivedAt: number;
 }
 
 /**
@@ -189,6 +191,7 @@ export function useGeometryWorker() {
         figuresCurrent: false,
         overhangMask: null,
         timingsMs: { build: response.buildMs, analysis: null },
+        arrivedAt: performance.now(),
       };
       error.value = null;
       errorField.value = null;

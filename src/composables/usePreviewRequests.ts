@@ -19,7 +19,9 @@ export interface PreviewRequestsOptions {
  * Turns the editor's value changes into preview builds: drafts while a slider is held, the full build on its
  * release (and for every other change), and the timing of each: from the input (or the release) to the frame that
  * first shows its mesh, recorded as a performance measure `nw-preview-draft` / `nw-preview-full` that the preview
- * bench reads in Chromium.
+ * bench reads in Chromium. Two more measures split it: `…-arrival` ends when the mesh reached the page (the build and
+ * its transfer) and `…-screen` when the drawn frame had gone to the screen (with software WebGL, after its pixels
+ * were read back).
  * @param options - the geometry worker and the production choice, template and region of the design
  * @returns the parameter moved last, and the handlers for a change, a hold, a release and a mesh on screen
  */
@@ -35,6 +37,8 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
   /** When the person moved a value last (ms, performance clock): the start of the preview latency measure. */
   let inputAt: number | null = null;
   const inputAtByRequest = new Map<number, number>();
+  /** Meshes drawn whose frame has not reached the screen yet: when their input began, and their quality. */
+  const awaitingScreen = new Map<IndexedMesh, { started: number; quality: BuildQuality }>();
 
   /** Asks the worker for the current values at the given quality and remembers when the change began. */
   function requestBuild(quality: BuildQuality): void {
@@ -97,12 +101,31 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
     const started = inputAtByRequest.get(shown.requestId);
     if (started === undefined) return;
     inputAtByRequest.delete(shown.requestId);
-    performance.measure(`nw-preview-${shown.quality}`, {
+    const detail = { requestId: shown.requestId, templateId: design.templateId, triangles: mesh.indices.length / 3 };
+    performance.measure(`nw-preview-${shown.quality}`, { start: started, end: Math.max(started, drawnAt), detail });
+    performance.measure(`nw-preview-${shown.quality}-arrival`, {
       start: started,
-      end: Math.max(started, drawnAt),
-      detail: { requestId: shown.requestId, templateId: design.templateId, triangles: mesh.indices.length / 3 },
+      end: Math.max(started, shown.arrivedAt),
+      detail,
+    });
+    awaitingScreen.clear();
+    awaitingScreen.set(mesh, { started, quality: shown.quality });
+  }
+
+  /**
+   * The frame that showed a mesh reached the screen: records the time from its input to then.
+   * @param mesh - the mesh the frame showed
+   * @param presentedAt - when the frame went to the screen (performance clock)
+   */
+  function meshPresented(mesh: IndexedMesh, presentedAt: number): void {
+    const waiting = awaitingScreen.get(mesh);
+    if (!waiting) return;
+    awaitingScreen.delete(mesh);
+    performance.measure(`nw-preview-${waiting.quality}-screen`, {
+      start: waiting.started,
+      end: Math.max(waiting.started, presentedAt),
     });
   }
 
-  return { movedKey, held, changeParam, holdSlider, releaseSlider, meshShown };
+  return { movedKey, held, changeParam, holdSlider, releaseSlider, meshShown, meshPresented };
 }

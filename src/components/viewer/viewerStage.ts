@@ -52,6 +52,12 @@ export type StageCommand =
 export type StageEvent =
   /** `drawnAt`: when the frame was drawn, in ms since the epoch (performance.timeOrigin + now: comparable across threads). */
   | { type: 'drawn'; token: number; drawnAt: number }
+  /**
+   * The frame that showed `token` has gone to the screen: the stage's next animation frame began, which happens only
+   * once the drawn frame was handed on (with software WebGL that includes reading its pixels back). `presentedAt` on
+   * the same clock as `drawnAt`.
+   */
+  | { type: 'presented'; token: number; presentedAt: number }
   | { type: 'thumbnail'; id: number; url: string | null }
   | { type: 'failed'; message: string };
 
@@ -130,8 +136,10 @@ export function createViewerStage(
       frameRequested = false;
       renderer.render(scene, camera);
       if (unannounced !== null) {
-        send({ type: 'drawn', token: unannounced, drawnAt: performance.timeOrigin + performance.now() });
+        const token = unannounced;
+        send({ type: 'drawn', token, drawnAt: performance.timeOrigin + performance.now() });
         unannounced = null;
+        nextFrame(() => send({ type: 'presented', token, presentedAt: performance.timeOrigin + performance.now() }));
       }
     });
   }
