@@ -2,7 +2,7 @@ import type { IndexedMesh } from '../schemas/mesh';
 import type { BuildOrientation, GeometryReport } from '../schemas/analysis';
 import { findBridges, type BridgeOptions } from './findBridges';
 import { encodeFaceBitset } from './faceBitset';
-import { measureMesh } from './measureMesh';
+import { DEFAULT_OVERHANG_DEG, measureMesh } from './measureMesh';
 import { meshTopology } from './meshTopology';
 import { orientMesh, rotationFor } from './orientMesh';
 import { supportVolume } from './supportVolume';
@@ -41,7 +41,7 @@ export interface GeometryAnalysis {
  */
 export function analyzeGeometry(mesh: IndexedMesh, options: GeometryOptions = {}): GeometryAnalysis {
   const up = options.up ?? '+z';
-  const overhangDeg = options.overhangDeg ?? 45;
+  const overhangDeg = options.overhangDeg ?? DEFAULT_OVERHANG_DEG;
   const oriented = orientMesh(mesh, up);
   const m = measureMesh(oriented, overhangDeg);
   const topology = meshTopology(oriented);

@@ -3,6 +3,9 @@ import type { IndexedMesh } from '../schemas/mesh';
 /** Faces whose corners all lie within this height of the plate count as resting on it (common practice, no source). */
 export const PLATE_TOLERANCE_MM = 0.05;
 
+/** Faces steeper than this from vertical, facing down, need support (the common default; common practice). */
+export const DEFAULT_OVERHANG_DEG = 45;
+
 /** Results of the single linear pass over the triangles. */
 export interface MeshMeasures {
   triangles: number;
@@ -27,7 +30,7 @@ export interface MeshMeasures {
  * @param overhangDeg - threshold in degrees from vertical (45 is the common default)
  * @returns the measures
  */
-export function measureMesh(mesh: IndexedMesh, overhangDeg = 45): MeshMeasures {
+export function measureMesh(mesh: IndexedMesh, overhangDeg = DEFAULT_OVERHANG_DEG): MeshMeasures {
   const p = mesh.positions;
   const idx = mesh.indices;
   const triangles = (idx.length / 3) | 0;

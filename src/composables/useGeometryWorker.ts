@@ -189,7 +189,7 @@ export function useGeometryWorker() {
         partTriangles: response.partTriangles,
         figures: previous?.figures ?? null,
         figuresCurrent: false,
-        overhangMask: null,
+        overhangMask: response.overhangMask,
         timingsMs: { build: response.buildMs, analysis: null },
         arrivedAt: performance.now(),
       };
@@ -207,7 +207,8 @@ export function useGeometryWorker() {
         ...result.value,
         figures: response.figures,
         figuresCurrent: true,
-        overhangMask: response.overhangMask,
+        // The mesh came with the same flags: keeping that array spares the viewer a second frame of the same picture.
+        overhangMask: result.value.overhangMask ?? response.overhangMask,
         timingsMs: { ...result.value.timingsMs, analysis: response.analysisMs },
       };
       busy.value = queued !== null;

@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 /**
  * The geometry worker: builds a template (the same generate() the server export uses, or generateDraft() while a
- * slider is held) and posts the mesh, then (full builds only) each parameter's live range. Requests are handled one at a time in arrival order. Sub-solids whose
+ * slider is held) and posts the mesh with its overhang flags, then (full builds only) each parameter's live range. Requests are handled one at a time in arrival order. Sub-solids whose
  * parameters did not change are reused from a small cache (a reused sub-solid gives the same mesh bytes). The
  * figures are computed by the figures worker, so an analysis never delays the next build. Meshes travel as
  * transferable typed arrays (moved, not copied).
@@ -12,6 +12,7 @@ import { findTemplate } from '../../templates/index';
 import { liveLimits } from '../../templates/lib/liveLimits';
 import { SolidCache } from '../../templates/lib/SolidCache';
 import { TemplateParamError } from '../../templates/lib/TemplateParamError';
+import { overhangMaskOf } from '../../shared/analysis/overhangMask';
 import type { GeometryRequest, GeometryResponse } from './geometryProtocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -44,6 +45,8 @@ async function handle(request: GeometryRequest): Promise<void> {
         ? { ...(await generateDraft(request.templateId, request.params, options)), sha256: null }
         : await generate(request.templateId, request.params, options);
     const { mesh } = result;
+    // The overhang tint goes with the mesh, so the preview draws the mesh once, tinted, not again when its figures come.
+    const overhangMask = overhangMaskOf(mesh);
     post(
       {
         requestId,
@@ -56,9 +59,10 @@ async function handle(request: GeometryRequest): Promise<void> {
         sha256: result.sha256,
         partNames: result.partNames,
         partTriangles: result.partTriangles,
+        overhangMask,
         buildMs: performance.now() - started,
       },
-      [mesh.positions.buffer, mesh.indices.buffer],
+      [mesh.positions.buffer, mesh.indices.buffer, overhangMask.buffer],
     );
   } catch (err) {
     fail(requestId, err);

@@ -102,6 +102,8 @@ export type GeometryResponse =
       partNames: string[];
       /** Triangles of each part: the mesh holds the parts one after another. */
       partTriangles: number[];
+      /** Per-triangle overhang flags, as the figures' analysis computes them (1 = beyond the self-supporting angle). */
+      overhangMask: Uint8Array;
       /** Milliseconds spent building, validating and hashing. */
       buildMs: number;
     }
