@@ -157,6 +157,33 @@ describe('designer configurator', () => {
     120_000,
   );
 
+  it('draws on the page itself where a canvas cannot be handed to a worker, and still follows the slider', async () => {
+    const page = await e2e.newPage();
+    // As in a browser without OffscreenCanvas for WebGL: the page's canvas offers no way to hand it over.
+    await page.addInitScript(() => {
+      delete (HTMLCanvasElement.prototype as Partial<HTMLCanvasElement>).transferControlToOffscreen;
+    });
+    await e2e.signInAs(page, 'designer');
+    await page.goto('/designs/new/gable-box');
+    const firstHash = await waitForBuild(page);
+    // The page kept its canvas (a handed-over canvas refuses a context; this one gives its WebGL context back).
+    const kept = await page
+      .getByTestId('model-canvas')
+      .evaluate(
+        (canvas: HTMLCanvasElement) => canvas.getContext('webgl2') !== null || canvas.getContext('webgl') !== null,
+      );
+    expect(kept).toBe(true);
+    await expect.poll(async () => drawnShare(await page.getByTestId('model-canvas').screenshot())).toBeGreaterThan(0.1);
+    const before = await page.getByTestId('model-canvas').screenshot();
+    await moveEntrySlider(page, 0.6);
+    await waitForBuild(page, firstHash);
+    // The new mesh is drawn: the stage's pixels change.
+    await expect.poll(async () => (await page.getByTestId('model-canvas').screenshot()).equals(before)).toBe(false);
+    await page.screenshot({ path: `${SHOTS}/editor-page-stage.png` });
+    expect(e2e.problems(page)).toEqual([]);
+    await page.context().close();
+  }, 120_000);
+
   it('renames and deletes a preset from the designs screen, with a confirmation', async () => {
     const template = TEMPLATES[0];
     const page = await e2e.newPage();
