@@ -1,15 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { AnalysisReportSchema } from '../shared/schemas/analysis';
 import { box, geomToMesh, toAsciiStl, toBinaryStl } from './meshFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 const cubeStl = (): Buffer => Buffer.from(toBinaryStl(geomToMesh(box([0, 0, 0], [20, 20, 20]))));
 

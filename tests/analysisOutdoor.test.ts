@@ -8,14 +8,14 @@ import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { analyzeMesh, type AnalyzeMeshOptions } from '../shared/analysis/analyzeMesh';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { AnalysisReportSchema } from '../shared/schemas/analysis';
 import type { IndexedMesh } from '../shared/schemas/mesh';
 import type { Material } from '../shared/schemas/production';
 import { box, geomToMesh, loadManifold, manifoldToMesh, toBinaryStl } from './meshFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
 const run = promisify(execFile);
 const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
@@ -27,14 +27,10 @@ const base: AnalyzeMeshOptions = {
 };
 
 let hollow: IndexedMesh;
-let t: TestApp;
+const t = useTestApp();
 beforeAll(async () => {
   const { Manifold } = await loadManifold();
   hollow = manifoldToMesh(Manifold.cube([60, 60, 60], true).subtract(Manifold.cube([54, 54, 54], true)));
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
 });
 
 describe('outdoor section of the analysis report', () => {

@@ -9,20 +9,16 @@ import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { ApiErrorSchema } from '../shared/schemas/error';
 import { createApp } from '../server/app';
 import { errorHandler } from '../server/http/errorHandler';
-import { makeTestApp, type TestAgent, type TestApp } from './setup/testApp';
+import { useTestApp, type TestAgent } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let admin: TestAgent;
 beforeAll(async () => {
-  t = await makeTestApp();
   admin = await t.agent('admin');
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const validPerson = {

@@ -5,21 +5,15 @@
  */
 import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SESSION_COOKIE_NAME, SESSION_LIFETIME } from '../server/auth/lucia';
 import { createApp } from '../server/app';
 import { SIGN_IN_ATTEMPTS } from '../server/auth/signInLimiter';
 import { auditEvents, people, sessions } from '../server/db/schema';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../server/db/seedDemo';
-import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
+import { makeTestApp, useTestApp, TEST_ORIGIN } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 /** The session cookie from a response, split into its attributes. */
 function sessionCookie(res: { headers: Record<string, unknown> }): { value: string; attributes: string[] } | undefined {

@@ -25,7 +25,7 @@ import { listRoutes } from './setup/listRoutes';
 import { DEFAULT_SALES_SETTINGS } from '../server/services/salesSettings';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp, type TestApp } from './setup/testApp';
 import { box, geomToMesh, toBinaryStl } from './meshFixtures';
 import { paymentsOf } from '../server/payments/paymentRuntime';
 import { getRow } from '../server/services/orderQueries';
@@ -600,15 +600,13 @@ function expected(row: AuthzRow, caller: Role | null): '2xx' | number {
   return row.allowed.includes(caller) ? (row.allowedStatus ?? '2xx') : 403;
 }
 
-let t: TestApp;
+const t = useTestApp();
 let shop: ShopTest;
 beforeAll(async () => {
-  t = await makeTestApp();
   shop = await startShopTest(t);
 });
 afterAll(async () => {
   await shop?.close();
-  await t.close();
 });
 
 describe('authorization table', () => {

@@ -3,20 +3,14 @@
  * designers, with what a spec sheet needs; `getVariantBySku` for other features. The seeded demo families are
  * Hedgerow Gable (HGB, published, 12 variants), Copse A-frame (CAF, in review) and Meadow Gable (MGB, draft).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import { DEFAULT_RATES } from '../shared/production/defaults';
 import { getVariantBySku, listCatalogueVariants } from '../server/services/catalogue';
 import { findTemplate } from '../templates/index';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 describe('GET /api/catalogue', () => {
   it('lists every published variant and nothing in review or draft', async () => {

@@ -11,22 +11,16 @@ import type { AddressInfo } from 'node:net';
 import { gunzipSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { CatalogueVariant } from '../shared/schemas/catalogue';
 import type { ShopProductList } from '../shared/schemas/shop';
 import { SESSION_COOKIE_NAME } from '../server/auth/lucia';
 import { families } from '../server/db/schema';
 import { STAMP_CHECK_MS } from '../server/services/catalogueCache';
 import { familyInState } from './familiesFixtures';
-import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
+import { useTestApp, TEST_ORIGIN } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 /** GETs a path from the app on a real port and keeps the raw bytes (supertest would inflate them). */
 async function rawGet(

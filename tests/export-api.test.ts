@@ -5,22 +5,18 @@
  */
 import { createHash } from 'node:crypto';
 import { unzipSync, strFromU8 } from 'fflate';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { HttpError } from '../server/http/HttpError';
 import { exportDesign } from '../server/services/exportDesign';
 import { ExportError, ExportWorker } from '../server/workers/ExportWorker';
 import { generate } from '../templates/index';
-import { makeTestApp, type TestApp, type TestAgent } from './setup/testApp';
+import { useTestApp, type TestAgent } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let designer: TestAgent;
 
 beforeAll(async () => {
-  t = await makeTestApp();
   designer = await t.agent('designer');
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 /** supertest buffers binary bodies only with a parser. */

@@ -4,7 +4,7 @@
  * Workflow rules are our own product decisions (PRODUCT.md, issue 5): no outside source. Geometry checks of computed
  * variants use manifold-3d (outside library) and the template's own generate() hash.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { buildVariantMatrix, variantCount } from '../shared/families/variantMatrix';
 import { axisValueCode, skuFor } from '../shared/families/sku';
 import { FAMILY_MAX_VARIANTS, SkuSchema } from '../shared/schemas/familySpec';
@@ -14,16 +14,12 @@ import { findTemplate, generate } from '../templates/index';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { currentRevisionId } from '../server/services/families/familyQueries';
 import { acknowledgeAll, computeNow, createTestFamily, familyInState, smallFamilyBody } from './familiesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 import { manifoldReport } from './templates.meshCheck';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
+const t = useTestApp();
 afterAll(async () => {
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 async function variantsOf(id: string, query = 'pageSize=500'): Promise<{ variants: Variant[]; total: number }> {

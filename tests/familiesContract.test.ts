@@ -2,27 +2,23 @@
  * The API answers match the shared contract in shared/schemas/family.ts exactly (the screens parse them with these
  * schemas), checked on the seeded demo families.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import { ComputeStatusSchema, VariantListResponseSchema } from '../shared/schemas/variant';
 import { AuditListResponseSchema, RevisionDiffSchema } from '../shared/schemas/review';
 import { CatalogueResponseSchema } from '../shared/schemas/catalogue';
 import { MailMessagesResponseSchema } from '../shared/schemas/mail';
 import { FamilyListResponseSchema, FamilyResponseSchema } from '../shared/schemas/family';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let ids: Record<string, string>;
 beforeAll(async () => {
-  t = await makeTestApp();
   const list = (await (await t.agent('designer')).get('/api/families')).body.families as Array<{
     id: string;
     code: string;
   }>;
   ids = Object.fromEntries(list.map((f) => [f.code, f.id]));
-});
-afterAll(async () => {
-  await t.close();
 });
 
 function conforms(schema: z.ZodType, body: unknown): void {

@@ -4,20 +4,16 @@
  * acknowledges it in writing. Expected temperatures are the values of the ASHRAE sol-air
  * formula (ASHRAE Handbook—Fundamentals); PLA's heat-deflection temperature is from the NatureWorks Ingeo 2003D data sheet.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import type { Variant } from '../shared/schemas/variant';
 import type { Family } from '../shared/schemas/family';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { computeNow, createTestFamily, smallFamilyBody } from './familiesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
+const t = useTestApp();
 afterAll(async () => {
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 describe('outdoor heat in the family gate', () => {

@@ -9,14 +9,13 @@ import type { FamilySummary } from '../shared/schemas/family';
 import type { Variant, VariantSort } from '../shared/schemas/variant';
 import { familyRevisions, familyVariants, families } from '../server/db/schema';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let familyId = '';
 let all: Variant[] = [];
 
 beforeAll(async () => {
-  t = await makeTestApp();
   const designer = await t.agent('designer');
   const list = (await designer.get('/api/families')).body.families as FamilySummary[];
   // The largest computed demo family.
@@ -45,7 +44,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 const VERDICT_RANK = { fail: 0, warn: 1, pass: 2 } as const;

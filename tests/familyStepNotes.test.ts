@@ -13,11 +13,10 @@ import { linkBase } from '../server/mail/linkBase';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { startMail, stopMail } from '../server/services/mailService';
 import { acknowledgeAll, computeNow, createTestFamily } from './familiesFixtures';
-import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
+import { useTestApp, TEST_ORIGIN } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 beforeAll(async () => {
-  t = await makeTestApp();
   await startMail(t.ctx, { env: { SMTP_PORT: 0, MAIL_FROM: 'Nestwright <no-reply@fernhollow.test>' } });
   // A second catalogue manager, so the one who publishes is not the only one to be told.
   const res = await (await t.agent('admin')).post('/api/people').send({
@@ -31,7 +30,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await stopMail(t.ctx);
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 async function until<T>(read: () => Promise<T>, done: (value: T) => boolean, timeoutMs = 30_000): Promise<T> {

@@ -16,13 +16,13 @@ import { startFulfilment } from '../server/farm/startFulfilment';
 import { get as getOrder } from '../server/services/orderQueries';
 import type { ShipTo } from '../shared/schemas/shop';
 import type { OrderFulfilment } from '../shared/schemas/fulfilment';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 import { payOneUnitOrder } from './setup/paidOrder';
 import { listCatalogueVariants } from '../server/services/catalogue';
 import { loadProductionCatalogue } from '../server/services/productionCatalogue';
 import type { SalesSettings } from '../shared/schemas/sales';
 
-let t: TestApp;
+const t = useTestApp();
 let server: Server;
 let farm: FarmRuntime;
 let baseUrl: string;
@@ -38,7 +38,6 @@ const ADDRESS: ShipTo = {
 };
 
 beforeAll(async () => {
-  t = await makeTestApp();
   server = createServer(t.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -61,7 +60,6 @@ afterAll(async () => {
     server.closeAllConnections();
   });
   await t.ctx.jobs.stop();
-  await t.close();
 });
 
 /** A paid order of one unit of a published variant, through the order service (as the payment webhook does it). */

@@ -3,21 +3,15 @@
  * limit, the dead-letter list (retried or discarded by an admin) and periodic jobs. Backoff doubling is common
  * practice, no source.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { auditEvents, jobDeadLetters } from '../server/db/schema';
 import { defineJob } from '../server/jobs/JobQueue';
 import { retryDelaySec } from '../server/jobs/jobTiming';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 async function until(done: () => boolean | Promise<boolean>, timeoutMs = 20_000): Promise<void> {
   const started = Date.now();

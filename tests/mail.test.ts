@@ -4,7 +4,7 @@
  * backoff until it is delivered. Who is told what is our own product rule (issue 5): no outside source.
  */
 import { createServer } from 'node:net';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import type { MailMessagesResponse } from '../shared/schemas/mail';
 import { FakeSmtpServer } from '../server/mail/FakeSmtpServer';
 import { MailSender } from '../server/mail/MailSender';
@@ -13,18 +13,14 @@ import { queueMail } from '../server/mail/queueMail';
 import { mailRuntime, startMail, stopMail } from '../server/services/mailService';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
 import { familyInState } from './familiesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
+const t = useTestApp();
 afterEach(async () => {
   await stopMail(t.ctx);
 });
 afterAll(async () => {
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 async function until<T>(read: () => Promise<T>, done: (value: T) => boolean, timeoutMs = 30_000): Promise<T> {

@@ -4,7 +4,7 @@
  * State rules are our own product decision (no outside source).
  */
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { ShopQuote } from '../shared/schemas/shop';
 import { mailOutbox } from '../server/db/schema';
@@ -13,7 +13,7 @@ import { onOrderTransition } from '../server/services/orderHooks';
 import { clearPaymentFlag, createFromCheckout, markPaid } from '../server/services/orderService';
 import { get, getForCustomer, list } from '../server/services/orderQueries';
 import { transition } from '../server/services/orderTransitions';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
 const QUOTE: ShopQuote = {
   currency: 'EUR',
@@ -37,11 +37,7 @@ const QUOTE: ShopQuote = {
   shippingZone: 'home',
 };
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(() => t?.close());
+const t = useTestApp();
 
 async function newOrder(email = 'robin@example.test') {
   return createFromCheckout(t.ctx.db, {

@@ -6,19 +6,15 @@
  */
 import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { generatePassword } from '../server/auth/generatePassword';
 import { auditEvents, people } from '../server/db/schema';
-import { makeTestApp, TEST_ORIGIN, type TestAgent, type TestApp } from './setup/testApp';
+import { useTestApp, TEST_ORIGIN, type TestAgent } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let admin: TestAgent;
 beforeAll(async () => {
-  t = await makeTestApp();
   admin = await t.agent('admin');
-});
-afterAll(async () => {
-  await t.close();
 });
 
 let serial = 0;

@@ -2,8 +2,8 @@
  * `/api/presets`: create, read, list, rename, change parameters, delete; owner-only visibility; parameter checks by the
  * template's own parseParams; unique names per template per owner; thumbnail data-URL checks.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeTestApp, type TestApp, type TestAgent } from './setup/testApp';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useTestApp, type TestAgent } from './setup/testApp';
 import { TEMPLATES, describeParameters } from '../templates/index';
 import { PRESET_THUMBNAIL_MAX_CHARS, PresetSchema } from '../shared/schemas/preset';
 
@@ -17,12 +17,11 @@ const described = template ? describeParameters(template) : [];
 const sizeParam =
   described.find((param) => param.key === 'entryHoleDiameterMm') ?? described.find((param) => param.kind === 'number');
 
-let t: TestApp;
+const t = useTestApp();
 let designer: TestAgent;
 let otherDesigner: TestAgent;
 
 beforeAll(async () => {
-  t = await makeTestApp();
   designer = await t.agent('designer');
   const admin = await t.agent('admin');
   const created = await admin.post('/api/people').send({
@@ -33,10 +32,6 @@ beforeAll(async () => {
   });
   expect(created.status).toBe(201);
   otherDesigner = await t.signIn('wren@fernhollow.test', 'second-designer-pw');
-});
-
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('presets API', () => {

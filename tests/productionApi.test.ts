@@ -3,19 +3,13 @@
  * checked by the shared schemas, with the print settings and cost rates in force. Access is in tests/authz.test.ts.
  */
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { ProductionCatalogueSchema } from '../shared/schemas/production';
 import { DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { materials } from '../server/db/schema';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = useTestApp();
 
 describe('GET /api/production', () => {
   it('answers the seeded printers and materials with their sourced properties', async () => {

@@ -11,19 +11,17 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../server/app';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../server/db/seedDemo';
-import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
+import { makeTestApp, useTestApp, TEST_ORIGIN } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let clientDir: string;
 beforeAll(async () => {
-  t = await makeTestApp();
   clientDir = await mkdtemp(join(tmpdir(), 'nestwright-csp-'));
   await mkdir(join(clientDir, 'assets'));
   await writeFile(join(clientDir, 'index.html'), '<!doctype html><title>Nestwright</title>');
   await writeFile(join(clientDir, 'assets', 'main-abc123.js'), 'console.log(1)');
 });
 afterAll(async () => {
-  await t.close();
   await rm(clientDir, { recursive: true, force: true });
 });
 

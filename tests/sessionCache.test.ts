@@ -3,18 +3,12 @@
  * sign-out are seen by the very next request of that session, even right after a request that was answered from the
  * memory (common practice, no source: revocation takes effect at once in the process that made it).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { StudioPerson } from '../shared/schemas/auth';
 import { DEMO_PASSWORD } from '../server/db/seedDemo';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 async function personId(email: string): Promise<string> {
   const people = (await (await t.agent('admin')).get('/api/people')).body.people as StudioPerson[];

@@ -27,17 +27,15 @@ import {
   startShopTest,
   type ShopTest,
 } from './shopFixtures';
-import { makeTestApp, TEST_ORIGIN, type TestApp } from './setup/testApp';
+import { makeTestApp, useTestApp, TEST_ORIGIN } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let shop: ShopTest;
 beforeAll(async () => {
-  t = await makeTestApp();
   shop = await startShopTest(t);
 });
 afterAll(async () => {
   await shop?.close();
-  await t?.close();
 });
 
 async function countRows() {

@@ -3,7 +3,7 @@
  * submission, a send-back, a failed e-mail, a new quote). Which counts each role gets is our own product rule (no
  * outside source); each count is checked against the list it summarises, read through its own API.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import type { Role } from '../shared/schemas/auth';
 import type { TodoItem } from '../shared/schemas/todo';
 import { familyJobs } from '../server/jobs/FamilyJobRunner';
@@ -12,15 +12,11 @@ import { mailOutbox } from '../server/db/schema';
 import { eq } from 'drizzle-orm';
 import { familyInState } from './familiesFixtures';
 import { ensureSalesFixture, FIXTURE_SKUS } from './salesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
+const t = useTestApp();
 afterAll(async () => {
   await familyJobs(t.ctx).close();
-  await t.close();
 });
 
 async function todo(role: Role): Promise<Record<string, TodoItem>> {

@@ -20,9 +20,9 @@ import { hasPayments, paymentsOf, stopPayments } from '../server/payments/paymen
 import { getRow } from '../server/services/orderQueries';
 import { startShopServices } from '../server/services/shopServices';
 import { checkoutBody, newShopOrder, sellableSkus } from './shopFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
+const t = useTestApp();
 let server: Server;
 let farm: FarmRuntime;
 let worker: AppContext;
@@ -33,7 +33,6 @@ function runOn(ctx: AppContext): JobRun {
 }
 
 beforeAll(async () => {
-  t = await makeTestApp();
   server = createServer(t.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -55,7 +54,6 @@ afterAll(async () => {
     server.closeAllConnections();
   });
   await worker?.jobs.stop();
-  await t?.close();
 });
 
 describe('jobs in a worker process', () => {

@@ -8,11 +8,11 @@
 import { createRequire } from 'node:module';
 import { deflateRawSync } from 'node:zlib';
 import { strToU8, zipSync } from 'fflate';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { MeshFormatError } from '../shared/mesh/MeshFormatError';
 import { parse3mf } from '../shared/mesh/parse3mf';
 import { MAX_INFLATE_RATIO, unzipBounded } from '../shared/mesh/unzipBounded';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
 const MB = 1024 * 1024;
 const MODEL_REL =
@@ -75,13 +75,9 @@ function makeBomb(inflatedBytes: number): Uint8Array {
 }
 
 let bomb: Uint8Array;
-let t: TestApp;
-beforeAll(async () => {
+const t = useTestApp();
+beforeAll(() => {
   bomb = makeBomb(300 * MB);
-  t = await makeTestApp();
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('3MF zip bomb', () => {

@@ -5,7 +5,7 @@
 import { readFile } from 'node:fs/promises';
 import type { Express } from 'express';
 import supertest from 'supertest';
-import { inject } from 'vitest';
+import { afterAll, beforeAll, inject } from 'vitest';
 import type { Role } from '../../shared/schemas/auth';
 import { createApp } from '../../server/app';
 import { createContext, type AppContext } from '../../server/context';
@@ -113,4 +113,26 @@ export async function makeTestApp(envOverrides: Partial<Env> = {}): Promise<Test
       await drop();
     },
   };
+}
+
+/**
+ * One test app for the whole file: started before its tests and closed after them (it registers `beforeAll` and
+ * `afterAll`; hooks the file registers later run after the start and before the close).
+ * @param envOverrides - as for {@link makeTestApp}
+ * @returns the app; read it inside tests and hooks, not while the file is being collected
+ */
+export function useTestApp(envOverrides: Partial<Env> = {}): TestApp {
+  let started: TestApp | null = null;
+  beforeAll(async () => {
+    started = await makeTestApp(envOverrides);
+  });
+  afterAll(async () => {
+    await started?.close();
+  });
+  return new Proxy({} as TestApp, {
+    get(_target, key) {
+      if (!started) throw new Error('The test app starts in beforeAll: use it inside a test or a hook.');
+      return Reflect.get(started, key) as unknown;
+    },
+  });
 }
