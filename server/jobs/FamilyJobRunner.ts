@@ -8,6 +8,7 @@ import { VariantWorker } from './VariantWorker';
 import type { FamilyRunner, ProgressListener } from './familyRunner';
 import { QueuedFamilyRunner } from './QueuedFamilyRunner';
 import { resetForCompute } from './resetForCompute';
+import { readComputeProgress } from './readComputeProgress';
 
 export type { ProgressListener } from './familyRunner';
 
@@ -115,18 +116,7 @@ export class FamilyJobRunner implements FamilyRunner {
 
   /** The current progress of a revision as an event. @param revisionId - the revision */
   async progressOf(revisionId: string): Promise<ComputeProgressEvent> {
-    const [row] = await this.ctx.db
-      .select({
-        familyId: familyRevisions.familyId,
-        revision: familyRevisions.number,
-        state: familyRevisions.computeState,
-        doneCount: familyRevisions.computeDone,
-        total: familyRevisions.computeTotal,
-      })
-      .from(familyRevisions)
-      .where(eq(familyRevisions.id, revisionId));
-    if (!row) throw new Error(`No revision ${revisionId}`);
-    return row;
+    return readComputeProgress(this.ctx.db, revisionId);
   }
 
   private emit(revisionId: string, event: ComputeProgressEvent, done: boolean): void {

@@ -12,6 +12,7 @@ import type { AppContext } from '../context';
 import { familyComputeRuns, familyRevisions } from '../db/schema';
 import { computeVariantJob, FAMILY_PROGRESS_CHANNEL, notifyProgress, type ProgressMessage } from './computeVariantJob';
 import { resetForCompute } from './resetForCompute';
+import { readComputeProgress } from './readComputeProgress';
 import type { FamilyRunner, ProgressListener } from './familyRunner';
 
 /** Variant jobs sent at once when a computation starts. */
@@ -104,18 +105,7 @@ export class QueuedFamilyRunner implements FamilyRunner {
   }
 
   async progressOf(revisionId: string): Promise<ComputeProgressEvent> {
-    const [row] = await this.ctx.db
-      .select({
-        familyId: familyRevisions.familyId,
-        revision: familyRevisions.number,
-        state: familyRevisions.computeState,
-        doneCount: familyRevisions.computeDone,
-        total: familyRevisions.computeTotal,
-      })
-      .from(familyRevisions)
-      .where(eq(familyRevisions.id, revisionId));
-    if (!row) throw new Error(`No revision ${revisionId}`);
-    return row;
+    return readComputeProgress(this.ctx.db, revisionId);
   }
 
   async idle(): Promise<void> {

@@ -1,6 +1,5 @@
 import { AnalysisReportSchema, type AnalysisReport } from '../../shared/schemas/analysis';
-import { ApiErrorSchema } from '../../shared/schemas/error';
-import { ApiError } from './ApiError';
+import { api, ApiError } from './client';
 
 /** Largest file the analysis accepts (the server's limit, checked here to spare a pointless upload). */
 export const ANALYSIS_UPLOAD_MAX_BYTES = 64 * 1024 * 1024;
@@ -32,27 +31,5 @@ export async function analyseFile(file: File, choice: AnalysisChoice, signal?: A
   const form = new FormData();
   for (const [key, value] of Object.entries(choice)) if (value) form.append(key, value);
   form.append('file', file, file.name);
-  let res: Response;
-  try {
-    res = await fetch('/api/analyses', {
-      method: 'POST',
-      body: form,
-      credentials: 'same-origin',
-      headers: { Accept: 'application/json' },
-      signal,
-    });
-  } catch (err) {
-    if ((err as Error).name === 'AbortError') throw err;
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
-  }
-  const json: unknown = await res.json().catch(() => undefined);
-  if (!res.ok) {
-    const parsed = ApiErrorSchema.safeParse(json);
-    if (parsed.success) throw new ApiError(res.status, parsed.data.error.code, parsed.data.error.message);
-    throw new ApiError(res.status, 'http_error', `The server answered HTTP ${res.status}.`);
-  }
-  const report = AnalysisReportSchema.safeParse(json);
-  if (!report.success)
-    throw new ApiError(res.status, 'bad_response', 'The server sent a report this page cannot read.');
-  return report.data;
+  return api('/analyses', { method: 'POST', body: form, schema: AnalysisReportSchema, signal });
 }

@@ -8,7 +8,7 @@ export { ApiError };
 export interface ApiRequest<T> {
   /** HTTP method; GET by default. */
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-  /** JSON body; sent with `Content-Type: application/json`. */
+  /** JSON body, sent with `Content-Type: application/json`; or a form (an upload), sent as multipart as it is. */
   body?: unknown;
   /** Schema that the answer must match; the parsed value is returned. */
   schema?: ZodType<T>;
@@ -35,13 +35,15 @@ export function setUnauthorizedHandler(handler: ((path: string) => void) | null)
  */
 export async function api<T = unknown>(path: string, request: ApiRequest<T> = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (request.body !== undefined) headers['Content-Type'] = 'application/json';
+  const form = request.body instanceof FormData ? request.body : null;
+  if (request.body !== undefined && !form) headers['Content-Type'] = 'application/json';
   let res: Response;
   try {
     res = await fetch(`/api${path}`, {
       method: request.method ?? 'GET',
       headers,
-      body: request.body === undefined ? undefined : JSON.stringify(request.body),
+      // A form sets its own multipart content type with its boundary.
+      body: form ?? (request.body === undefined ? undefined : JSON.stringify(request.body)),
       credentials: 'same-origin',
       signal: request.signal,
     });
