@@ -14,7 +14,9 @@ import {
 import type { ProductionSettings, StoredProductionSettings } from '../../shared/schemas/studioSettings';
 import type { Db, Queryable } from '../db/client';
 import { materials, printerProfiles, productionSettings } from '../db/schema';
+import { conflict, notFound, type HttpError } from '../http/HttpError';
 import { recordAudit } from './audit';
+import { familiesUsingMaterial, familiesUsingPrinter, refuseWhileUsed } from './catalogueReferences';
 import { catalogueChanged } from './catalogueCache';
 import { loadMaterials, loadPrinters } from './familyProduction';
 
@@ -125,34 +127,82 @@ export async function saveMaterial(db: Db, material: Material, actorId: string):
   return { created: !existing };
 }
 
-/**
- * Removes a printer profile. The route checks first that no family uses it and that it is not the last one.
- * @param db - database
- * @param id - the printer's identifier
- * @param actorId - who removed it
- * @returns whether there was such a printer
- */
-export async function removePrinter(db: Db, id: string, actorId: string): Promise<boolean> {
-  const removed = await db
-    .delete(printerProfiles)
-    .where(eq(printerProfiles.id, id))
-    .returning({ id: printerProfiles.id });
-  if (removed.length === 0) return false;
-  await recordAudit(db, { actorId, action: 'printer.removed', subject: `printer:${id}` });
-  return true;
+/** What a removal works on: the printers' or the materials' table, and how it is named in words. */
+interface ProfileTable {
+  table: typeof printerProfiles | typeof materials;
+  /** `printer` or `material` (audit action and subject). */
+  kind: 'printer' | 'material';
+  /** The families that use one profile (any revision or variant). */
+  familiesUsing: (db: Queryable, id: string) => Promise<string[]>;
+  /** What to answer when the profile is not there. */
+  missing: string;
+  /** The refusal to remove the studio's last one, given its name. */
+  last: (name: string) => HttpError;
+  /** The profile in words for {@link refuseWhileUsed}, given its name. */
+  what: (name: string) => string;
 }
 
 /**
- * Removes a material with its colours. The route checks first that no family uses it and that it is not the last.
+ * Removes a printer or a material in one transaction: it locks every profile row of its table first (so two
+ * removals, and a family save naming the profile, take turns: see {@link lockProfilesNamed}), then checks that the
+ * profile exists, that no family uses it and that it is not the studio's last one, deletes it and records the audit.
+ */
+async function removeProfile(db: Db, on: ProfileTable, id: string, actorId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    // Rows are locked in one order, so two removals never wait on each other in a circle; a row another
+    // transaction deleted meanwhile is not returned.
+    const rows = await tx
+      .select({ id: on.table.id, name: on.table.name })
+      .from(on.table)
+      .orderBy(on.table.id)
+      .for('update');
+    const profile = rows.find((row) => row.id === id);
+    if (!profile) throw notFound(on.missing);
+    refuseWhileUsed(await on.familiesUsing(tx, id), on.what(profile.name));
+    if (rows.length === 1) throw on.last(profile.name);
+    await tx.delete(on.table).where(eq(on.table.id, id));
+    await recordAudit(tx, { actorId, action: `${on.kind}.removed`, subject: `${on.kind}:${id}` });
+  });
+}
+
+const PRINTERS: ProfileTable = {
+  table: printerProfiles,
+  kind: 'printer',
+  familiesUsing: familiesUsingPrinter,
+  missing: 'There is no such printer: it may have been removed already.',
+  last: (name) => conflict('last_printer', `“${name}” is the studio’s only printer: add another before removing it.`),
+  what: (name) => `The printer “${name}”`,
+};
+
+const MATERIALS: ProfileTable = {
+  table: materials,
+  kind: 'material',
+  familiesUsing: familiesUsingMaterial,
+  missing: 'There is no such material: it may have been removed already.',
+  last: (name) => conflict('last_material', `“${name}” is the studio’s only material: add another before removing it.`),
+  what: (name) => `The material “${name}”`,
+};
+
+/**
+ * Removes a printer profile, refused in words while a family prints on it or when it is the studio's only one.
+ * @param db - database
+ * @param id - the printer's identifier
+ * @param actorId - who removed it
+ * @throws HttpError 404 when there is no such printer, 409 `in_use` naming the families, 409 `last_printer`
+ */
+export async function removePrinter(db: Db, id: string, actorId: string): Promise<void> {
+  await removeProfile(db, PRINTERS, id, actorId);
+}
+
+/**
+ * Removes a material with its colours, refused in words while a family uses it or when it is the studio's only one.
  * @param db - database
  * @param id - the material's identifier
  * @param actorId - who removed it
- * @returns whether there was such a material
+ * @throws HttpError 404 when there is no such material, 409 `in_use` naming the families, 409 `last_material`
  */
-export async function removeMaterial(db: Db, id: string, actorId: string): Promise<boolean> {
-  const removed = await db.delete(materials).where(eq(materials.id, id)).returning({ id: materials.id });
-  if (removed.length === 0) return false;
-  await recordAudit(db, { actorId, action: 'material.removed', subject: `material:${id}` });
+export async function removeMaterial(db: Db, id: string, actorId: string): Promise<void> {
+  await removeProfile(db, MATERIALS, id, actorId);
+  // Material and colour names show in the shop and on documents.
   catalogueChanged(db);
-  return true;
 }
