@@ -192,33 +192,28 @@ describe('removals sent at once', () => {
     await only?.close();
   });
 
-  it('of the only two printers: one is removed, the other refused in words, and the studio keeps one', async () => {
-    const admin = await only.agent('admin');
-    const answers = await sendTogether(only, 'printer_profiles', () =>
-      printers.map((p) => admin.delete(`/api/settings/printers/${p.id}`)),
-    );
-    expect(answers.map((a) => a.status).sort()).toEqual([204, 409]);
-    const refused = answers.find((a) => a.status === 409)!;
-    expect(refused.body.error.code).toBe('last_printer');
-    expect(refused.body.error.message).toMatch(/^“Wren [AB] 0\.4 mm” is the studio’s only printer: add another/);
-    const left = (await admin.get('/api/production')).body.printers.map((p: { id: string }) => p.id);
-    expect(left).toHaveLength(1);
-    expect(refused.body.error.message).toContain(printers.find((p) => p.id === left[0])!.name);
-  });
-
-  it('of the only two materials: one is removed, the other refused in words, and the studio keeps one', async () => {
-    const admin = await only.agent('admin');
-    const answers = await sendTogether(only, 'materials', () =>
-      materials.map((m) => admin.delete(`/api/settings/materials/${m.id}`)),
-    );
-    expect(answers.map((a) => a.status).sort()).toEqual([204, 409]);
-    const refused = answers.find((a) => a.status === 409)!;
-    expect(refused.body.error.code).toBe('last_material');
-    expect(refused.body.error.message).toMatch(/^“(Oak grey|Ash white)” is the studio’s only material: add another/);
-    const left = (await admin.get('/api/production')).body.materials.map((m: { id: string }) => m.id);
-    expect(left).toHaveLength(1);
-    expect(refused.body.error.message).toContain(materials.find((m) => m.id === left[0])!.name);
-  });
+  const kinds = [
+    { kind: 'printer', path: 'printers', table: 'printer_profiles', profiles: printers },
+    { kind: 'material', path: 'materials', table: 'materials', profiles: materials },
+  ] as const;
+  it.each(kinds)(
+    'of the only two $path: one is removed, the other refused in words, and the studio keeps one',
+    async ({ kind, path, table, profiles }) => {
+      const admin = await only.agent('admin');
+      const answers = await sendTogether(only, table, () =>
+        profiles.map((p) => admin.delete(`/api/settings/${path}/${p.id}`)),
+      );
+      expect(answers.map((a) => a.status).sort()).toEqual([204, 409]);
+      const refused = answers.find((a) => a.status === 409)!;
+      expect(refused.body.error.code).toBe(`last_${kind}`);
+      const left = (await admin.get('/api/production')).body[path].map((p: { id: string }) => p.id);
+      expect(left).toHaveLength(1);
+      const kept = profiles.find((p) => p.id === left[0])!;
+      expect(refused.body.error.message).toBe(
+        `“${kept.name}” is the studio’s only ${kind}: add another before removing it.`,
+      );
+    },
+  );
 
   it('of one printer twice: one removal, and the other says it is gone', async () => {
     const admin = await only.agent('admin');

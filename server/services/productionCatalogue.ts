@@ -14,7 +14,7 @@ import {
 import type { ProductionSettings, StoredProductionSettings } from '../../shared/schemas/studioSettings';
 import type { Db, Queryable } from '../db/client';
 import { materials, printerProfiles, productionSettings } from '../db/schema';
-import { conflict, notFound, type HttpError } from '../http/HttpError';
+import { conflict, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
 import { familiesUsingMaterial, familiesUsingPrinter, refuseWhileUsed } from './catalogueReferences';
 import { catalogueChanged } from './catalogueCache';
@@ -127,61 +127,35 @@ export async function saveMaterial(db: Db, material: Material, actorId: string):
   return { created: !existing };
 }
 
-/** What a removal works on: the printers' or the materials' table, and how it is named in words. */
+/** What a removal works on: the printers' or the materials' table, its kind in words and who uses one. */
 interface ProfileTable {
   table: typeof printerProfiles | typeof materials;
-  /** `printer` or `material` (audit action and subject). */
+  /** `printer` or `material`: the word in answers, the audit action and subject, the 409 code `last_<kind>`. */
   kind: 'printer' | 'material';
   /** The families that use one profile (any revision or variant). */
   familiesUsing: (db: Queryable, id: string) => Promise<string[]>;
-  /** What to answer when the profile is not there. */
-  missing: string;
-  /** The refusal to remove the studio's last one, given its name. */
-  last: (name: string) => HttpError;
-  /** The profile in words for {@link refuseWhileUsed}, given its name. */
-  what: (name: string) => string;
 }
 
 /**
  * Removes a printer or a material in one transaction: it locks every profile row of its table first (so two
- * removals, and a family save naming the profile, take turns: see {@link lockProfilesNamed}), then checks that the
+ * removals, and a family save naming the profile, take turns: see `lockProfilesNamed`), then checks that the
  * profile exists, that no family uses it and that it is not the studio's last one, deletes it and records the audit.
  */
 async function removeProfile(db: Db, on: ProfileTable, id: string, actorId: string): Promise<void> {
+  const { table, kind } = on;
   await db.transaction(async (tx) => {
     // Rows are locked in one order, so two removals never wait on each other in a circle; a row another
     // transaction deleted meanwhile is not returned.
-    const rows = await tx
-      .select({ id: on.table.id, name: on.table.name })
-      .from(on.table)
-      .orderBy(on.table.id)
-      .for('update');
+    const rows = await tx.select({ id: table.id, name: table.name }).from(table).orderBy(table.id).for('update');
     const profile = rows.find((row) => row.id === id);
-    if (!profile) throw notFound(on.missing);
-    refuseWhileUsed(await on.familiesUsing(tx, id), on.what(profile.name));
-    if (rows.length === 1) throw on.last(profile.name);
-    await tx.delete(on.table).where(eq(on.table.id, id));
-    await recordAudit(tx, { actorId, action: `${on.kind}.removed`, subject: `${on.kind}:${id}` });
+    if (!profile) throw notFound(`There is no such ${kind}: it may have been removed already.`);
+    refuseWhileUsed(await on.familiesUsing(tx, id), `The ${kind} “${profile.name}”`);
+    if (rows.length === 1)
+      throw conflict(`last_${kind}`, `“${profile.name}” is the studio’s only ${kind}: add another before removing it.`);
+    await tx.delete(table).where(eq(table.id, id));
+    await recordAudit(tx, { actorId, action: `${kind}.removed`, subject: `${kind}:${id}` });
   });
 }
-
-const PRINTERS: ProfileTable = {
-  table: printerProfiles,
-  kind: 'printer',
-  familiesUsing: familiesUsingPrinter,
-  missing: 'There is no such printer: it may have been removed already.',
-  last: (name) => conflict('last_printer', `“${name}” is the studio’s only printer: add another before removing it.`),
-  what: (name) => `The printer “${name}”`,
-};
-
-const MATERIALS: ProfileTable = {
-  table: materials,
-  kind: 'material',
-  familiesUsing: familiesUsingMaterial,
-  missing: 'There is no such material: it may have been removed already.',
-  last: (name) => conflict('last_material', `“${name}” is the studio’s only material: add another before removing it.`),
-  what: (name) => `The material “${name}”`,
-};
 
 /**
  * Removes a printer profile, refused in words while a family prints on it or when it is the studio's only one.
@@ -191,7 +165,12 @@ const MATERIALS: ProfileTable = {
  * @throws HttpError 404 when there is no such printer, 409 `in_use` naming the families, 409 `last_printer`
  */
 export async function removePrinter(db: Db, id: string, actorId: string): Promise<void> {
-  await removeProfile(db, PRINTERS, id, actorId);
+  await removeProfile(
+    db,
+    { table: printerProfiles, kind: 'printer', familiesUsing: familiesUsingPrinter },
+    id,
+    actorId,
+  );
 }
 
 /**
@@ -202,7 +181,7 @@ export async function removePrinter(db: Db, id: string, actorId: string): Promis
  * @throws HttpError 404 when there is no such material, 409 `in_use` naming the families, 409 `last_material`
  */
 export async function removeMaterial(db: Db, id: string, actorId: string): Promise<void> {
-  await removeProfile(db, MATERIALS, id, actorId);
+  await removeProfile(db, { table: materials, kind: 'material', familiesUsing: familiesUsingMaterial }, id, actorId);
   // Material and colour names show in the shop and on documents.
   catalogueChanged(db);
 }
