@@ -262,3 +262,49 @@ describe('a family saved while its printer is removed', () => {
     expect(rows[0].n).toBe(0);
   });
 });
+
+describe('a family saved while a colour of its material is taken out', () => {
+  it('either keeps the colour (the change refused, naming the family) or is refused in words', async () => {
+    const admin = await t.agent('admin');
+    const designer = await t.agent('designer');
+    const pla = DEFAULT_MATERIALS.find((m) => m.id === 'pla')!;
+    const fern = { id: 'fern', name: 'Fern', hex: '#4a6b3a', solarAbsorptance: 0.8 };
+    const hazel = { ...pla, id: 'hazel-pla', name: 'Hazel PLA', colours: [...pla.colours, fern] };
+    expect((await admin.put(`/api/settings/materials/${hazel.id}`).send(hazel)).status).toBe(201);
+
+    const body = smallFamilyBody({
+      name: 'Fern Gable',
+      materialId: hazel.id,
+      axes: [
+        { kind: 'param', key: 'entryHoleDiameterMm', values: [28] },
+        { kind: 'attribute', key: 'colour', values: ['fern'] },
+      ],
+    });
+    const [saved, changed] = await sendTogether(t, 'materials', () => [
+      designer.post('/api/families').send(body),
+      admin.put(`/api/settings/materials/${hazel.id}`).send({ ...hazel, colours: pla.colours }),
+    ]);
+    const colours = (await designer.get('/api/production')).body.materials
+      .find((m: { id: string }) => m.id === hazel.id)
+      .colours.map((c: { id: string }) => c.id);
+    if (saved.status === 201) {
+      expect(changed.status).toBe(409);
+      expect(changed.body.error.message).toMatch(
+        /^The colour “Fern” of Hazel PLA cannot be taken out while the family “Fern Gable” uses it/,
+      );
+      expect(colours).toContain('fern');
+    } else {
+      expect(changed.status).toBe(200);
+      expect(saved.status).toBe(400);
+      expect(saved.body.error.message).toMatch(/Hazel PLA does not come in "fern"/);
+      expect(colours).not.toContain('fern');
+    }
+    // Whichever came first, no variant is in a colour its material no longer has.
+    const { rows } = await t.ctx.pg.query<{ n: number }>(
+      `select count(*)::int as n from family_variants v join materials m on m.id = v.attributes->>'material'
+       where v.attributes->>'colour' is not null
+         and not exists (select 1 from jsonb_array_elements(m.data->'colours') c where c->>'id' = v.attributes->>'colour')`,
+    );
+    expect(rows[0].n).toBe(0);
+  });
+});

@@ -31,8 +31,7 @@ import { requireRole, signedInPerson } from '../auth/requireRole';
 import { badRequest } from '../http/HttpError';
 import { parsedBody, parsedParams, validate } from '../http/validate';
 import { getSalesSettings, saveSalesSettings } from '../services/salesSettings';
-import { familiesUsingColours, familiesUsingFinishes, refuseWhileUsed } from '../services/catalogueReferences';
-import { loadMaterials } from '../services/familyProduction';
+import { familiesUsingFinishes, refuseWhileUsed } from '../services/catalogueReferences';
 import {
   loadProductionSettings,
   removeMaterial,
@@ -107,14 +106,7 @@ export function settingsRouter(ctx: AppContext): Router {
     const colourIds = material.colours.map((c) => c.id);
     const repeated = colourIds.find((c, i) => colourIds.indexOf(c) !== i);
     if (repeated) throw badRequest(`Two colours share the identifier “${repeated}”: give each colour its own.`);
-    const before = (await loadMaterials(ctx.db)).get(id);
-    const kept = new Set(colourIds);
-    for (const colour of before?.colours.filter((c) => !kept.has(c.id)) ?? [])
-      refuseWhileUsed(
-        await familiesUsingColours(ctx.db, id, [colour.id]),
-        `The colour “${colour.name}” of ${material.name}`,
-        'taken out',
-      );
+    // The service refuses (409 in words) to take out a colour a family uses, checked and saved in one transaction.
     const { created } = await saveMaterial(ctx.db, material, signedInPerson(res).id);
     res.status(created ? 201 : 200).json(material);
   });

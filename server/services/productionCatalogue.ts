@@ -16,7 +16,12 @@ import type { Db, Queryable } from '../db/client';
 import { materials, printerProfiles, productionSettings } from '../db/schema';
 import { conflict, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
-import { familiesUsingMaterial, familiesUsingPrinter, refuseWhileUsed } from './catalogueReferences';
+import {
+  familiesUsingColours,
+  familiesUsingMaterial,
+  familiesUsingPrinter,
+  refuseWhileUsed,
+} from './catalogueReferences';
 import { catalogueChanged } from './catalogueCache';
 import { loadMaterials, loadPrinters } from './familyProduction';
 
@@ -75,6 +80,43 @@ export async function loadProductionCatalogue(db: Queryable): Promise<Production
   });
 }
 
+/** The printers' or the materials' table, its kind in words and who uses one (saves and removals). */
+interface ProfileTable {
+  table: typeof printerProfiles | typeof materials;
+  /** `printer` or `material`: the word in answers, the audit action and subject, the 409 code `last_<kind>`. */
+  kind: 'printer' | 'material';
+  /** The families that use one profile (any revision or variant). */
+  familiesUsing: (db: Queryable, id: string) => Promise<string[]>;
+}
+
+/**
+ * Writes a printer profile or a material (insert or replace) and records it in the audit.
+ * @param db - database or transaction
+ * @param on - the table and the kind of profile
+ * @param profile - the profile, kept whole as its row's data
+ * @param existed - whether it was saved before (audit `<kind>.changed`, else `<kind>.added`)
+ * @param actorId - who saved it
+ */
+async function writeProfile(
+  db: Queryable,
+  on: Pick<ProfileTable, 'table' | 'kind'>,
+  profile: PrinterProfile | Material,
+  existed: boolean,
+  actorId: string,
+): Promise<void> {
+  const { table, kind } = on;
+  const row = { name: profile.name, data: { ...profile } };
+  await db
+    .insert(table)
+    .values({ id: profile.id, ...row })
+    .onConflictDoUpdate({ target: table.id, set: { ...row, updatedAt: new Date() } });
+  await recordAudit(db, {
+    actorId,
+    action: `${kind}.${existed ? 'changed' : 'added'}`,
+    subject: `${kind}:${profile.id}`,
+  });
+}
+
 /**
  * Adds or replaces one printer profile.
  * @param db - database
@@ -87,53 +129,42 @@ export async function savePrinter(db: Db, printer: PrinterProfile, actorId: stri
     .select({ id: printerProfiles.id })
     .from(printerProfiles)
     .where(eq(printerProfiles.id, printer.id));
-  const now = new Date();
-  await db
-    .insert(printerProfiles)
-    .values({ id: printer.id, name: printer.name, data: { ...printer } })
-    .onConflictDoUpdate({
-      target: printerProfiles.id,
-      set: { name: printer.name, data: { ...printer }, updatedAt: now },
-    });
-  await recordAudit(db, {
-    actorId,
-    action: existing ? 'printer.changed' : 'printer.added',
-    subject: `printer:${printer.id}`,
-  });
+  await writeProfile(db, { table: printerProfiles, kind: 'printer' }, printer, Boolean(existing), actorId);
   return { created: !existing };
 }
 
 /**
- * Adds or replaces one material with its colours.
+ * Adds or replaces one material with its colours, refusing in words to take out a colour a family's variants use.
+ * The material's row is locked (FOR UPDATE) while its colours are checked and saved, so a family save naming the
+ * material (which locks it FOR SHARE, see `lockProfilesNamed`) either comes first and is found here, or comes after
+ * and finds the colour gone.
  * @param db - database
  * @param material - the material (validated by the route)
  * @param actorId - who saved it
  * @returns whether the material is new
+ * @throws HttpError 409 `in_use` naming the families that use a colour taken out
  */
 export async function saveMaterial(db: Db, material: Material, actorId: string): Promise<{ created: boolean }> {
-  const [existing] = await db.select({ id: materials.id }).from(materials).where(eq(materials.id, material.id));
-  const now = new Date();
-  await db
-    .insert(materials)
-    .values({ id: material.id, name: material.name, data: { ...material } })
-    .onConflictDoUpdate({ target: materials.id, set: { name: material.name, data: { ...material }, updatedAt: now } });
-  await recordAudit(db, {
-    actorId,
-    action: existing ? 'material.changed' : 'material.added',
-    subject: `material:${material.id}`,
+  const created = await db.transaction(async (tx) => {
+    const [existing] = await tx
+      .select({ data: materials.data })
+      .from(materials)
+      .where(eq(materials.id, material.id))
+      .for('update');
+    const kept = new Set(material.colours.map((c) => c.id));
+    const before = (existing?.data.colours as { id: string; name: string }[] | undefined) ?? [];
+    for (const colour of before.filter((c) => !kept.has(c.id)))
+      refuseWhileUsed(
+        await familiesUsingColours(tx, material.id, [colour.id]),
+        `The colour “${colour.name}” of ${material.name}`,
+        'taken out',
+      );
+    await writeProfile(tx, { table: materials, kind: 'material' }, material, Boolean(existing), actorId);
+    return !existing;
   });
   // Material and colour names show in the shop and on documents.
   catalogueChanged(db);
-  return { created: !existing };
-}
-
-/** What a removal works on: the printers' or the materials' table, its kind in words and who uses one. */
-interface ProfileTable {
-  table: typeof printerProfiles | typeof materials;
-  /** `printer` or `material`: the word in answers, the audit action and subject, the 409 code `last_<kind>`. */
-  kind: 'printer' | 'material';
-  /** The families that use one profile (any revision or variant). */
-  familiesUsing: (db: Queryable, id: string) => Promise<string[]>;
+  return { created };
 }
 
 /**
