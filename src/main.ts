@@ -1,5 +1,5 @@
 import './zodJitless';
-import { createApp } from 'vue';
+import { createApp, ref } from 'vue';
 import { createPinia } from 'pinia';
 import '../shared/schemas/humanMessages';
 import '@fontsource/fraunces/500.css';
@@ -13,7 +13,7 @@ import '@fontsource/jetbrains-mono/400.css';
 import '@fontsource/jetbrains-mono/600.css';
 import './styles/base.css';
 import { applyPaletteVariables } from './styles/palette';
-import { setFormatTimeZone } from '../shared/format';
+import { DEFAULT_LOCALE, keepFormatLocaleIn, setFormatTimeZone } from '../shared/format';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/client';
 import { router } from './router';
@@ -22,6 +22,8 @@ import { useSessionStore } from './stores/session';
 applyPaletteVariables(document.documentElement);
 // Times on screens are the viewer's wall-clock time; documents and mails stay in UTC (shared/format/date.ts).
 setFormatTimeZone(Intl.DateTimeFormat().resolvedOptions().timeZone);
+// The locale lives in a ref: amounts and dates on screen are written again when an admin saves another locale.
+keepFormatLocaleIn(ref(DEFAULT_LOCALE));
 
 const app = createApp(App);
 app.use(createPinia());

@@ -1,7 +1,12 @@
 /** The one format module: money, durations, masses, lengths and temperatures as people read them. */
 import { afterEach, describe, expect, it } from 'vitest';
+import { computed, ref } from 'vue';
 import {
   addDays,
+  DEFAULT_LOCALE,
+  formatLocale,
+  keepFormatLocaleIn,
+  setFormatLocale,
   DOCUMENT_TIME_ZONE,
   formatDate,
   formatDateTime,
@@ -163,5 +168,34 @@ describe('dates and times', () => {
     expect(addDays('2026-03-01', -1)).toBe('2026-02-28');
     expect(formatDate('not a date')).toBe('—');
     expect(formatDateTime('')).toBe('—');
+  });
+});
+
+describe('the format locale in a Vue ref', () => {
+  afterEach(() => {
+    setFormatLocale(DEFAULT_LOCALE);
+    keepFormatLocaleIn({ value: DEFAULT_LOCALE });
+  });
+
+  it('writes a computed amount and date again when the locale changes, as the app does after an admin saves one', () => {
+    // source: Unicode CLDR locale data (Unicode Consortium): de currency pattern "#,##0.00 ¤" with "." grouping,
+    // "," decimals and a no-break space before the sign; de medium date "dd.MM.y"
+    const held = ref(DEFAULT_LOCALE);
+    keepFormatLocaleIn(held);
+    const shown = computed(() => `${formatMoney(123450, 'EUR')} · ${formatDate('2026-12-02')}`);
+    expect(shown.value).toBe('€1,234.50 · 2 Dec 2026');
+    setFormatLocale('de-DE');
+    expect(held.value).toBe('de-DE');
+    expect(formatLocale()).toBe('de-DE');
+    expect(shown.value).toBe('1.234,50\u00a0€ · 02.12.2026');
+    setFormatLocale('not a locale'); // an unknown tag changes nothing
+    expect(shown.value).toBe('1.234,50\u00a0€ · 02.12.2026');
+  });
+
+  it('hands the current locale to a new holder', () => {
+    setFormatLocale('fr-FR');
+    const held = ref(DEFAULT_LOCALE);
+    keepFormatLocaleIn(held);
+    expect(held.value).toBe('fr-FR');
   });
 });

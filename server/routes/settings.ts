@@ -28,17 +28,10 @@ import {
 } from '../../shared/schemas/studioSettings';
 import type { AppContext } from '../context';
 import { requireRole, signedInPerson } from '../auth/requireRole';
-import { badRequest, conflict, notFound } from '../http/HttpError';
+import { badRequest } from '../http/HttpError';
 import { parsedBody, parsedParams, validate } from '../http/validate';
 import { getSalesSettings, saveSalesSettings } from '../services/salesSettings';
-import {
-  familiesUsingColours,
-  familiesUsingFinishes,
-  familiesUsingMaterial,
-  familiesUsingPrinter,
-  refuseWhileUsed,
-} from '../services/catalogueReferences';
-import { loadMaterials, loadPrinters } from '../services/familyProduction';
+import { familiesUsingFinishes, refuseWhileUsed } from '../services/catalogueReferences';
 import {
   loadProductionSettings,
   removeMaterial,
@@ -113,42 +106,19 @@ export function settingsRouter(ctx: AppContext): Router {
     const colourIds = material.colours.map((c) => c.id);
     const repeated = colourIds.find((c, i) => colourIds.indexOf(c) !== i);
     if (repeated) throw badRequest(`Two colours share the identifier “${repeated}”: give each colour its own.`);
-    const before = (await loadMaterials(ctx.db)).get(id);
-    const kept = new Set(colourIds);
-    for (const colour of before?.colours.filter((c) => !kept.has(c.id)) ?? [])
-      refuseWhileUsed(
-        await familiesUsingColours(ctx.db, id, [colour.id]),
-        `The colour “${colour.name}” of ${material.name}`,
-        'taken out',
-      );
+    // The service refuses (409 in words) to take out a colour a family uses, checked and saved in one transaction.
     const { created } = await saveMaterial(ctx.db, material, signedInPerson(res).id);
     res.status(created ? 201 : 200).json(material);
   });
 
+  // The service checks, deletes and records the removal in one transaction (404, 409 in words).
   router.delete('/printers/:id', admin, validate({ params: IdParamsSchema }), async (_req, res) => {
-    const { id } = parsedParams<{ id: string }>(res);
-    const printers = await loadPrinters(ctx.db);
-    const printer = printers.get(id);
-    if (!printer) throw notFound('There is no such printer: it may have been removed already.');
-    refuseWhileUsed(await familiesUsingPrinter(ctx.db, id), `The printer “${printer.name}”`);
-    if (printers.size === 1)
-      throw conflict('last_printer', `“${printer.name}” is the studio’s only printer: add another before removing it.`);
-    await removePrinter(ctx.db, id, signedInPerson(res).id);
+    await removePrinter(ctx.db, parsedParams<{ id: string }>(res).id, signedInPerson(res).id);
     res.status(204).end();
   });
 
   router.delete('/materials/:id', admin, validate({ params: IdParamsSchema }), async (_req, res) => {
-    const { id } = parsedParams<{ id: string }>(res);
-    const all = await loadMaterials(ctx.db);
-    const material = all.get(id);
-    if (!material) throw notFound('There is no such material: it may have been removed already.');
-    refuseWhileUsed(await familiesUsingMaterial(ctx.db, id), `The material “${material.name}”`);
-    if (all.size === 1)
-      throw conflict(
-        'last_material',
-        `“${material.name}” is the studio’s only material: add another before removing it.`,
-      );
-    await removeMaterial(ctx.db, id, signedInPerson(res).id);
+    await removeMaterial(ctx.db, parsedParams<{ id: string }>(res).id, signedInPerson(res).id);
     res.status(204).end();
   });
 

@@ -4,9 +4,9 @@
  * that no variant or revision uses is used by no quote or order either. The settings screen refuses to remove
  * anything this finds, and says which families to change first.
  */
-import { eq, sql, type SQL } from 'drizzle-orm';
+import { eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Queryable } from '../db/client';
-import { familyRevisions, familyVariants } from '../db/schema';
+import { familyRevisions, familyVariants, materials, printerProfiles } from '../db/schema';
 import { conflict } from '../http/HttpError';
 
 /** The newest name of each family among revision rows, sorted. */
@@ -98,6 +98,36 @@ export async function familiesUsingFinishes(db: Queryable, finishIds: readonly s
       sql`, `,
     )})`,
   );
+}
+
+/**
+ * Locks (FOR SHARE) the printer and the materials a family save is about to name, inside the save's transaction and
+ * before it checks them. A removal locks its profile rows FOR UPDATE, so the two take turns: a removal that came
+ * first has deleted the row and the save's check no longer finds it (refused in words); a save that came first
+ * holds its rows until it commits, and the removal then finds the family and refuses. Rows are locked in identifier
+ * order, printer first, as removals lock them, so no two transactions wait on each other in a circle.
+ * @param tx - the save's transaction
+ * @param printerId - the printer the family prints on
+ * @param materialIds - the materials its revision and variants name
+ */
+export async function lockProfilesNamed(
+  tx: Queryable,
+  printerId: string,
+  materialIds: readonly string[],
+): Promise<void> {
+  await tx
+    .select({ id: printerProfiles.id })
+    .from(printerProfiles)
+    .where(eq(printerProfiles.id, printerId))
+    .for('share');
+  const named = [...new Set(materialIds)];
+  if (named.length === 0) return;
+  await tx
+    .select({ id: materials.id })
+    .from(materials)
+    .where(inArray(materials.id, named))
+    .orderBy(materials.id)
+    .for('share');
 }
 
 /**

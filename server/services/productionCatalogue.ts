@@ -14,7 +14,14 @@ import {
 import type { ProductionSettings, StoredProductionSettings } from '../../shared/schemas/studioSettings';
 import type { Db, Queryable } from '../db/client';
 import { materials, printerProfiles, productionSettings } from '../db/schema';
+import { conflict, notFound } from '../http/HttpError';
 import { recordAudit } from './audit';
+import {
+  familiesUsingColours,
+  familiesUsingMaterial,
+  familiesUsingPrinter,
+  refuseWhileUsed,
+} from './catalogueReferences';
 import { catalogueChanged } from './catalogueCache';
 import { loadMaterials, loadPrinters } from './familyProduction';
 
@@ -73,6 +80,43 @@ export async function loadProductionCatalogue(db: Queryable): Promise<Production
   });
 }
 
+/** The printers' or the materials' table, its kind in words and who uses one (saves and removals). */
+interface ProfileTable {
+  table: typeof printerProfiles | typeof materials;
+  /** `printer` or `material`: the word in answers, the audit action and subject, the 409 code `last_<kind>`. */
+  kind: 'printer' | 'material';
+  /** The families that use one profile (any revision or variant). */
+  familiesUsing: (db: Queryable, id: string) => Promise<string[]>;
+}
+
+/**
+ * Writes a printer profile or a material (insert or replace) and records it in the audit.
+ * @param db - database or transaction
+ * @param on - the table and the kind of profile
+ * @param profile - the profile, kept whole as its row's data
+ * @param existed - whether it was saved before (audit `<kind>.changed`, else `<kind>.added`)
+ * @param actorId - who saved it
+ */
+async function writeProfile(
+  db: Queryable,
+  on: Pick<ProfileTable, 'table' | 'kind'>,
+  profile: PrinterProfile | Material,
+  existed: boolean,
+  actorId: string,
+): Promise<void> {
+  const { table, kind } = on;
+  const row = { name: profile.name, data: { ...profile } };
+  await db
+    .insert(table)
+    .values({ id: profile.id, ...row })
+    .onConflictDoUpdate({ target: table.id, set: { ...row, updatedAt: new Date() } });
+  await recordAudit(db, {
+    actorId,
+    action: `${kind}.${existed ? 'changed' : 'added'}`,
+    subject: `${kind}:${profile.id}`,
+  });
+}
+
 /**
  * Adds or replaces one printer profile.
  * @param db - database
@@ -85,74 +129,90 @@ export async function savePrinter(db: Db, printer: PrinterProfile, actorId: stri
     .select({ id: printerProfiles.id })
     .from(printerProfiles)
     .where(eq(printerProfiles.id, printer.id));
-  const now = new Date();
-  await db
-    .insert(printerProfiles)
-    .values({ id: printer.id, name: printer.name, data: { ...printer } })
-    .onConflictDoUpdate({
-      target: printerProfiles.id,
-      set: { name: printer.name, data: { ...printer }, updatedAt: now },
-    });
-  await recordAudit(db, {
-    actorId,
-    action: existing ? 'printer.changed' : 'printer.added',
-    subject: `printer:${printer.id}`,
-  });
+  await writeProfile(db, { table: printerProfiles, kind: 'printer' }, printer, Boolean(existing), actorId);
   return { created: !existing };
 }
 
 /**
- * Adds or replaces one material with its colours.
+ * Adds or replaces one material with its colours, refusing in words to take out a colour a family's variants use.
+ * The material's row is locked (FOR UPDATE) while its colours are checked and saved, so a family save naming the
+ * material (which locks it FOR SHARE, see `lockProfilesNamed`) either comes first and is found here, or comes after
+ * and finds the colour gone.
  * @param db - database
  * @param material - the material (validated by the route)
  * @param actorId - who saved it
  * @returns whether the material is new
+ * @throws HttpError 409 `in_use` naming the families that use a colour taken out
  */
 export async function saveMaterial(db: Db, material: Material, actorId: string): Promise<{ created: boolean }> {
-  const [existing] = await db.select({ id: materials.id }).from(materials).where(eq(materials.id, material.id));
-  const now = new Date();
-  await db
-    .insert(materials)
-    .values({ id: material.id, name: material.name, data: { ...material } })
-    .onConflictDoUpdate({ target: materials.id, set: { name: material.name, data: { ...material }, updatedAt: now } });
-  await recordAudit(db, {
-    actorId,
-    action: existing ? 'material.changed' : 'material.added',
-    subject: `material:${material.id}`,
+  const created = await db.transaction(async (tx) => {
+    const [existing] = await tx
+      .select({ data: materials.data })
+      .from(materials)
+      .where(eq(materials.id, material.id))
+      .for('update');
+    const kept = new Set(material.colours.map((c) => c.id));
+    const before = (existing?.data.colours as { id: string; name: string }[] | undefined) ?? [];
+    for (const colour of before.filter((c) => !kept.has(c.id)))
+      refuseWhileUsed(
+        await familiesUsingColours(tx, material.id, [colour.id]),
+        `The colour “${colour.name}” of ${material.name}`,
+        'taken out',
+      );
+    await writeProfile(tx, { table: materials, kind: 'material' }, material, Boolean(existing), actorId);
+    return !existing;
   });
   // Material and colour names show in the shop and on documents.
   catalogueChanged(db);
-  return { created: !existing };
+  return { created };
 }
 
 /**
- * Removes a printer profile. The route checks first that no family uses it and that it is not the last one.
+ * Removes a printer or a material in one transaction: it locks every profile row of its table first (so two
+ * removals, and a family save naming the profile, take turns: see `lockProfilesNamed`), then checks that the
+ * profile exists, that no family uses it and that it is not the studio's last one, deletes it and records the audit.
+ */
+async function removeProfile(db: Db, on: ProfileTable, id: string, actorId: string): Promise<void> {
+  const { table, kind } = on;
+  await db.transaction(async (tx) => {
+    // Rows are locked in one order, so two removals never wait on each other in a circle; a row another
+    // transaction deleted meanwhile is not returned.
+    const rows = await tx.select({ id: table.id, name: table.name }).from(table).orderBy(table.id).for('update');
+    const profile = rows.find((row) => row.id === id);
+    if (!profile) throw notFound(`There is no such ${kind}: it may have been removed already.`);
+    refuseWhileUsed(await on.familiesUsing(tx, id), `The ${kind} “${profile.name}”`);
+    if (rows.length === 1)
+      throw conflict(`last_${kind}`, `“${profile.name}” is the studio’s only ${kind}: add another before removing it.`);
+    await tx.delete(table).where(eq(table.id, id));
+    await recordAudit(tx, { actorId, action: `${kind}.removed`, subject: `${kind}:${id}` });
+  });
+}
+
+/**
+ * Removes a printer profile, refused in words while a family prints on it or when it is the studio's only one.
  * @param db - database
  * @param id - the printer's identifier
  * @param actorId - who removed it
- * @returns whether there was such a printer
+ * @throws HttpError 404 when there is no such printer, 409 `in_use` naming the families, 409 `last_printer`
  */
-export async function removePrinter(db: Db, id: string, actorId: string): Promise<boolean> {
-  const removed = await db
-    .delete(printerProfiles)
-    .where(eq(printerProfiles.id, id))
-    .returning({ id: printerProfiles.id });
-  if (removed.length === 0) return false;
-  await recordAudit(db, { actorId, action: 'printer.removed', subject: `printer:${id}` });
-  return true;
+export async function removePrinter(db: Db, id: string, actorId: string): Promise<void> {
+  await removeProfile(
+    db,
+    { table: printerProfiles, kind: 'printer', familiesUsing: familiesUsingPrinter },
+    id,
+    actorId,
+  );
 }
 
 /**
- * Removes a material with its colours. The route checks first that no family uses it and that it is not the last.
+ * Removes a material with its colours, refused in words while a family uses it or when it is the studio's only one.
  * @param db - database
  * @param id - the material's identifier
  * @param actorId - who removed it
- * @returns whether there was such a material
+ * @throws HttpError 404 when there is no such material, 409 `in_use` naming the families, 409 `last_material`
  */
-export async function removeMaterial(db: Db, id: string, actorId: string): Promise<boolean> {
-  const removed = await db.delete(materials).where(eq(materials.id, id)).returning({ id: materials.id });
-  if (removed.length === 0) return false;
-  await recordAudit(db, { actorId, action: 'material.removed', subject: `material:${id}` });
+export async function removeMaterial(db: Db, id: string, actorId: string): Promise<void> {
+  await removeProfile(db, { table: materials, kind: 'material', familiesUsing: familiesUsingMaterial }, id, actorId);
+  // Material and colour names show in the shop and on documents.
   catalogueChanged(db);
-  return true;
 }

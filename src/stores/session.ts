@@ -77,7 +77,7 @@ export const useSessionStore = defineStore('session', () => {
 
   /**
    * Takes the studio's name and locale (from the server, or at once after an admin changed them): the header shows
-   * the name, and every formatter writes figures in the locale from the next render on.
+   * the name, and figures on every open screen are written again in the locale (it is kept in a ref, see main.ts).
    * @param studio - the studio's name and locale
    */
   function setStudio(studio: { name: string; locale: string }): void {

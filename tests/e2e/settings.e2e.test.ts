@@ -5,9 +5,10 @@
  * section and the field keeps what was typed. Other roles are sent away. axe-core finds no serious or critical
  * WCAG 2.x A/AA violation at 1440 and 390 px. Screenshots at 1440, 1024 and 390 px go to /tmp/nestwright-e2e/settings.
  * source: Web Content Accessibility Guidelines (WCAG) 2.2, W3C, 2023; axe-core rule impacts, Deque Systems, 2024.
- * The German amount pattern ("1.234,50 €": "." grouping, "," decimals, no-break space before the sign) is from
- * Unicode CLDR locale data (Unicode Consortium; the release the runtime's ICU carries). Access rules and the VAT
- * limit are the product's own.
+ * Amounts already on the screen (a material's price beside its cents field) turn German at once after the save,
+ * without a navigation. The German amount pattern ("1.234,50 €": "." grouping, "," decimals, no-break space before
+ * the sign) is from Unicode CLDR locale data (Unicode Consortium; the release the runtime's ICU carries). Access
+ * rules and the VAT limit are the product's own.
  */
 import { mkdirSync } from 'node:fs';
 import AxeBuilder from '@axe-core/playwright';
@@ -78,6 +79,10 @@ describe('Settings screen', () => {
     await page.getByText('Shop settings saved: the shop uses them now.').waitFor();
     expect((await getSalesSettings(e2e.server.ctx.db)).settings.shop.vatRatePct).toBe(19);
 
+    // A material's price in cents shows the amount it makes, in the studio's locale (British English so far).
+    const materialPrice = page.getByTestId('material-priceCentsPerKg-amount');
+    expect((await materialPrice.textContent())?.trim()).toMatch(/^= €\d{1,3}(,\d{3})*\.\d{2}$/);
+
     // The studio's new name and locale: the app bar shows the name at once.
     await page.locator('#studio-name').fill('Wrenfield Nest Works');
     await page.locator('#studio .n-base-selection').click();
@@ -86,6 +91,18 @@ describe('Settings screen', () => {
     await page.getByTestId('save-studio').click();
     await page.getByText(/^Saved: amounts and dates now read like/).waitFor();
     await expect(page.getByTestId('studio-name').textContent()).resolves.toBe('Wrenfield Nest Works');
+    // Amounts already on the screen are written the German way at once, without a navigation.
+    const germanAmount = /^= \d{1,3}(\.\d{3})*,\d{2}\u00a0€$/;
+    await page.waitForFunction(
+      (pattern) =>
+        new RegExp(pattern).test(
+          document.querySelector('[data-testid="material-priceCentsPerKg-amount"]')?.textContent?.trim() ?? '',
+        ),
+      germanAmount.source,
+    );
+    expect((await materialPrice.textContent())?.trim()).toMatch(germanAmount);
+    expect(page.url()).toMatch(/\/admin\/settings$/);
+    await page.locator('#materials').screenshot({ path: `${SHOTS}/materials-german-1440.png` });
 
     // The shop (a new visitor) writes prices the German way, with the new VAT rate.
     const shopper = await e2e.newPage({ viewport: { width: 390, height: 844 } });

@@ -12,6 +12,7 @@ import { familyAcknowledgements, familyRevisions, familyVariants, families } fro
 import { HttpError } from '../../http/HttpError';
 import { familyJobs } from '../../jobs/FamilyJobRunner';
 import { recordAudit } from '../audit';
+import { lockProfilesNamed } from '../catalogueReferences';
 import { loadMaterials, loadPrinters } from '../familyProduction';
 import { checkFamilySpec, type SpecToCheck } from '../familySpecCheck';
 import { familySubject, invalidState, loadFamily, stateChanged, viewFamily, type FamilyContext } from './loadFamily';
@@ -43,6 +44,18 @@ async function insertVariants(db: Queryable, revisionId: string, code: string, s
 }
 
 /**
+ * Checks a spec inside the save's transaction, against the printers and materials as they are once the ones it
+ * names are locked: a profile removed meanwhile is refused in words, and none can be removed until the save commits.
+ * @param tx - the save's transaction
+ * @param spec - the family content
+ */
+async function checkNamedProfiles(tx: Queryable, spec: SpecToCheck): Promise<{ templateVersion: number }> {
+  const materialAxis = spec.axes.find((axis) => axis.kind === 'attribute' && axis.key === 'material');
+  await lockProfilesNamed(tx, spec.printerId, [spec.materialId, ...(materialAxis?.values.map(String) ?? [])]);
+  return checkFamilySpec(spec, await loadPrinters(tx), await loadMaterials(tx));
+}
+
+/**
  * Creates a family in draft (revision 1) with its variant matrix, pinned to the template's current version.
  * @param ctx - app context
  * @param person - the designer
@@ -51,8 +64,8 @@ async function insertVariants(db: Queryable, revisionId: string, code: string, s
  */
 export async function createFamily(ctx: FamilyContext, person: Person, body: FamilyCreateParsed): Promise<Family> {
   const spec = body;
-  const { templateVersion } = checkFamilySpec(spec, await loadPrinters(ctx.db), await loadMaterials(ctx.db));
   const id = await ctx.db.transaction(async (tx) => {
+    const { templateVersion } = await checkNamedProfiles(tx, spec);
     const [taken] = await tx.select({ id: families.id }).from(families).where(eq(families.code, body.code));
     if (taken) {
       // Answered at the field: the client shows `details` beside the SKU code input.
@@ -107,8 +120,6 @@ export async function updateFamily(
   id: string,
   patch: FamilyUpdate,
 ): Promise<Family> {
-  const printers = await loadPrinters(ctx.db);
-  const materials = await loadMaterials(ctx.db);
   const { current: before } = await loadFamily(ctx.db, id);
   if (before.state === 'draft') await familyJobs(ctx).cancel(before.id, false);
   await ctx.db.transaction(async (tx) => {
@@ -133,7 +144,7 @@ export async function updateFamily(
       targets: patch.targets ?? current.targets,
       printRecipe: patch.printRecipe ?? current.printRecipe,
     };
-    const checked = checkFamilySpec(spec, printers, materials);
+    const checked = await checkNamedProfiles(tx, spec);
     const templateVersion =
       templateChanged || patch.templateVersion === 'latest' ? checked.templateVersion : current.templateVersion;
     const changed = Object.keys(patch).filter((key) => key !== 'expectedLock');

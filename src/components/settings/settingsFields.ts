@@ -18,11 +18,11 @@ export const PRINT_SETTING_FIELDS: readonly NumberField[] = [
 
 /** Cost rates (the currency and finishes are edited apart). */
 export const RATE_FIELDS: readonly NumberField[] = [
-  { key: 'electricityCentsPerKwh', label: 'Electricity (cents per kWh)', min: 0 },
-  { key: 'labourCentsPerHour', label: 'Labour (cents per hour)', min: 0, step: 50 },
+  { key: 'electricityCentsPerKwh', label: 'Electricity (cents per kWh)', min: 0, cents: true },
+  { key: 'labourCentsPerHour', label: 'Labour (cents per hour)', min: 0, step: 50, cents: true },
   { key: 'supportRemovalMinPerCm3', label: 'Support removal (min per cm³)', min: 0, step: 0.1 },
   { key: 'handlingMinPerUnit', label: 'Handling (min per unit)', min: 0, step: 0.5 },
-  { key: 'packagingCents', label: 'Packaging (cents per unit)', min: 0 },
+  { key: 'packagingCents', label: 'Packaging (cents per unit)', min: 0, cents: true },
   { key: 'failureAllowancePct', label: 'Failed prints (%)', min: 0, max: 99 },
   { key: 'marginPct', label: 'Margin (%)', min: 0, max: 99 },
 ];
@@ -36,7 +36,7 @@ export const PRINTER_FIELDS: readonly NumberField[] = [
   { key: 'lineWidthMm', label: 'Line width (mm)', min: 0.1, step: 0.01 },
   { key: 'maxVolumetricFlowMm3s', label: 'Highest flow (mm³/s)', min: 1 },
   { key: 'averagePowerW', label: 'Average power (W)', min: 0, step: 10 },
-  { key: 'machineRateCentsPerHour', label: 'Machine rate (cents per hour)', min: 0 },
+  { key: 'machineRateCentsPerHour', label: 'Machine rate (cents per hour)', min: 0, cents: true },
   { key: 'filamentDiameterMm', label: 'Filament diameter (mm)', min: 1, step: 0.05 },
   { key: 'layerChangeS', label: 'Layer change (s)', min: 0, step: 0.5 },
   { key: 'plateWarmUpMin', label: 'Warm-up per plate (min)', min: 0 },
@@ -52,7 +52,7 @@ export const BUILD_VOLUME_FIELDS: readonly NumberField[] = [
 /** A material's figures. */
 export const MATERIAL_FIELDS: readonly NumberField[] = [
   { key: 'densityGcm3', label: 'Density (g/cm³)', min: 0.1, step: 0.01 },
-  { key: 'priceCentsPerKg', label: 'Price (cents per kg)', min: 0, step: 100 },
+  { key: 'priceCentsPerKg', label: 'Price (cents per kg)', min: 0, step: 100, cents: true },
   { key: 'heatDeflectionC', label: 'Heat deflection (°C)', step: 1 },
   { key: 'glassTransitionC', label: 'Glass transition (°C)', step: 1 },
   { key: 'thermalConductivityWmK', label: 'Thermal conductivity (W/m·K)', min: 0.01, step: 0.01 },
