@@ -10,23 +10,15 @@
  * "#,##0.00 ¤" with "." grouping, "," decimals and a no-break space before the sign; French with a narrow no-break
  * space grouping; British English "¤#,##0.00". Access rules and the refusals are our own product decisions.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { formatMoney } from '../shared/format';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS } from '../shared/production/defaults';
 import { orderMail } from '../server/services/orderMail';
 import { eq, sql } from 'drizzle-orm';
 import { familyRevisions, familyVariants, type OrderLineRow, type OrderRow } from '../server/db/schema';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { useTestApp } from './setup/testApp';
 
-let t: TestApp;
-
-beforeAll(async () => {
-  t = await makeTestApp();
-}, 120_000);
-
-afterAll(async () => {
-  await t?.close();
-});
+const t = useTestApp();
 
 const NBSP = '\u00a0';
 const NNBSP = '\u202f';

@@ -8,17 +8,9 @@ import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_MATERIALS, DEFAULT_PRINTERS, DEFAULT_RATES, DEFAULT_SETTINGS } from '../shared/production/defaults';
 import { smallFamilyBody } from './familiesFixtures';
-import { makeTestApp, type TestApp } from './setup/testApp';
+import { makeTestApp, useTestApp, type TestApp } from './setup/testApp';
 
-let t: TestApp;
-
-beforeAll(async () => {
-  t = await makeTestApp();
-}, 120_000);
-
-afterAll(async () => {
-  await t?.close();
-});
+const t = useTestApp();
 
 describe('studio name', () => {
   it('is read from the database by /api/auth/me, and an admin renames it', async () => {
