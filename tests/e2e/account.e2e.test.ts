@@ -6,7 +6,7 @@
 import { mkdirSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { demoPerson, startE2E, type E2E } from './harness';
+import { demoPerson, pickMenuEntry, startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
 let e2e: E2E;
@@ -21,8 +21,7 @@ afterAll(async () => {
 
 /** Opens the "More" menu of one person's row and picks an action. */
 async function rowAction(page: Page, name: string, action: string): Promise<void> {
-  await page.getByRole('button', { name: `More actions for ${name}` }).click();
-  await page.getByText(action, { exact: true }).click();
+  await pickMenuEntry(page, page.getByRole('button', { name: `More actions for ${name}` }), action);
 }
 
 describe('admin account actions and change password', { timeout: 120_000 }, () => {
@@ -46,8 +45,11 @@ describe('admin account actions and change password', { timeout: 120_000 }, () =
 
     const person = await e2e.newPage();
     await e2e.signIn(person, sales.email, generated);
-    await person.getByRole('button', { name: `Account menu for ${sales.name}` }).click();
-    await person.getByText('Change password', { exact: true }).click();
+    await pickMenuEntry(
+      person,
+      person.getByRole('button', { name: `Account menu for ${sales.name}` }),
+      'Change password',
+    );
     await person.waitForURL((url) => url.pathname === '/account/password');
     await person.getByLabel('Current password').fill('not-the-password');
     await person.getByLabel('New password', { exact: true }).fill('short');

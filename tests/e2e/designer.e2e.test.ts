@@ -16,7 +16,7 @@ import { parseStl } from '../../shared/mesh/parseStl';
 import { parse3mf } from '../../shared/mesh/parse3mf';
 import sharp from 'sharp';
 import { PALETTE } from '../../src/styles/palette';
-import { startE2E, type E2E } from './harness';
+import { pickMenuEntry, startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
 let e2e: E2E;
@@ -198,15 +198,13 @@ describe('designer configurator', () => {
     const card = page.getByTestId(`preset-card-${id}`);
     await expect(card.textContent()).resolves.toContain('Card to rename');
 
-    await card.getByRole('button', { name: 'More actions for Card to rename' }).click();
-    await page.getByText('Rename…').click();
+    await pickMenuEntry(page, card.getByRole('button', { name: 'More actions for Card to rename' }), 'Rename…');
     await page.getByLabel('Preset name').fill('Card renamed');
     await page.getByRole('button', { name: 'Rename', exact: true }).click();
     await page.getByText('Renamed to “Card renamed”.').waitFor();
     await expect(card.textContent()).resolves.toContain('Card renamed');
 
-    await card.getByRole('button', { name: 'More actions for Card renamed' }).click();
-    await page.getByText('Delete…').click();
+    await pickMenuEntry(page, card.getByRole('button', { name: 'More actions for Card renamed' }), 'Delete…');
     await page.getByRole('button', { name: 'Delete', exact: true }).click();
     await page.getByText('Deleted “Card renamed”.').waitFor();
     expect(await card.count()).toBe(0);

@@ -17,7 +17,14 @@
 import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
+import {
+  chromium,
+  type Browser,
+  type BrowserContext,
+  type BrowserContextOptions,
+  type Locator,
+  type Page,
+} from 'playwright-core';
 import type { Role } from '../../shared/schemas/auth';
 import { boot, type Booted } from '../../server/boot';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/db/seedDemo';
@@ -101,6 +108,25 @@ export function demoPerson(role: Role): DemoPerson {
   const person = DEMO_PEOPLE.find((p) => p.roles.includes(role));
   if (!person) throw new Error(`No demo person holds the role ${role}`);
   return { ...person, roles: [...person.roles], password: DEMO_PASSWORD };
+}
+
+/**
+ * Opens a drop-down menu and picks an entry. The menu scales in from its button: the entry is clicked once the menu
+ * stands still, not while it grows under the pointer (on a busy machine the entry next to it can be there then).
+ * @param page - the page
+ * @param opener - the button that opens the menu
+ * @param entry - the entry's exact text
+ */
+export async function pickMenuEntry(page: Page, opener: Locator, entry: string): Promise<void> {
+  await opener.click();
+  const item = page.locator('.n-dropdown-menu').getByText(entry, { exact: true });
+  await item.waitFor();
+  await page.waitForFunction(() =>
+    [...document.querySelectorAll('.n-dropdown-menu')].every(
+      (menu) => menu.getAnimations({ subtree: true }).length === 0,
+    ),
+  );
+  await item.click();
 }
 
 /** Options of {@link startE2E}. */

@@ -8,7 +8,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../../shared/schemas/auth';
 import { areasFor } from '../../src/router/areas';
-import { demoPerson, startE2E, type E2E } from './harness';
+import { demoPerson, pickMenuEntry, startE2E, type E2E } from './harness';
 
 const SHOTS = '/tmp/nestwright-e2e';
 
@@ -76,9 +76,12 @@ describe('sign-in, home screen and sign-out', { timeout: 60_000 }, () => {
       await settle(page);
       await page.screenshot({ path: `${SHOTS}/home-${role}.png` });
 
-      await page.getByRole('button', { name: `Account menu for ${person.name}` }).click();
-      await page.getByText('Sign out', { exact: true }).click();
-      await page.waitForURL((url) => url.pathname === '/sign-in');
+      await pickMenuEntry(page, page.getByRole('button', { name: `Account menu for ${person.name}` }), 'Sign out');
+      await page
+        .waitForURL((url) => url.pathname === '/sign-in')
+        .catch((err: unknown) => {
+          throw new Error(`after "Sign out" the page stayed at ${page.url()} (${String(err)})`);
+        });
 
       // Signed out for real: the server no longer knows the session, and the app sends the visitor to sign in.
       const me = await page.request.get('/api/auth/me');
