@@ -2,10 +2,10 @@
  * The Chromium part of `npm run bench -- preview`: drives the real editor (client built as for the browser tests,
  * real server on an in-memory seeded database, Debian's Chromium through playwright-core) and reads the measures the
  * page records from a slider input to the frame that shows the new mesh (`nw-preview-draft` while the slider is held,
- * `nw-preview-full` from its release). Per template: p50/p95 over 50 moves of the entry-hole slider while held, p50
- * and p95 of five releases, split into the mesh's arrival on the page (build and transfer) and, after the frame was
- * drawn, its arrival on the screen (`…-arrival`, `…-screen` measures), and the long tasks (over 50 ms, PerformanceObserver 'longtask') on the page's main thread during
- * a 5 s drag. Chromium runs with --disable-gpu, so WebGL is software-rendered: the renderer string is reported.
+ * `nw-preview-full` from its release). Per template: p50/p95 over 50 moves of the entry-hole slider while held; p50
+ * and p95 of five releases, with the mesh's arrival on the page (build and transfer) and the drawn frame's arrival
+ * on the screen (`…-arrival`, `…-screen` measures); and the long tasks (over 50 ms, PerformanceObserver 'longtask')
+ * on the page's main thread during a 5 s drag. Chromium runs with --disable-gpu, so WebGL is software-rendered: the renderer string is reported.
  */
 import type { Page } from 'playwright-core';
 import { startE2E } from '../tests/e2e/harness';

@@ -37,8 +37,8 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
   /** When the person moved a value last (ms, performance clock): the start of the preview latency measure. */
   let inputAt: number | null = null;
   const inputAtByRequest = new Map<number, number>();
-  /** Meshes drawn whose frame has not reached the screen yet: when their input began, and their quality. */
-  const awaitingScreen = new Map<IndexedMesh, { started: number; quality: BuildQuality }>();
+  /** The mesh drawn last while its frame has not reached the screen: when its input began, and its quality. */
+  let awaitingScreen: { mesh: IndexedMesh; started: number; quality: BuildQuality } | null = null;
 
   /** Asks the worker for the current values at the given quality and remembers when the change began. */
   function requestBuild(quality: BuildQuality): void {
@@ -108,8 +108,7 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
       end: Math.max(started, shown.arrivedAt),
       detail,
     });
-    awaitingScreen.clear();
-    awaitingScreen.set(mesh, { started, quality: shown.quality });
+    awaitingScreen = { mesh, started, quality: shown.quality };
   }
 
   /**
@@ -118,9 +117,9 @@ export function usePreviewRequests(options: PreviewRequestsOptions) {
    * @param presentedAt - when the frame went to the screen (performance clock)
    */
   function meshPresented(mesh: IndexedMesh, presentedAt: number): void {
-    const waiting = awaitingScreen.get(mesh);
-    if (!waiting) return;
-    awaitingScreen.delete(mesh);
+    const waiting = awaitingScreen;
+    if (waiting?.mesh !== mesh) return;
+    awaitingScreen = null;
     performance.measure(`nw-preview-${waiting.quality}-screen`, {
       start: waiting.started,
       end: Math.max(waiting.started, presentedAt),
